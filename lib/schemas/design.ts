@@ -1,0 +1,183 @@
+/**
+ * The design file (format `wreathwright-design`, version 1) as one zod schema, shared by the
+ * API, the drafting board and the command line. `parseDesign` is the one edge where a file
+ * becomes the core's `Design`: centimetres are converted to inches here, once.
+ */
+import { z } from 'zod'
+import type { Design, HandSetOrder, JoinTree, Point } from '@/geometry/types'
+
+/** 1 in = 2.54 cm exactly (international yard and pound agreement, 1959). */
+const CENTIMETRES_PER_INCH = 2.54
+
+// zod 4's number() already refuses NaN and ±Infinity, so every coordinate is finite.
+const finite = z.number()
+const positive = finite.positive()
+const point = z.tuple([finite, finite])
+
+const seam = z.strictObject({ id: z.string().min(1), from: point, to: point })
+const fill = z.strictObject({ at: point, fabric: z.string().min(1) })
+
+const leaf = z.strictObject({
+  id: z.string().min(1),
+  seam: z.string().min(1),
+  at: finite.min(0).max(1),
+  side: z.enum(['left', 'right']),
+  angle: finite.min(-75).max(75).optional(),
+  length: positive,
+  width: positive,
+  layers: z.array(z.string().min(1)).min(1),
+})
+
+const stem = z.strictObject({ radius: positive, finishedWidth: positive, fabric: z.string().min(1) })
+const berry = z.strictObject({ at: point, finishedDiameter: positive, fabric: z.string().min(1) })
+const curl = z.strictObject({ points: z.array(point).min(2) })
+const colorway = z.strictObject({
+  name: z.string().min(1),
+  fabrics: z.record(z.string(), z.string().regex(/^#[0-9a-fA-F]{6}$/, 'a colour is #rrggbb')),
+})
+
+const joinTree: z.ZodType<JoinTree> = z.lazy(() => z.union([z.string().min(1), z.tuple([joinTree, joinTree])]))
+
+const handSetOrder = z.strictObject({
+  sections: z.array(z.strictObject({ label: z.string().min(1), areas: z.array(point).min(1) })).min(1),
+  assembly: joinTree.nullable().optional(),
+})
+
+const ring = z
+  .strictObject({
+    innerRadius: finite.min(0),
+    outerRadius: positive,
+    repeats: z.number().int().min(2).max(36),
+    repeatMode: z.enum(['rotate', 'mirror']),
+  })
+  .superRefine((value, context) => {
+    if (value.innerRadius >= value.outerRadius) {
+      context.addIssue({ code: 'custom', path: ['innerRadius'], message: 'the inner radius must be smaller than the outer radius' })
+    }
+    // Alternate mirroring only closes up around the ring when the repeats pair off.
+    if (value.repeatMode === 'mirror' && value.repeats % 2 !== 0) {
+      context.addIssue({ code: 'custom', path: ['repeatMode'], message: 'mirrored repeats need an even number of repeats' })
+    }
+  })
+
+/**
+ * The schema of a design file. Unknown keys are rejected, each issue carries the path of the
+ * offending field.
+ *
+ * @example designFileSchema.safeParse(JSON.parse(text)).success
+ */
+export const designFileSchema = z
+  .strictObject({
+    format: z.literal('wreathwright-design'),
+    version: z.literal(1),
+    name: z.string(),
+    units: z.enum(['in', 'cm']),
+    ring,
+    seams: z.array(seam),
+    fills: z.array(fill).optional(),
+    leaves: z.array(leaf).optional(),
+    stems: z.array(stem).optional(),
+    berries: z.array(berry).optional(),
+    curls: z.array(curl).optional(),
+    colorways: z.array(colorway).optional(),
+    order: handSetOrder.nullable().optional(),
+  })
+  .superRefine((file, context) => {
+    const seamIds = new Set<string>()
+    file.seams.forEach((s, index) => {
+      if (seamIds.has(s.id)) context.addIssue({ code: 'custom', path: ['seams', index, 'id'], message: `seam id "${s.id}" is used twice` })
+      seamIds.add(s.id)
+    })
+    const leafIds = new Set<string>()
+    ;(file.leaves ?? []).forEach((l, index) => {
+      if (!seamIds.has(l.seam)) {
+        context.addIssue({ code: 'custom', path: ['leaves', index, 'seam'], message: `no seam has the id "${l.seam}"` })
+      }
+      if (leafIds.has(l.id)) context.addIssue({ code: 'custom', path: ['leaves', index, 'id'], message: `leaf id "${l.id}" is used twice` })
+      leafIds.add(l.id)
+    })
+    const labels = new Set<string>()
+    ;(file.order?.sections ?? []).forEach((section, index) => {
+      if (labels.has(section.label)) {
+        context.addIssue({ code: 'custom', path: ['order', 'sections', index, 'label'], message: `section "${section.label}" is named twice` })
+      }
+      labels.add(section.label)
+    })
+  })
+
+/** A design file as written on disk (in its own units). */
+export type DesignFile = z.infer<typeof designFileSchema>
+
+/** One reason a file is not a valid design, with the dotted path of the field, e.g. `ring.outerRadius`. */
+export interface DesignIssue {
+  readonly path: string
+  readonly message: string
+}
+
+export type ParseDesignResult =
+  | { readonly ok: true; readonly design: Design; readonly file: DesignFile }
+  | { readonly ok: false; readonly issues: readonly DesignIssue[] }
+
+/**
+ * Validates a parsed JSON value as a design file and converts it to the core's inches `Design`.
+ *
+ * @example
+ * const result = parseDesign(JSON.parse(text))
+ * if (!result.ok) console.error(result.issues[0]?.path, result.issues[0]?.message)
+ */
+export function parseDesign(json: unknown): ParseDesignResult {
+  const parsed = designFileSchema.safeParse(json)
+  if (!parsed.success) {
+    return {
+      ok: false,
+      issues: parsed.error.issues.map((issue) => ({
+        path: issue.path.map(String).join('.') || '(root)',
+        message: issue.message,
+      })),
+    }
+  }
+  return { ok: true, design: toInchesDesign(parsed.data), file: parsed.data }
+}
+
+/** Formats an issue as one line: `ring.outerRadius: Too small: expected number to be >0`. */
+export function formatDesignIssue(issue: DesignIssue): string {
+  return `${issue.path}: ${issue.message}`
+}
+
+function toInchesDesign(file: DesignFile): Design {
+  const scale = file.units === 'cm' ? 1 / CENTIMETRES_PER_INCH : 1
+  const length = (value: number): number => value * scale
+  const at = (p: readonly [number, number]): Point => [p[0] * scale, p[1] * scale]
+  const order: HandSetOrder | null = file.order
+    ? {
+        sections: file.order.sections.map((s) => ({ label: s.label, areas: s.areas.map(at) })),
+        assembly: file.order.assembly ?? null,
+      }
+    : null
+  return {
+    name: file.name,
+    ring: {
+      innerRadius: length(file.ring.innerRadius),
+      outerRadius: length(file.ring.outerRadius),
+      repeats: file.ring.repeats,
+      repeatMode: file.ring.repeatMode,
+    },
+    seams: file.seams.map((s) => ({ id: s.id, from: at(s.from), to: at(s.to) })),
+    fills: (file.fills ?? []).map((f) => ({ at: at(f.at), fabric: f.fabric })),
+    leaves: (file.leaves ?? []).map((l) => ({
+      id: l.id,
+      seam: l.seam,
+      at: l.at,
+      side: l.side,
+      angle: l.angle ?? 0,
+      length: length(l.length),
+      width: length(l.width),
+      layers: [...l.layers],
+    })),
+    stems: (file.stems ?? []).map((s) => ({ radius: length(s.radius), finishedWidth: length(s.finishedWidth), fabric: s.fabric })),
+    berries: (file.berries ?? []).map((b) => ({ at: at(b.at), finishedDiameter: length(b.finishedDiameter), fabric: b.fabric })),
+    curls: (file.curls ?? []).map((c) => ({ points: c.points.map(at) })),
+    colorways: (file.colorways ?? []).map((c) => ({ name: c.name, fabrics: { ...c.fabrics } })),
+    order,
+  }
+}
