@@ -1,0 +1,118 @@
+/**
+ * The core's shared vocabulary. Every length is in inches, every point is in repeat 0's frame
+ * (origin at the ring's centre, x right, y up) unless its type says otherwise.
+ */
+
+declare const inchesBrand: unique symbol
+declare const radiansBrand: unique symbol
+
+/** A length in inches. Centimetre designs are converted once, at the edge (the design schema). */
+export type Inches = number & { readonly [inchesBrand]: true }
+/** An angle in radians, counter-clockwise from +x. */
+export type Radians = number & { readonly [radiansBrand]: true }
+
+export const inches = (value: number): Inches => value as Inches
+export const radians = (value: number): Radians => value as Radians
+
+/** A point in repeat 0's frame, in inches. */
+export type Point = readonly [x: number, y: number]
+/** A straight segment from one point to another. */
+export type Segment = readonly [from: Point, to: Point]
+/** A simple polygon, counter-clockwise, without the closing point repeated. */
+export type Polygon = readonly Point[]
+
+export type RepeatMode = 'rotate' | 'mirror'
+
+export interface Ring {
+  /** 0 makes each repeat a wedge. */
+  readonly innerRadius: number
+  readonly outerRadius: number
+  /** 2 to 36. */
+  readonly repeats: number
+  readonly repeatMode: RepeatMode
+}
+
+export interface Seam {
+  readonly id: string
+  readonly from: Point
+  readonly to: Point
+}
+
+export interface Fill {
+  readonly at: Point
+  readonly fabric: string
+}
+
+export interface Leaf {
+  readonly id: string
+  /** The id of the seam whose stitching catches the leaf's raw edge. */
+  readonly seam: string
+  /** Fraction (0..1) of the seam's length, from `from`, where the open end sits. */
+  readonly at: number
+  /** The side of the directed seam (from → to) the leaf lies over. */
+  readonly side: 'left' | 'right'
+  /** Degrees, −75..75: tilt of the leaf from the seam's normal. */
+  readonly angle: number
+  readonly length: number
+  readonly width: number
+  /** Stacked leaves, bottom first, each a fabric role. */
+  readonly layers: readonly string[]
+}
+
+export interface StemRing {
+  readonly radius: number
+  readonly finishedWidth: number
+  readonly fabric: string
+}
+
+export interface Berry {
+  readonly at: Point
+  readonly finishedDiameter: number
+  readonly fabric: string
+}
+
+export interface Curl {
+  readonly points: readonly Point[]
+}
+
+export interface Colorway {
+  readonly name: string
+  /** Fabric role → colour as #rrggbb. */
+  readonly fabrics: Readonly<Record<string, string>>
+}
+
+/** A join tree: a section label, or two subtrees joined along one straight seam. */
+export type JoinTree = string | readonly [JoinTree, JoinTree]
+
+export interface HandSetOrder {
+  readonly sections: readonly { readonly label: string; readonly areas: readonly Point[] }[]
+  readonly assembly?: JoinTree | null
+}
+
+/**
+ * A design as the core sees it: already validated and converted to inches.
+ * The file format (`wreathwright-design`, version 1) is parsed by lib/schemas/design.ts.
+ */
+export interface Design {
+  readonly name: string
+  readonly ring: Ring
+  readonly seams: readonly Seam[]
+  readonly fills: readonly Fill[]
+  readonly leaves: readonly Leaf[]
+  readonly stems: readonly StemRing[]
+  readonly berries: readonly Berry[]
+  readonly curls: readonly Curl[]
+  readonly colorways: readonly Colorway[]
+  readonly order: HandSetOrder | null
+}
+
+export type ProblemSeverity = 'error' | 'warning'
+
+/** An unsewable or doubtful place in a design: a result, never an exception. */
+export interface Problem {
+  readonly code: string
+  readonly severity: ProblemSeverity
+  /** Plain words a designer understands, naming the place. */
+  readonly message: string
+  readonly at: Point
+}
