@@ -1,0 +1,39 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize'
+import type { PatternState } from '@/lib/schemas/pattern'
+
+/** A pattern as it stands now; every saved state of it is also kept in PatternRevision. */
+export class Pattern extends Model<InferAttributes<Pattern>, InferCreationAttributes<Pattern>> {
+  declare id: CreationOptional<string>
+  declare ownerId: string
+  declare name: string
+  declare state: CreationOptional<PatternState>
+  /** The design file (format `wreathwright-design`, version 1), as the designer saved it. */
+  declare design: unknown
+  /** Goes up by one on every save; a save names the revision it started from. */
+  declare revision: CreationOptional<number>
+  declare createdAt: CreationOptional<Date>
+  declare updatedAt: CreationOptional<Date>
+}
+
+export function initPattern(sequelize: Sequelize): void {
+  Pattern.init(
+    {
+      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+      ownerId: { type: DataTypes.UUID, allowNull: false },
+      name: { type: DataTypes.TEXT, allowNull: false },
+      state: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'draft' },
+      design: { type: DataTypes.JSONB, allowNull: false },
+      revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'patterns', modelName: 'Pattern' },
+  )
+}

@@ -1,0 +1,40 @@
+import {
+  DataTypes,
+  Model,
+  type CreationOptional,
+  type InferAttributes,
+  type InferCreationAttributes,
+  type Sequelize,
+} from 'sequelize'
+import type { Role } from '@/lib/roles'
+
+export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
+  declare id: CreationOptional<string>
+  /** Stored lower-cased; a unique index on lower(email) also guards against mixed case. */
+  declare email: string
+  declare displayName: string
+  declare passwordHash: string
+  declare emailVerifiedAt: Date | null
+  declare roles: Role[]
+  /** Set when the person asked for a designer account at sign-up, until an admin decides. */
+  declare designerRequestedAt: Date | null
+  declare createdAt: CreationOptional<Date>
+  declare updatedAt: CreationOptional<Date>
+}
+
+export function initUser(sequelize: Sequelize): void {
+  User.init(
+    {
+      id: { type: DataTypes.UUID, primaryKey: true, defaultValue: DataTypes.UUIDV4 },
+      email: { type: DataTypes.TEXT, allowNull: false },
+      displayName: { type: DataTypes.TEXT, allowNull: false },
+      passwordHash: { type: DataTypes.TEXT, allowNull: false },
+      emailVerifiedAt: { type: DataTypes.DATE, allowNull: true },
+      roles: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false },
+      designerRequestedAt: { type: DataTypes.DATE, allowNull: true },
+      createdAt: DataTypes.DATE,
+      updatedAt: DataTypes.DATE,
+    },
+    { sequelize, tableName: 'users', modelName: 'User' },
+  )
+}
