@@ -1,0 +1,59 @@
+/**
+ * Failures a service reports to its caller. lib/http.ts turns each into its HTTP status;
+ * anything else is a programming error and becomes a 500 without details.
+ */
+export class ServiceError extends Error {
+  constructor(
+    message: string,
+    readonly status: number,
+  ) {
+    super(message)
+    this.name = new.target.name
+  }
+}
+
+/** The request needs a signed-in person. */
+export class UnauthenticatedError extends ServiceError {
+  constructor(message = 'Sign in first.') {
+    super(message, 401)
+  }
+}
+
+/** The signed-in person may not do this. */
+export class ForbiddenError extends ServiceError {
+  constructor(message = 'You are not allowed to do that.') {
+    super(message, 403)
+  }
+}
+
+export class NotFoundError extends ServiceError {
+  constructor(message = 'Not found.') {
+    super(message, 404)
+  }
+}
+
+/** The thing changed since the caller last saw it (e.g. a stale pattern revision). */
+export class ConflictError extends ServiceError {
+  constructor(
+    message: string,
+    readonly details: Record<string, unknown> = {},
+  ) {
+    super(message, 409)
+  }
+}
+
+export interface FieldIssue {
+  /** Dotted path of the offending field, e.g. `design.ring.outerRadius`. */
+  readonly path: string
+  readonly message: string
+}
+
+/** The input is well-formed JSON but not acceptable; names every offending field. */
+export class ValidationError extends ServiceError {
+  constructor(
+    readonly issues: readonly FieldIssue[],
+    message = `Please check ${issues.map((issue) => issue.path).join(', ')}.`,
+  ) {
+    super(message, 422)
+  }
+}
