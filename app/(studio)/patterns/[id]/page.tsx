@@ -1,0 +1,60 @@
+import type { Metadata } from 'next'
+import Link from 'next/link'
+import { notFound } from 'next/navigation'
+import { requireUser } from '@/lib/auth/current-user'
+import { NotFoundError } from '@/lib/errors'
+import { getPattern, listRevisions } from '@/lib/services/patterns'
+
+export const metadata: Metadata = { title: 'Pattern' }
+
+export default async function PatternPage({ params }: { params: Promise<{ id: string }> }) {
+  const { id } = await params
+  const user = await requireUser(undefined, `/patterns/${id}`)
+  const loaded = await Promise.all([getPattern(user, id), listRevisions(user, id)]).catch((error: unknown) => {
+    if (error instanceof NotFoundError) notFound()
+    throw error
+  })
+  const [pattern, revisions] = loaded
+  const { ring } = pattern.design
+  const unit = pattern.design.units
+  return (
+    <article className="space-y-6">
+      <Link href="/patterns" className="text-sm text-thread-700 hover:underline">
+        ← Pattern shelf
+      </Link>
+      <h1 className="text-2xl font-semibold text-thread-800">{pattern.name}</h1>
+      <dl className="grid max-w-xl grid-cols-2 gap-x-6 gap-y-2 text-sm">
+        <dt className="text-stone-500">State</dt>
+        <dd>{pattern.state}</dd>
+        <dt className="text-stone-500">Revision</dt>
+        <dd>{pattern.revision}</dd>
+        <dt className="text-stone-500">Finished diameter</dt>
+        <dd>
+          {2 * ring.outerRadius} {unit}
+        </dd>
+        <dt className="text-stone-500">Repeats</dt>
+        <dd>
+          {ring.repeats} ({ring.repeatMode === 'mirror' ? 'alternately mirrored' : 'rotated'})
+          {ring.innerRadius > 0 ? `, centre opening ${2 * ring.innerRadius} ${unit} across` : ', meeting at the centre'}
+        </dd>
+        <dt className="text-stone-500">Seams in one repeat</dt>
+        <dd>{pattern.design.seams.length}</dd>
+        <dt className="text-stone-500">Leaf inserts in one repeat</dt>
+        <dd>{pattern.design.leaves?.length ?? 0}</dd>
+        <dt className="text-stone-500">Colourways</dt>
+        <dd>{(pattern.design.colorways ?? []).map((colorway) => colorway.name).join(', ') || 'none yet'}</dd>
+      </dl>
+      <section>
+        <h2 className="mb-2 text-lg font-semibold">Saved revisions</h2>
+        <ol className="space-y-1 text-sm">
+          {revisions.map((revision) => (
+            <li key={revision.revision}>
+              Revision {revision.revision} — “{revision.name}”, {revision.state},{' '}
+              <time dateTime={revision.createdAt}>{new Date(revision.createdAt).toLocaleString()}</time>
+            </li>
+          ))}
+        </ol>
+      </section>
+    </article>
+  )
+}

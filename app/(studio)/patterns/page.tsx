@@ -1,0 +1,13 @@
+import type { Metadata } from 'next'
+import { PatternShelf } from '@/components/patterns/pattern-shelf'
+
+export const metadata: Metadata = { title: 'Pattern shelf' }
+
+export default function PatternShelfPage() {
+  return (
+    <>
+      <h1 className="text-2xl font-semibold text-thread-800">Pattern shelf</h1>
+      <PatternShelf />
+    </>
+  )
+}

@@ -1,0 +1,41 @@
+import Link from 'next/link'
+import { getCurrentUser } from '@/lib/auth/current-user'
+import { can } from '@/lib/authorization'
+import { SignOutButton } from '@/components/account/sign-out-button'
+
+export async function SiteHeader() {
+  const user = await getCurrentUser()
+  return (
+    <header className="border-b border-linen-200 bg-white/70">
+      <nav aria-label="Main" className="mx-auto flex max-w-6xl items-center gap-6 px-4 py-3">
+        <Link href="/" className="text-lg font-semibold text-thread-800">
+          Wreathwright
+        </Link>
+        {can(user, 'list-own-patterns') && (
+          <Link href="/patterns" className="text-sm text-stone-700 hover:text-thread-700">
+            Pattern shelf
+          </Link>
+        )}
+        <div className="ml-auto flex items-center gap-4 text-sm">
+          {user ? (
+            <>
+              <span className="text-stone-600" data-testid="signed-in-as">
+                {user.displayName} <span className="text-stone-400">({user.roles.join(', ')})</span>
+              </span>
+              <SignOutButton />
+            </>
+          ) : (
+            <>
+              <Link href="/sign-in" className="hover:text-thread-700">
+                Sign in
+              </Link>
+              <Link href="/sign-up" className="rounded bg-thread-700 px-3 py-1.5 text-white hover:bg-thread-800">
+                Create an account
+              </Link>
+            </>
+          )}
+        </div>
+      </nav>
+    </header>
+  )
+}

@@ -1,0 +1,40 @@
+/** Calls a route handler the way Next.js would, with a real Request. */
+export const TEST_ORIGIN = 'http://127.0.0.1:3000'
+
+type Handler<Params> = (request: Request, context: { params: Promise<Params> }) => Promise<Response>
+
+export interface CallOptions<Params> {
+  method?: string
+  path?: string
+  body?: unknown
+  /** Raw body text, for malformed JSON. */
+  rawBody?: string
+  cookie?: string
+  /** The Origin header; defaults to this site's. Pass null to send none. */
+  origin?: string | null
+  params?: Params
+}
+
+export async function call<Params = Record<string, never>>(handler: Handler<Params>, options: CallOptions<Params> = {}) {
+  const method = options.method ?? 'GET'
+  const headers = new Headers({ host: new URL(TEST_ORIGIN).host })
+  if (options.origin !== null && method !== 'GET') headers.set('origin', options.origin ?? TEST_ORIGIN)
+  if (options.cookie) headers.set('cookie', options.cookie)
+  let body: string | undefined
+  if (options.rawBody !== undefined) body = options.rawBody
+  else if (options.body !== undefined) body = JSON.stringify(options.body)
+  if (body !== undefined) headers.set('content-type', 'application/json')
+  const request = new Request(`${TEST_ORIGIN}${options.path ?? '/'}`, { method, headers, body })
+  const response = await handler(request, { params: Promise.resolve((options.params ?? {}) as Params) })
+  const text = await response.text()
+  const json = text ? (JSON.parse(text) as Record<string, any>) : null
+  return { status: response.status, json, headers: response.headers }
+}
+
+/** The session id a Set-Cookie header carries (empty when it clears the cookie). */
+export function sessionFromSetCookie(headers: Headers): string | null {
+  const setCookie = headers.get('set-cookie')
+  if (!setCookie) return null
+  const [pair] = setCookie.split(';')
+  return pair ?? null
+}
