@@ -1,0 +1,192 @@
+/**
+ * Demo data: an invented scenario. Two small studios — Bramble Lane Quiltworks (Marguerite Okafor)
+ * and Juniper Thread Co. (Tomasz Lindqvist) — a pattern tester, two quilters and an admin.
+ * Loading is idempotent: people are found by e-mail and patterns by owner and name, so a second
+ * run neither duplicates nor overwrites anything a person changed in the meantime.
+ */
+import { hashPassword } from '../lib/auth/password'
+import { database } from '../lib/db'
+import type { Role } from '../lib/roles'
+import type { DesignFile } from '../lib/schemas/design'
+import { designFileSchema } from '../lib/schemas/design'
+import type { PatternState } from '../lib/schemas/pattern'
+import { Pattern, PatternRevision, User } from '../models'
+
+/** For the demo only: every demo account signs in with this password. */
+export const DEMO_PASSWORD = 'stitch-and-flip-26'
+
+export const DEMO_PEOPLE: readonly { email: string; displayName: string; roles: Role[]; note: string }[] = [
+  { email: 'odile@wreathwright.example', displayName: 'Odile Fairweather', roles: ['admin'], note: 'admin' },
+  { email: 'marguerite@bramblelane.example', displayName: 'Marguerite Okafor', roles: ['designer', 'quilter'], note: 'designer, Bramble Lane Quiltworks' },
+  { email: 'tomasz@juniperthread.example', displayName: 'Tomasz Lindqvist', roles: ['designer', 'quilter'], note: 'designer, Juniper Thread Co.' },
+  { email: 'priya@testers.example', displayName: 'Priya Desmond', roles: ['tester', 'quilter'], note: 'pattern tester' },
+  { email: 'elsie@quilters.example', displayName: 'Elsie Varga', roles: ['quilter'], note: 'quilter' },
+  { email: 'ruben@quilters.example', displayName: 'Ruben Achterberg', roles: ['quilter'], note: 'quilter' },
+]
+
+const cos = (degrees: number) => Math.cos((degrees * Math.PI) / 180)
+const sin = (degrees: number) => Math.sin((degrees * Math.PI) / 180)
+/** A point at `radius` inches and `degrees` from +x, rounded to 1/10000 in. */
+const polar = (radius: number, degrees: number): [number, number] => [
+  Math.round(radius * cos(degrees) * 10_000) / 10_000,
+  Math.round(radius * sin(degrees) * 10_000) / 10_000,
+]
+
+/**
+ * Quarters of an 18 in wreath, each cut centre-outwards by straight lines: a centre triangle, a
+ * band carrying two stacked leaves, and two outer areas split along the quarter's middle.
+ */
+const hollyberryWreath: DesignFile = {
+  format: 'wreathwright-design',
+  version: 1,
+  name: 'Hollyberry Wreath',
+  units: 'in',
+  ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
+  seams: [
+    { id: 'centre', from: [4, 0], to: [0, 4] },
+    { id: 'band', from: [7, 0], to: [0, 7] },
+    { id: 'vein', from: [3.5, 3.5], to: polar(9, 45) },
+  ],
+  fills: [
+    { at: [1, 1], fabric: 'background' },
+    { at: [2.5, 3], fabric: 'band' },
+    { at: [6, 1.5], fabric: 'background' },
+    { at: [1.5, 6], fabric: 'background' },
+  ],
+  leaves: [
+    { id: 'leaf-east', seam: 'band', at: 0.3, side: 'left', angle: 0, length: 1.75, width: 0.875, layers: ['leaf-dark', 'leaf-light'] },
+    { id: 'leaf-north', seam: 'band', at: 0.7, side: 'left', angle: 0, length: 1.75, width: 0.875, layers: ['leaf-dark', 'leaf-light'] },
+  ],
+  stems: [{ radius: 7.75, finishedWidth: 0.375, fabric: 'stem' }],
+  berries: [
+    { at: polar(7.75, 20), finishedDiameter: 0.625, fabric: 'berry' },
+    { at: polar(7.75, 70), finishedDiameter: 0.625, fabric: 'berry' },
+  ],
+  curls: [{ points: [polar(8.1, 40), polar(8.4, 44), polar(8.2, 49)] }],
+  colorways: [
+    { name: 'Holly', fabrics: { background: '#f4ecd8', band: '#c9d6b8', 'leaf-dark': '#2f5540', 'leaf-light': '#6f9a6a', stem: '#4a3a2a', berry: '#a3392b' } },
+    { name: 'Frost', fabrics: { background: '#eef2f5', band: '#c8d4de', 'leaf-dark': '#41607a', 'leaf-light': '#8fb0c8', stem: '#5b6670', berry: '#d9dee3' } },
+  ],
+  order: null,
+}
+
+/** Sixths with a centre opening, alternately mirrored: two bands and a split outer area. */
+const lanternMedallion: DesignFile = {
+  format: 'wreathwright-design',
+  version: 1,
+  name: 'Lantern Medallion',
+  units: 'in',
+  ring: { innerRadius: 3, outerRadius: 10, repeats: 6, repeatMode: 'mirror' },
+  seams: [
+    { id: 'inner-band', from: [6, 0], to: polar(6, 60) },
+    { id: 'outer-band', from: [8.5, 0], to: polar(8.5, 60) },
+    { id: 'divide', from: polar(8.5 * cos(30), 30), to: polar(10, 30) },
+  ],
+  fills: [
+    { at: polar(4.5, 30), fabric: 'glow' },
+    { at: polar(7, 30), fabric: 'frame' },
+    { at: polar(9.2, 12), fabric: 'sky' },
+    { at: polar(9.2, 48), fabric: 'sky' },
+  ],
+  leaves: [],
+  stems: [],
+  berries: [],
+  curls: [],
+  colorways: [
+    { name: 'Harvest', fabrics: { glow: '#e9b44c', frame: '#9b2915', sky: '#1d3557' } },
+    { name: 'Sea glass', fabrics: { glow: '#cfe8e3', frame: '#4f8a8b', sky: '#f6f1e7' } },
+  ],
+  order: null,
+}
+
+/** Eighths of a 16 in ring meeting at the centre. */
+const compassRing: DesignFile = {
+  format: 'wreathwright-design',
+  version: 1,
+  name: 'Eightfold Compass Ring',
+  units: 'in',
+  ring: { innerRadius: 0, outerRadius: 8, repeats: 8, repeatMode: 'rotate' },
+  seams: [
+    { id: 'hub', from: [3, 0], to: polar(3, 45) },
+    { id: 'ring', from: [5.5, 0], to: polar(5.5, 45) },
+    { id: 'point', from: polar(5.5 * cos(22.5), 22.5), to: polar(8, 22.5) },
+  ],
+  fills: [
+    { at: polar(1.5, 22.5), fabric: 'hub' },
+    { at: polar(4.2, 22.5), fabric: 'ring' },
+    { at: polar(7, 10), fabric: 'light' },
+    { at: polar(7, 35), fabric: 'dark' },
+  ],
+  leaves: [],
+  stems: [],
+  berries: [],
+  curls: [],
+  colorways: [{ name: 'Indigo', fabrics: { hub: '#f2c14e', ring: '#264653', light: '#f1faee', dark: '#1d3557' } }],
+  order: null,
+}
+
+function emptyRing(name: string, repeats: number, outerRadius: number): DesignFile {
+  return {
+    format: 'wreathwright-design',
+    version: 1,
+    name,
+    units: 'in',
+    ring: { innerRadius: 0, outerRadius, repeats, repeatMode: 'rotate' },
+    seams: [],
+    fills: [],
+    leaves: [],
+    stems: [],
+    berries: [],
+    curls: [],
+    colorways: [{ name: 'Main', fabrics: { background: '#f4ecd8' } }],
+    order: null,
+  }
+}
+
+export const DEMO_PATTERNS: readonly { owner: string; state: PatternState; design: DesignFile }[] = [
+  { owner: 'marguerite@bramblelane.example', state: 'published', design: hollyberryWreath },
+  { owner: 'marguerite@bramblelane.example', state: 'testing', design: lanternMedallion },
+  { owner: 'marguerite@bramblelane.example', state: 'draft', design: emptyRing('Winter Star (sketch)', 6, 10) },
+  { owner: 'tomasz@juniperthread.example', state: 'draft', design: compassRing },
+  {
+    owner: 'tomasz@juniperthread.example',
+    state: 'retired',
+    design: { ...compassRing, name: 'Sunday Ring', ring: { ...compassRing.ring, repeats: 8 } },
+  },
+]
+
+/** Loads the demo people and patterns into the database named by DATABASE_URL; safe to repeat. */
+export async function seedDemoData(): Promise<{ people: number; patterns: number }> {
+  const sequelize = database()
+  const passwordHash = await hashPassword(DEMO_PASSWORD)
+  let people = 0
+  let patterns = 0
+  await sequelize.transaction(async (transaction) => {
+    const owners = new Map<string, User>()
+    for (const person of DEMO_PEOPLE) {
+      const [user, created] = await User.findOrCreate({
+        where: { email: person.email },
+        defaults: { ...person, passwordHash, emailVerifiedAt: new Date(), designerRequestedAt: null },
+        transaction,
+      })
+      if (created) people += 1
+      owners.set(person.email, user)
+    }
+    for (const demo of DEMO_PATTERNS) {
+      const design = designFileSchema.parse(demo.design)
+      const owner = owners.get(demo.owner)!
+      const [pattern, created] = await Pattern.findOrCreate({
+        where: { ownerId: owner.id, name: design.name },
+        defaults: { ownerId: owner.id, name: design.name, state: demo.state, design, revision: 1 },
+        transaction,
+      })
+      if (!created) continue
+      patterns += 1
+      await PatternRevision.create(
+        { patternId: pattern.id, revision: 1, name: pattern.name, state: pattern.state, design, savedById: owner.id },
+        { transaction },
+      )
+    }
+  })
+  return { people, patterns }
+}

@@ -1,0 +1,77 @@
+/**
+ * npm run demo — starts Wreathwright with demo data on http://127.0.0.1:3000.
+ * PostgreSQL runs in a project-local cluster (.data/, or /var/lib/wreathwright when the project sits
+ * under a folder the postgres user cannot enter). Data is kept between runs. Ctrl-C stops everything
+ * this script started.
+ * Settings: WREATHWRIGHT_DB_PORT (default 54329), PORT (default 3000).
+ */
+import path from 'node:path'
+import { fileURLToPath } from 'node:url'
+import { isPortTaken, run, startProcess, stopProcess, waitForHttp } from './processes'
+import { projectClusterFolder, startCluster } from './postgres'
+
+const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..')
+const databasePort = Number(process.env.WREATHWRIGHT_DB_PORT ?? 54329)
+const appPort = Number(process.env.PORT ?? 3000)
+
+if (await isPortTaken(appPort)) {
+  console.error(`demo: something already listens on 127.0.0.1:${appPort}; stop it or set PORT`)
+  process.exit(2)
+}
+
+const clusterWasRunning = await isPortTaken(databasePort)
+const cluster = startCluster(projectClusterFolder(projectRoot, databasePort), databasePort)
+cluster.createDatabase('wreathwright')
+const env = {
+  ...process.env,
+  DATABASE_URL: cluster.url('wreathwright'),
+  NEXT_TELEMETRY_DISABLED: '1',
+  // The demo serves plain http on loopback; a Secure cookie would not be sent back.
+  SESSION_COOKIE_SECURE: 'false',
+}
+process.env.DATABASE_URL = env.DATABASE_URL
+
+let app: ReturnType<typeof startProcess> | undefined
+let stopping = false
+async function stopAll(code: number): Promise<never> {
+  if (!stopping) {
+    stopping = true
+    await stopProcess(app)
+    if (!clusterWasRunning) {
+      try {
+        cluster.stop()
+      } catch (error) {
+        console.error(`demo: could not stop PostgreSQL: ${(error as Error).message}`)
+      }
+    }
+  }
+  process.exit(code)
+}
+process.on('SIGINT', () => void stopAll(0))
+process.on('SIGTERM', () => void stopAll(0))
+
+try {
+  if ((await run('npx', ['tsx', 'scripts/migrate.ts', 'up'], env)) !== 0) throw new Error('migrations failed')
+  const { seedDemoData, DEMO_PEOPLE, DEMO_PASSWORD } = await import('./demo-data')
+  const { closeDatabase } = await import('../lib/db')
+  const loaded = await seedDemoData()
+  await closeDatabase()
+  console.log(`demo: demo data ready (${loaded.people} people and ${loaded.patterns} patterns added this time)`)
+
+  if ((await run('npx', ['next', 'build'], env)) !== 0) throw new Error('next build failed')
+  app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(appPort)], env)
+  app.once('exit', (code) => !stopping && void stopAll(code ?? 1))
+  await waitForHttp(`http://127.0.0.1:${appPort}/api/health`)
+
+  console.log(`
+Wreathwright is running at http://127.0.0.1:${appPort}
+PostgreSQL: 127.0.0.1:${databasePort}, data in ${cluster.folder}
+
+Demo sign-ins (password for all: ${DEMO_PASSWORD}):
+${DEMO_PEOPLE.map((person) => `  ${person.email.padEnd(34)} ${person.note}`).join('\n')}
+
+Press Ctrl-C to stop.`)
+} catch (error) {
+  console.error(`demo: ${(error as Error).message}`)
+  await stopAll(1)
+}

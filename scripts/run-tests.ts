@@ -1,0 +1,105 @@
+/**
+ * npm test — every test, against real services started here and stopped at the end:
+ *   1. a throwaway PostgreSQL cluster in a temporary folder, on a free loopback port;
+ *   2. unit and integration tests (vitest), the integration ones against that database;
+ *   3. the app built and started on a free port with demo data in a second database;
+ *   4. end-to-end tests in headless Debian Chromium (playwright-core) against it.
+ * Exits non-zero if anything failed. Pass vitest filters after `--`, e.g. `npm test -- shelf`.
+ */
+import fs from 'node:fs'
+import os from 'node:os'
+import path from 'node:path'
+import { freePort, run, startProcess, stopProcess, waitForHttp } from './processes'
+import { startCluster, type Cluster } from './postgres'
+
+const filters = process.argv.slice(2)
+const workFolder = fs.mkdtempSync(path.join(os.tmpdir(), 'wreathwright-test-'))
+fs.chmodSync(workFolder, 0o755)
+const reports = path.join(workFolder, 'reports')
+fs.mkdirSync(reports)
+
+let cluster: Cluster | undefined
+let app: ReturnType<typeof startProcess> | undefined
+
+async function cleanUp(): Promise<void> {
+  await stopProcess(app)
+  try {
+    cluster?.stop()
+  } catch (error) {
+    console.error(`tests: could not stop PostgreSQL: ${(error as Error).message}`)
+  }
+  fs.rmSync(workFolder, { recursive: true, force: true })
+}
+for (const signal of ['SIGINT', 'SIGTERM'] as const) {
+  process.on(signal, () => void cleanUp().then(() => process.exit(130)))
+}
+
+/** Counts from vitest's JSON report, so the run can end on one plain "N passed, N failed" line. */
+function readCounts(file: string): { passed: number; failed: number; skipped: number } {
+  if (!fs.existsSync(file)) return { passed: 0, failed: 1, skipped: 0 }
+  const report = JSON.parse(fs.readFileSync(file, 'utf8')) as {
+    numPassedTests: number
+    numFailedTests: number
+    numPendingTests: number
+    numTodoTests: number
+    testResults: { status: string }[]
+  }
+  // A file that failed to load has no failed test but must still count as a failure.
+  const brokenFiles = report.testResults.filter((result) => result.status === 'failed').length
+  return {
+    passed: report.numPassedTests,
+    failed: report.numFailedTests > 0 ? report.numFailedTests : brokenFiles,
+    skipped: report.numPendingTests + report.numTodoTests,
+  }
+}
+
+const vitest = (projects: string[], report: string, env: NodeJS.ProcessEnv) =>
+  run('npx', ['vitest', 'run', ...projects.flatMap((p) => ['--project', p]), '--reporter=default', '--reporter=json',
+    `--outputFile.json=${report}`, ...filters], env)
+
+const failedSteps: string[] = []
+try {
+  const databasePort = await freePort()
+  cluster = startCluster(path.join(workFolder, 'postgres'), databasePort, { throwaway: true })
+  cluster.createDatabase('wreathwright_test')
+  cluster.createDatabase('wreathwright_e2e')
+  const baseEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: '1' }
+
+  console.log('\n== unit and integration tests ==')
+  const testEnv = { ...baseEnv, DATABASE_URL: cluster.url('wreathwright_test'), NODE_ENV: 'test' }
+  if ((await vitest(['unit', 'integration'], path.join(reports, 'unit.json'), testEnv)) !== 0) failedSteps.push('unit/integration')
+
+  console.log('\n== build and start the app for end-to-end tests ==')
+  const e2eEnv = { ...baseEnv, DATABASE_URL: cluster.url('wreathwright_e2e'), SESSION_COOKIE_SECURE: 'false' }
+  const prepared =
+    (await run('npx', ['tsx', 'scripts/migrate.ts', 'up'], e2eEnv)) === 0 &&
+    (await run('npx', ['tsx', 'scripts/seed-demo.ts'], e2eEnv)) === 0 &&
+    (await run('npx', ['next', 'build'], e2eEnv)) === 0
+  if (!prepared) {
+    failedSteps.push('app build')
+  } else {
+    const appPort = await freePort()
+    app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(appPort)], e2eEnv, { quiet: true })
+    await waitForHttp(`http://127.0.0.1:${appPort}/api/health`)
+    console.log('\n== end-to-end tests (headless Chromium) ==')
+    const browserEnv = { ...e2eEnv, E2E_BASE_URL: `http://127.0.0.1:${appPort}` }
+    if ((await vitest(['e2e'], path.join(reports, 'e2e.json'), browserEnv)) !== 0) failedSteps.push('e2e')
+  }
+} catch (error) {
+  console.error(`tests: ${(error as Error).message}`)
+  failedSteps.push('setup')
+}
+
+const counts = [path.join(reports, 'unit.json'), path.join(reports, 'e2e.json')]
+  .filter((file) => fs.existsSync(file))
+  .map(readCounts)
+  .reduce((sum, c) => ({ passed: sum.passed + c.passed, failed: sum.failed + c.failed, skipped: sum.skipped + c.skipped }), {
+    passed: 0,
+    failed: 0,
+    skipped: 0,
+  })
+await cleanUp()
+if (failedSteps.length > 0) console.error(`\ntests: failed steps: ${failedSteps.join(', ')}`)
+const failed = counts.failed || (failedSteps.length > 0 ? 1 : 0)
+console.log(`\n${counts.passed} passed, ${failed} failed${counts.skipped ? `, ${counts.skipped} skipped` : ''}`)
+process.exit(failedSteps.length > 0 ? 1 : 0)
