@@ -39,3 +39,9 @@ export const ROUNDING_SLACK_INCHES = 1e-6
  * broken by a deterministic rule so the same area always gets the same rectangle. Square inches.
  */
 export const RECTANGLE_AREA_TIE_SQ_IN = 1e-9
+
+/**
+ * A plan polygon's corner within this of one of the ring's circles lies on it (outlineFromPolygon).
+ * Inches; the plan rounds coordinates to 6 decimals (5e-7 in), twenty times less than this.
+ */
+export const ON_CIRCLE_INCHES = 1e-5
