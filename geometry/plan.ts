@@ -1,0 +1,220 @@
+/**
+ * The sewing plan of a design, exactly as geometry.md defines it: areas with labels, the
+ * segment each is sewn along, the leaves to baste before it and its rough-cut rectangle; the
+ * sections and their join tree; how the ring's repeats are joined; and every problem. The plan
+ * is data: computing it never changes the design and never throws for a bad design.
+ */
+import { buildArrangement, type Arrangement } from './arrangement'
+import { buildTopology, type Topology } from './area-topology'
+import { fewestSections, type SectionTree } from './fewest-sections'
+import { checkHandSetOrder } from './hand-set-order'
+import { insertConstraints } from './inserts'
+import { ringAssembly, type RingAssembly } from './ring-assembly'
+import { roughCutPiece, type RoughCut } from './rough-cut'
+import { checkSectionOrder, createPeelSearch, type InsertConstraint } from './sewing-order'
+import { noPlanProblem, setInSeamProblems } from './sewing-problems'
+import { OUTPUT_DECIMALS } from './tolerances'
+import type { Design, JoinTree, Point, Polygon, Problem, Segment } from './types'
+
+export interface PlanArea {
+  readonly id: string
+  readonly label: string | null
+  readonly section: string | null
+  readonly step: number | null
+  readonly point: Point
+  readonly polygon: Polygon
+  readonly areaSqIn: number
+  readonly sewnAlong: Segment | null
+  readonly leavesBefore: readonly string[]
+  readonly roughCut: RoughCut
+}
+
+export interface PlanSection {
+  readonly label: string
+  /** Area ids in sewing order. */
+  readonly order: readonly string[]
+}
+
+export interface Plan {
+  readonly sewable: boolean
+  readonly areas: readonly PlanArea[]
+  readonly sections: readonly PlanSection[]
+  /** The join tree of section labels; empty when there is no plan. */
+  readonly assembly: JoinTree | readonly []
+  readonly ringAssembly: RingAssembly
+  readonly problems: readonly Problem[]
+}
+
+export interface PlanOptions {
+  /** Default 1/4 in (common practice). */
+  readonly seamAllowanceInches?: number
+  /** Extra fabric around each rough cut; default 1/4 in. */
+  readonly marginInches?: number
+}
+
+/** One section as the plan numbers it: its label and its areas (arrangement indices) in order. */
+export interface LabelledSection {
+  readonly label: string
+  readonly order: readonly number[]
+}
+
+/**
+ * Section letters in order: A … Z, then AA, AB, …
+ *
+ * @example sectionLetter(0) // 'A'; sectionLetter(26) // 'AA'
+ */
+export function sectionLetter(index: number): string {
+  let letters = ''
+  let rest = index
+  do {
+    letters = String.fromCharCode(65 + (rest % 26)) + letters
+    rest = Math.floor(rest / 26) - 1
+  } while (rest >= 0)
+  return letters
+}
+
+function labelTree(tree: SectionTree, sections: LabelledSection[]): JoinTree {
+  if (tree.kind === 'section') {
+    const label = sectionLetter(sections.length)
+    sections.push({ label, order: tree.order })
+    return label
+  }
+  const first = labelTree(tree.first, sections)
+  const second = labelTree(tree.second, sections)
+  return [first, second]
+}
+
+/** Proposes the plan with the fewest sections, or explains why there is none. */
+function propose(topology: Topology, arrangement: Arrangement, constraints: readonly InsertConstraint[]): { sections: LabelledSection[]; assembly: JoinTree | null; problems: Problem[] } {
+  const result = fewestSections(topology, constraints)
+  const problems: Problem[] = []
+  if (result.tree) {
+    const sections: LabelledSection[] = []
+    const assembly = labelTree(result.tree, sections)
+    if (result.gaveUp) {
+      problems.push({
+        code: 'search-limit',
+        severity: 'warning',
+        message: `This design is too large to prove that ${result.sectionCount} sections is the fewest; the plan is valid but may not be the smallest.`,
+        at: arrangement.areas[0]?.point ?? [0, 0],
+      })
+    }
+    return { sections, assembly, problems }
+  }
+  const points = arrangement.areas.map((area) => area.point)
+  if (result.gaveUp) {
+    problems.push({ code: 'search-gave-up', severity: 'error', message: 'This design is too large for the sewing-plan search to finish; split it with more straight seams.', at: points[0] ?? [0, 0] })
+  } else if (constraints.length > 0 && fewestSections(topology, []).tree) {
+    problems.push(insertConflict(topology, constraints))
+  } else {
+    problems.push(noPlanProblem(topology, createPeelSearch(topology, []), points))
+  }
+  return { sections: [], assembly: null, problems }
+}
+
+/** Names a smallest set of leaves that together leave no plan (deletion filter). */
+function insertConflict(topology: Topology, constraints: readonly InsertConstraint[]): Problem {
+  let conflicting = [...constraints]
+  // Each trial is a full search; the cap keeps a design with many leaves fast.
+  if (constraints.length <= 12) {
+    for (const constraint of constraints) {
+      const trial = conflicting.filter((c) => c !== constraint)
+      if (!fewestSections(topology, trial).tree) conflicting = trial
+    }
+  }
+  const ids = [...new Set(conflicting.map((c) => c.leafId))].sort()
+  const names = ids.length === 1 ? `Leaf ${ids[0]}` : `Leaves ${ids.slice(0, -1).join(', ')} and ${ids[ids.length - 1]}`
+  return {
+    code: 'insert-conflict',
+    severity: 'error',
+    message: `${names} cannot all be caught: no sewing order sews each leaf's area before the area sewn over it, and no straight join between sections catches them instead.`,
+    at: (conflicting[0] ?? constraints[0])?.at ?? [0, 0],
+  }
+}
+
+const round = (value: number): number => {
+  const scale = 10 ** OUTPUT_DECIMALS
+  const rounded = Math.round(value * scale) / scale
+  return rounded === 0 ? 0 : rounded
+}
+const roundPoint = (p: Point): Point => [round(p[0]), round(p[1])]
+
+function severityRank(problem: Problem): number {
+  return problem.severity === 'error' ? 0 : 1
+}
+
+/**
+ * The full sewing plan of a design (in inches, as `parseDesign` returns it).
+ *
+ * @example
+ * const plan = planDesign(design)
+ * plan.sewable // false when a problem of severity 'error' stands
+ */
+export function planDesign(design: Design, options: PlanOptions = {}): Plan {
+  const arrangement = buildArrangement(design.ring, design.seams)
+  const topology = buildTopology(arrangement)
+  const problems: Problem[] = [...arrangement.problems]
+  const ring = ringAssembly(design.ring)
+  problems.push(...ring.problems)
+  const inserts = insertConstraints(arrangement, topology, design.leaves)
+  problems.push(...inserts.problems)
+  problems.push(...setInSeamProblems(topology))
+  const blocked = problems.some((problem) => problem.severity === 'error')
+  let sections: LabelledSection[] = []
+  let assembly: JoinTree | null = null
+  if (design.order) {
+    const checked = checkHandSetOrder(topology, arrangement, design.order, inserts.constraints)
+    sections = checked.sections
+    assembly = checked.assembly
+    problems.push(...checked.problems)
+  } else if (!blocked && arrangement.areas.length > 0) {
+    const proposed = propose(topology, arrangement, inserts.constraints)
+    sections = proposed.sections
+    assembly = proposed.assembly
+    problems.push(...proposed.problems)
+  }
+  const sewable = !problems.some((problem) => problem.severity === 'error') && sections.length > 0
+  const placed = new Map<number, { section: string; step: number; sewnAlong: Segment | null; leavesBefore: string[] }>()
+  for (const section of sections) {
+    const { steps } = checkSectionOrder(topology, section.order, inserts.constraints, section.label)
+    const inSection = new Set(section.order)
+    steps.forEach((step, index) => {
+      const leavesBefore = inserts.constraints
+        .filter((c) => c.under === step.area && inSection.has(c.over) && section.order.indexOf(c.over) < index)
+        .map((c) => c.leafId)
+        .sort()
+      placed.set(step.area, { section: section.label, step: index + 1, sewnAlong: step.sewnAlong, leavesBefore })
+    })
+  }
+  const ordered = [...sections.flatMap((section) => section.order), ...arrangement.areas.map((area) => area.index).filter((index) => !placed.has(index))]
+  const roughCutOptions = { seamAllowanceInches: options.seamAllowanceInches, marginInches: options.marginInches }
+  const areas: PlanArea[] = ordered.map((index) => {
+    const area = arrangement.areas[index]!
+    const place = placed.get(index)
+    const sewnAlong = place?.sewnAlong ?? null
+    const cut = roughCutPiece(area.polygon, sewnAlong, roughCutOptions)
+    return {
+      id: area.id,
+      label: place ? `${place.section}${place.step}` : null,
+      section: place?.section ?? null,
+      step: place?.step ?? null,
+      point: roundPoint(area.point),
+      polygon: area.polygon.map(roundPoint),
+      areaSqIn: round(area.areaSqIn),
+      sewnAlong: sewnAlong ? [roundPoint(sewnAlong[0]), roundPoint(sewnAlong[1])] : null,
+      leavesBefore: place?.leavesBefore ?? [],
+      roughCut: { widthIn: round(cut.widthIn), heightIn: round(cut.heightIn), corners: cut.corners.map(roundPoint) },
+    }
+  })
+  const sortedProblems = problems
+    .map((problem) => ({ ...problem, at: roundPoint(problem.at) }))
+    .sort((p, q) => severityRank(p) - severityRank(q) || (p.code < q.code ? -1 : p.code > q.code ? 1 : 0) || p.at[0] - q.at[0] || p.at[1] - q.at[1])
+  return {
+    sewable,
+    areas,
+    sections: sections.map((section) => ({ label: section.label, order: section.order.map((index) => arrangement.areas[index]!.id) })),
+    assembly: assembly ?? [],
+    ringAssembly: ring.assembly,
+    problems: sortedProblems,
+  }
+}

@@ -1,0 +1,224 @@
+/**
+ * Snapping seam ends, the first step of the arrangement. A hand-drawn end that stops just short
+ * of the outline or of another seam leaves an area unclosed, so ends within the snap distance
+ * are moved onto what they nearly touch. Every rule below looks at all ends at once and breaks
+ * ties by coordinates, never by list position, so the order in which seams are listed cannot
+ * change the result.
+ */
+import { comparePoints, distance, nearestOnSegment } from './polygon-measure'
+import { SNAP_DISTANCE_INCHES } from './tolerances'
+import type { Point, Polygon, Seam } from './types'
+
+/** How a seam end was attached after snapping. */
+export type EndAttachment = 'outline' | 'seam-end' | 'seam' | 'free'
+
+export interface SnappedSeam {
+  readonly seam: Seam
+  readonly attachments: readonly [EndAttachment, EndAttachment]
+}
+
+interface End {
+  point: Point
+  attachment: EndAttachment
+  /** For an end snapped onto another seam's middle: that seam's index, to re-project. */
+  target: number
+}
+
+/**
+ * Snaps seam ends onto the outline (its corners first), onto each other, then onto the nearest
+ * seam (a crossing of two seams first). Returns the seams in the input order with moved ends.
+ *
+ * @example snapSeamEnds(outline, [{ id: 's1', from: [0.004, 1], to: [3, 2.999] }])
+ */
+export function snapSeamEnds(outline: Polygon, seams: readonly Seam[]): SnappedSeam[] {
+  const ends: End[] = []
+  for (const seam of seams) {
+    ends.push(snapToOutline(seam.from, seam.to, outline), snapToOutline(seam.to, seam.from, outline))
+  }
+  clusterEnds(ends)
+  snapToSeams(ends, seams.length)
+  return seams.map((seam, index) => {
+    const from = ends[2 * index] as End
+    const to = ends[2 * index + 1] as End
+    return { seam: { id: seam.id, from: from.point, to: to.point }, attachments: [from.attachment, to.attachment] }
+  })
+}
+
+/**
+ * Where the seam's own line (through `point`, coming from `other`) meets segment a–b, if within
+ * the segment: snapping along the seam keeps its direction, so a seam drawn at 90° stays at 90°
+ * and two seams drawn in line stay in line. Null when parallel or outside the segment.
+ */
+function alongSeam(point: Point, other: Point, a: Point, b: Point): Point | null {
+  const rx = point[0] - other[0]
+  const ry = point[1] - other[1]
+  const sx = b[0] - a[0]
+  const sy = b[1] - a[1]
+  const denominator = rx * sy - ry * sx
+  if (denominator === 0) return null
+  const u = ((a[0] - other[0]) * ry - (a[1] - other[1]) * rx) / denominator
+  if (u < 0 || u > 1) return null
+  return [a[0] + u * sx, a[1] + u * sy]
+}
+
+/** The point of a–b a seam end snaps to: along the seam's line when that is near, else the nearest. */
+function snapOnto(point: Point, other: Point, a: Point, b: Point): Point {
+  const along = alongSeam(point, other, a, b)
+  if (along && distance(along, point) <= SNAP_DISTANCE_INCHES) return along
+  return nearestOnSegment(point, a, b).point
+}
+
+function snapToOutline(point: Point, other: Point, outline: Polygon): End {
+  let nearestCorner: Point | null = null
+  let cornerDistance = SNAP_DISTANCE_INCHES
+  for (const corner of outline) {
+    const d = distance(point, corner)
+    if (d <= cornerDistance) {
+      nearestCorner = corner
+      cornerDistance = d
+    }
+  }
+  if (nearestCorner) return { point: nearestCorner, attachment: 'outline', target: -1 }
+  let nearest: Point | null = null
+  let nearestDistance = SNAP_DISTANCE_INCHES
+  for (let i = 0; i < outline.length; i += 1) {
+    const a = outline[i] as Point
+    const b = outline[(i + 1) % outline.length] as Point
+    if (distance(point, nearestOnSegment(point, a, b).point) > SNAP_DISTANCE_INCHES) continue
+    const candidate = snapOnto(point, other, a, b)
+    const d = distance(point, candidate)
+    if (d <= nearestDistance) {
+      nearest = candidate
+      nearestDistance = d
+    }
+  }
+  return nearest ? { point: nearest, attachment: 'outline', target: -1 } : { point, attachment: 'free', target: -1 }
+}
+
+/** Ends within the snap distance of each other become one point: an outline end if any, else the lowest. */
+function clusterEnds(ends: End[]): void {
+  const parent = ends.map((_, index) => index)
+  const find = (i: number): number => {
+    while (parent[i] !== i) {
+      parent[i] = parent[parent[i] as number] as number
+      i = parent[i] as number
+    }
+    return i
+  }
+  // Sorting by x lets the sweep stop early; the clusters do not depend on the order found.
+  const byX = ends.map((_, index) => index).sort((a, b) => comparePoints((ends[a] as End).point, (ends[b] as End).point))
+  for (let i = 0; i < byX.length; i += 1) {
+    const a = ends[byX[i] as number] as End
+    for (let j = i + 1; j < byX.length; j += 1) {
+      const b = ends[byX[j] as number] as End
+      if (b.point[0] - a.point[0] > SNAP_DISTANCE_INCHES) break
+      if (distance(a.point, b.point) <= SNAP_DISTANCE_INCHES) parent[find(byX[i] as number)] = find(byX[j] as number)
+    }
+  }
+  const clusters = new Map<number, number[]>()
+  ends.forEach((_, index) => {
+    const root = find(index)
+    const members = clusters.get(root) ?? []
+    members.push(index)
+    clusters.set(root, members)
+  })
+  for (const members of clusters.values()) {
+    if (members.length < 2) continue
+    const onOutline = members.filter((i) => (ends[i] as End).attachment === 'outline')
+    const pool = onOutline.length > 0 ? onOutline : members
+    const chosen = pool.map((i) => (ends[i] as End).point).sort(comparePoints)[0] as Point
+    for (const i of members) {
+      const end = ends[i] as End
+      end.point = chosen
+      if (end.attachment !== 'outline') end.attachment = onOutline.length > 0 ? 'outline' : 'seam-end'
+    }
+  }
+}
+
+function crossing(a: readonly [Point, Point], b: readonly [Point, Point]): Point | null {
+  const [p, p2] = a
+  const [q, q2] = b
+  const rx = p2[0] - p[0]
+  const ry = p2[1] - p[1]
+  const sx = q2[0] - q[0]
+  const sy = q2[1] - q[1]
+  const denominator = rx * sy - ry * sx
+  if (denominator === 0) return null
+  const t = ((q[0] - p[0]) * sy - (q[1] - p[1]) * sx) / denominator
+  const u = ((q[0] - p[0]) * ry - (q[1] - p[1]) * rx) / denominator
+  if (t < 0 || t > 1 || u < 0 || u > 1) return null
+  return [p[0] + t * rx, p[1] + t * ry]
+}
+
+/**
+ * Free ends go to the nearest crossing of two other seams, else the nearest point of a seam.
+ * Ends already clustered together (two seams meeting at a point) move as one, so a junction
+ * drawn just off a seam lands on it whole.
+ */
+function snapToSeams(ends: End[], seamCount: number): void {
+  const groups = new Map<string, number[]>()
+  ends.forEach((end, index) => {
+    if (end.attachment !== 'free' && end.attachment !== 'seam-end') return
+    const key = `${end.point[0]},${end.point[1]}`
+    const members = groups.get(key) ?? []
+    members.push(index)
+    groups.set(key, members)
+  })
+  if (groups.size === 0) return
+  const frozen = ends.map((end) => end.point)
+  const frozenSegment = (seam: number): readonly [Point, Point] => [frozen[2 * seam] as Point, frozen[2 * seam + 1] as Point]
+  for (const members of groups.values()) {
+    const point = (ends[members[0] as number] as End).point
+    const own = new Set(members.map((index) => Math.floor(index / 2)))
+    const near: number[] = []
+    for (let seam = 0; seam < seamCount; seam += 1) {
+      if (own.has(seam)) continue
+      const [a, b] = frozenSegment(seam)
+      if (distance(point, nearestOnSegment(point, a, b).point) <= SNAP_DISTANCE_INCHES) near.push(seam)
+    }
+    let best: { point: Point; distance: number; target: number } | null = null
+    const consider = (candidate: Point, target: number): void => {
+      const d = distance(point, candidate)
+      if (d > SNAP_DISTANCE_INCHES) return
+      if (!best || d < best.distance || (d === best.distance && comparePoints(candidate, best.point) < 0)) best = { point: candidate, distance: d, target }
+    }
+    for (let i = 0; i < near.length; i += 1) {
+      for (let j = i + 1; j < near.length; j += 1) {
+        const candidate = crossing(frozenSegment(near[i] as number), frozenSegment(near[j] as number))
+        if (candidate) consider(candidate, -1)
+      }
+    }
+    // A single end keeps its seam's direction; a junction of several ends cannot, so it projects.
+    const single = members.length === 1 ? (members[0] as number) : -1
+    const otherEnd = single >= 0 ? (frozen[single ^ 1] as Point) : null
+    if (!best) {
+      for (const seam of near) {
+        const [a, b] = frozenSegment(seam)
+        consider(otherEnd ? snapOnto(point, otherEnd, a, b) : nearestOnSegment(point, a, b).point, seam)
+      }
+    }
+    const chosen = best as { point: Point; distance: number; target: number } | null
+    for (const index of members) {
+      const end = ends[index] as End
+      if (chosen) {
+        end.point = chosen.point
+        end.attachment = 'seam'
+        end.target = chosen.target
+      } else {
+        end.attachment = members.length > 1 ? 'seam-end' : 'free'
+      }
+    }
+  }
+  // Two ends snapped onto each other's seams both moved; re-project a few times (all at once,
+  // from the previous positions) so each lies on its target seam as it finally stands.
+  for (let round = 0; round < 4; round += 1) {
+    const previous = ends.map((end) => end.point)
+    ends.forEach((end, index) => {
+      if (end.target < 0) return
+      const a = previous[2 * end.target] as Point
+      const b = previous[2 * end.target + 1] as Point
+      const junction = ends.some((other, j) => j !== index && other.target === end.target && other.point[0] === end.point[0] && other.point[1] === end.point[1])
+      end.point = junction ? nearestOnSegment(end.point, a, b).point : snapOnto(end.point, previous[index ^ 1] as Point, a, b)
+    })
+  }
+}

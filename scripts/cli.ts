@@ -1,0 +1,69 @@
+/**
+ * The command line: `npm run -s cli -- plan <design.json>` prints the sewing plan as JSON.
+ *
+ * Exit 0 with a plan even when the design cannot be sewn (the plan says why); exit 2 with one
+ * line on stderr when the input is not a valid design; never a stack trace (geometry.md,
+ * "Command-line contract").
+ */
+import { readFileSync } from 'node:fs'
+import { planDesign } from '../geometry/plan'
+import { formatDesignIssue, parseDesign } from '../lib/schemas/design'
+
+/** An error meant for the user: printed as one line, exit 2. */
+class UsageError extends Error {}
+
+function oneLine(text: string): string {
+  return text.replace(/\s+/g, ' ').trim()
+}
+
+function readDesign(path: string | undefined): ReturnType<typeof parseDesign> & { ok: true } {
+  if (!path) throw new UsageError('usage: cli plan <design.json>')
+  let text: string
+  try {
+    text = readFileSync(path, 'utf8')
+  } catch {
+    throw new UsageError(`cannot read ${path}`)
+  }
+  let json: unknown
+  try {
+    json = JSON.parse(text)
+  } catch (error) {
+    throw new UsageError(`${path} is not valid JSON: ${error instanceof Error ? error.message : String(error)}`)
+  }
+  const result = parseDesign(json)
+  if (!result.ok) {
+    const first = result.issues[0]
+    const more = result.issues.length > 1 ? ` (and ${result.issues.length - 1} more)` : ''
+    throw new UsageError(`${path} is not a valid design: ${first ? formatDesignIssue(first) : 'unknown problem'}${more}`)
+  }
+  return result
+}
+
+function plan(args: readonly string[]): number {
+  const { design } = readDesign(args[0])
+  process.stdout.write(`${JSON.stringify(planDesign(design), null, 2)}\n`)
+  return 0
+}
+
+/** Added by a later issue: the PDF booklet. */
+function pdf(): number {
+  throw new UsageError('pdf: not available yet')
+}
+
+const commands: Record<string, (args: readonly string[]) => number> = { plan, pdf }
+
+function main(argv: readonly string[]): number {
+  const [name, ...args] = argv
+  const command = name ? commands[name] : undefined
+  if (!command) throw new UsageError(`usage: cli <${Object.keys(commands).join('|')}> <design.json> …`)
+  return command(args)
+}
+
+try {
+  process.exitCode = main(process.argv.slice(2))
+} catch (error) {
+  // Anything unexpected is still one line: a stack trace is no message for a designer.
+  const message = error instanceof UsageError ? error.message : `internal error: ${error instanceof Error ? error.message : String(error)}`
+  process.stderr.write(`${oneLine(message)}\n`)
+  process.exitCode = 2
+}
