@@ -1,0 +1,225 @@
+/**
+ * Leaf inserts: the template a maker cuts a leaf from, and where a leaf lies on the design.
+ *
+ * What the leaf is (our assumption, stated plainly): a pointed leaf whose finished shape is a
+ * pointed arch, like a prairie point with curved sides. It is widest at its open end, where it is
+ * caught in a seam with its raw edge 1/4 in past the seam line (common practice for inserts),
+ * and its two sides are circular arcs that leave the open end square to it and meet at the tip.
+ * It is made either from two pieces sewn right sides together along the sides and turned (the
+ * sew line below is that seam), or folded and pressed to the same outline; either way the
+ * template is the flat shape of the finished leaf:
+ * - sew line: the finished outline, from the raw edge up one side, round the tip, down the other
+ *   side to the raw edge (open at that end);
+ * - cut line: the sew line 1/8 in outside (a setting; 1/8 in is common practice for small turned
+ *   pieces), closed across the open end by the raw edge;
+ * - seam line: where the piecing seam stitches across the leaf, `catch` (1/4 in) inside the raw
+ *   edge; the part beyond it is hidden in the seam allowance.
+ *
+ * Template frame: the seam line on the x axis, the leaf pointing up (+y), the raw edge at
+ * y = −catch; inches. Sides: each arc's centre lies on the seam line, on the far side of the axis,
+ * at the radius R = (W²/4 + L²)/W that takes it from the open end's corner (±W/2, 0) to the tip
+ * (0, L) (a chord of a circle through both, centred on the x axis). A point needs L > W/2.
+ */
+import { DEFAULT_MITRE_LIMIT } from './offset'
+import { pathToPolygon, type ArcPathSegment, type OutlinePath, type PathSegment } from './trim-line'
+import type { Leaf, Point, Polygon, Seam, Segment } from './types'
+
+/** Cut line outside the sew line, inches (common practice for small turned pieces; a setting). */
+export const DEFAULT_LEAF_CUT_ALLOWANCE_INCHES = 1 / 8
+/** Raw edge past the seam line, inches (common practice for inserts, references.md). */
+export const DEFAULT_LEAF_CATCH_INCHES = 1 / 4
+
+export interface LeafTemplateOptions {
+  /** Default 1/8 in. */
+  readonly cutAllowanceInches?: number
+  /** Default 1/4 in. */
+  readonly catchInches?: number
+  /** Multiples of the cut allowance; a tip sharper than this is cut square. Default 2. */
+  readonly mitreLimit?: number
+}
+
+export interface LeafTemplate {
+  readonly lengthIn: number
+  readonly widthIn: number
+  /** Open path: raw edge → right side → tip → left side → raw edge. */
+  readonly sewLine: readonly PathSegment[]
+  /** Closed, counter-clockwise; its first segment is the raw edge. */
+  readonly cutLine: OutlinePath
+  /** The open end: the raw edge caught in the seam. */
+  readonly rawEdge: Segment
+  /** Where the piecing seam crosses the leaf, between the cut line's sides. */
+  readonly seamLine: Segment
+  /** The visible leaf (seam line to tip) as chords. */
+  readonly finishedOutline: Polygon
+  /** The cut line as chords. */
+  readonly cutPolygon: Polygon
+}
+
+/**
+ * True when a leaf of this length and width has a point (L > W/2); at L = W/2 it is a half disc.
+ *
+ * @example isPointedLeaf(1.5, 0.75) // true
+ */
+export const isPointedLeaf = (length: number, width: number): boolean =>
+  width > 0 && Number.isFinite(length) && length > width / 2
+
+/** Radius of the side arcs: the circle centred on the seam line through (W/2, 0) and (0, L). */
+const sideRadius = (length: number, width: number): number => (width * width / 4 + length * length) / width
+
+/** The two side arcs grown by `grow` (0 for the sew line), from the right corner to the tip and on. */
+function sideArcs(length: number, width: number, grow: number): [ArcPathSegment, ArcPathSegment] {
+  const radius = sideRadius(length, width)
+  const offCentre = radius - width / 2
+  const tipAngle = Math.atan2(length, offCentre)
+  return [
+    { kind: 'arc', center: [-offCentre, 0], radius: radius + grow, startAngle: 0, endAngle: tipAngle, anticlockwise: true },
+    { kind: 'arc', center: [offCentre, 0], radius: radius + grow, startAngle: Math.PI - tipAngle, endAngle: Math.PI, anticlockwise: true },
+  ]
+}
+
+/**
+ * The template of a leaf of finished `length` (seam line to tip) and `width` (at the open end),
+ * in the template frame (see the file comment).
+ *
+ * @example
+ * leafTemplate(1.5, 0.75).rawEdge // [[-0.5, -0.25], [0.5, -0.25]]: 0.75 + 2 × 1/8 wide, 1/4 in past the seam
+ */
+export function leafTemplate(length: number, width: number, options: LeafTemplateOptions = {}): LeafTemplate {
+  const cut = options.cutAllowanceInches ?? DEFAULT_LEAF_CUT_ALLOWANCE_INCHES
+  const catchDepth = options.catchInches ?? DEFAULT_LEAF_CATCH_INCHES
+  const mitreLimit = options.mitreLimit ?? DEFAULT_MITRE_LIMIT
+  if (!isPointedLeaf(length, width)) throw new RangeError(`a pointed leaf needs length > width / 2, got ${length} × ${width}`)
+  if (!(cut >= 0) || !(catchDepth >= 0)) throw new RangeError('cut allowance and catch must be lengths ≥ 0')
+  const half = width / 2
+  const [right, left] = sideArcs(length, width, 0)
+  const sewLine: PathSegment[] = [
+    { kind: 'line', from: [half, -catchDepth], to: [half, 0] },
+    right,
+    left,
+    { kind: 'line', from: [-half, 0], to: [-half, -catchDepth] },
+  ]
+  const outer = half + cut
+  const [grownRight, grownLeft] = sideArcs(length, width, cut)
+  // The grown arcs meet on the axis; a tip sharper than the limit is cut square, one allowance out.
+  const offCentre = sideRadius(length, width) - half
+  const meetingHeight = Math.sqrt(grownRight.radius ** 2 - offCentre ** 2)
+  const tipSegments: PathSegment[] = []
+  let rightEnd = grownRight.endAngle
+  let leftStart = grownLeft.startAngle
+  if (meetingHeight - length > mitreLimit * cut) {
+    const cutHeight = length + cut
+    const across = Math.sqrt(grownRight.radius ** 2 - cutHeight ** 2) - offCentre
+    rightEnd = Math.atan2(cutHeight, across + offCentre)
+    leftStart = Math.PI - rightEnd
+    tipSegments.push({ kind: 'line', from: [across, cutHeight], to: [-across, cutHeight] })
+  } else {
+    rightEnd = Math.atan2(meetingHeight, offCentre)
+    leftStart = Math.PI - rightEnd
+  }
+  const rawEdge: Segment = [[-outer, -catchDepth], [outer, -catchDepth]]
+  const cutLine: PathSegment[] = [
+    { kind: 'line', from: rawEdge[0], to: rawEdge[1] },
+    { kind: 'line', from: [outer, -catchDepth], to: [outer, 0] },
+    { ...grownRight, endAngle: rightEnd },
+    ...tipSegments,
+    { ...grownLeft, startAngle: leftStart },
+    { kind: 'line', from: [-outer, 0], to: [-outer, -catchDepth] },
+  ]
+  return {
+    lengthIn: length,
+    widthIn: width,
+    sewLine,
+    cutLine,
+    rawEdge,
+    seamLine: [[-outer, 0], [outer, 0]],
+    finishedOutline: pathToPolygon([right, left, { kind: 'line', from: [-half, 0], to: [half, 0] }]),
+    cutPolygon: pathToPolygon(cutLine),
+  }
+}
+
+export interface LeafPlacement {
+  /** Where the open end's middle sits on the seam. */
+  readonly base: Point
+  /** The leaf's tip. */
+  readonly tip: Point
+  /** The visible leaf as it lies on the design, counter-clockwise, as chords. */
+  readonly finishedOutline: Polygon
+  /** The raw edge, `catch` past the seam line on the far side, parallel to the seam, between the sides. */
+  readonly rawEdge: Segment
+}
+
+type Vector = readonly [number, number]
+const add = (a: Vector, b: Vector): Point => [a[0] + b[0], a[1] + b[1]]
+const scale = (a: Vector, factor: number): Point => [a[0] * factor, a[1] * factor]
+const cross = (a: Vector, b: Vector): number => a[0] * b[1] - a[1] * b[0]
+
+/** Keeps the part of a polygon on the non-negative side of `side(p)` (one Sutherland–Hodgman pass). */
+function clipToSide(polygon: Polygon, side: (p: Point) => number): Point[] {
+  const kept: Point[] = []
+  polygon.forEach((current, i) => {
+    const next = polygon[(i + 1) % polygon.length]!
+    const here = side(current)
+    const there = side(next)
+    if (here >= 0) kept.push(current)
+    if ((here >= 0) !== (there >= 0)) {
+      const t = here / (here - there)
+      kept.push([current[0] + (next[0] - current[0]) * t, current[1] + (next[1] - current[1]) * t])
+    }
+  })
+  return kept
+}
+
+/**
+ * Where a leaf lies on the design, in repeat 0's frame: its open end at `at` along the seam
+ * (from → to), over the seam's `side`, its axis turned `angle` degrees counter-clockwise from the
+ * seam's normal on that side. The visible outline stops at the seam line: a tilted leaf's open end
+ * still runs along the seam (the maker lays the raw edge along it), so the part of the tilted
+ * shape beyond the seam is hidden and the gap on the other side is filled by the straight sides.
+ *
+ * @example
+ * placeLeaf({ id: 'l1', seam: 's1', at: 0.5, side: 'left', angle: 0, length: 1.5, width: 0.75, layers: [] },
+ *   { id: 's1', from: [0, 0], to: [4, 0] })
+ * // base [2, 0], tip [2, 1.5], raw edge from (1.625, −0.25) to (2.375, −0.25)
+ */
+export function placeLeaf(leaf: Leaf, seam: Seam, options: Pick<LeafTemplateOptions, 'catchInches'> = {}): LeafPlacement {
+  const catchDepth = options.catchInches ?? DEFAULT_LEAF_CATCH_INCHES
+  if (!isPointedLeaf(leaf.length, leaf.width)) throw new RangeError(`leaf ${leaf.id}: a pointed leaf needs length > width / 2`)
+  const seamVector: Point = [seam.to[0] - seam.from[0], seam.to[1] - seam.from[1]]
+  const seamLength = Math.hypot(seamVector[0], seamVector[1])
+  if (!(seamLength > 0)) throw new RangeError(`leaf ${leaf.id}: its seam ${seam.id} has no length`)
+  const along = scale(seamVector, 1 / seamLength)
+  const normal: Point = leaf.side === 'left' ? [-along[1], along[0]] : [along[1], -along[0]]
+  const tilt = (leaf.angle * Math.PI) / 180
+  const axis: Point = [normal[0] * Math.cos(tilt) - normal[1] * Math.sin(tilt), normal[0] * Math.sin(tilt) + normal[1] * Math.cos(tilt)]
+  const across: Point = [axis[1], -axis[0]]
+  const base = add(seam.from, scale(seamVector, leaf.at))
+  const toDesign = (p: Point): Point => add(base, add(scale(across, p[0]), scale(axis, p[1])))
+  // Signed distance from the seam line, positive on the leaf's side.
+  const fromSeam = (p: Point): number => {
+    const value = cross(along, [p[0] - base[0], p[1] - base[1]])
+    return leaf.side === 'left' ? value : -value
+  }
+  const half = leaf.width / 2
+  // Straight sides long enough to reach past the raw-edge line at any tilt up to ±75°.
+  const reach = half * Math.abs(Math.tan(tilt)) + catchDepth + leaf.width
+  const [right, left] = sideArcs(leaf.length, leaf.width, 0)
+  const extended = pathToPolygon([
+    { kind: 'line', from: [half, -reach], to: [half, 0] }, right, left,
+    { kind: 'line', from: [-half, 0], to: [-half, -reach] }, { kind: 'line', from: [-half, -reach], to: [half, -reach] },
+  ]).map(toDesign)
+  // The leaf frame (across, axis) is right-handed, so the outline stays counter-clockwise.
+  const finishedOutline = clipToSide(extended, fromSeam)
+  // The raw edge: where the straight sides cross the line `catch` past the seam.
+  const sideCrossing = (x: number): Point => {
+    const start = toDesign([x, 0])
+    const height = fromSeam(start)
+    const risePerInch = fromSeam(add(start, axis)) - height
+    return add(start, scale(axis, -(height + catchDepth) / risePerInch))
+  }
+  return {
+    base,
+    tip: toDesign([0, leaf.length]),
+    finishedOutline,
+    rawEdge: [sideCrossing(-half), sideCrossing(half)],
+  }
+}
