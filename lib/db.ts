@@ -9,6 +9,13 @@ import { serverEnv } from '@/lib/env'
  */
 const globalForDatabase = globalThis as typeof globalThis & { wreathwrightSequelize?: Sequelize }
 
+/**
+ * Next.js bundles server code more than once (pages and route handlers are separate bundles in one
+ * process), so each copy of the model classes must be bound to the shared instance by its own copy
+ * of this module. This flag is per copy; the instance on globalThis is shared.
+ */
+let modelsBoundTo: Sequelize | undefined
+
 export function createSequelize(databaseUrl: string, options: { log?: boolean } = {}): Sequelize {
   return new Sequelize(databaseUrl, {
     dialect: 'postgres',
@@ -24,11 +31,14 @@ export function createSequelize(databaseUrl: string, options: { log?: boolean } 
 export function database(): Sequelize {
   if (!globalForDatabase.wreathwrightSequelize) {
     const env = serverEnv()
-    const sequelize = createSequelize(env.DATABASE_URL, { log: env.DATABASE_LOG === 'true' })
-    initModels(sequelize)
-    globalForDatabase.wreathwrightSequelize = sequelize
+    globalForDatabase.wreathwrightSequelize = createSequelize(env.DATABASE_URL, { log: env.DATABASE_LOG === 'true' })
   }
-  return globalForDatabase.wreathwrightSequelize
+  const sequelize = globalForDatabase.wreathwrightSequelize
+  if (modelsBoundTo !== sequelize) {
+    initModels(sequelize)
+    modelsBoundTo = sequelize
+  }
+  return sequelize
 }
 
 /** Closes the shared pool (tests and scripts call this before they exit). */

@@ -166,7 +166,7 @@ export async function seedDemoData(): Promise<{ people: number; patterns: number
     for (const person of DEMO_PEOPLE) {
       const [user, created] = await User.findOrCreate({
         where: { email: person.email },
-        defaults: { ...person, passwordHash, emailVerifiedAt: new Date(), designerRequestedAt: null },
+        defaults: { email: person.email, displayName: person.displayName, roles: person.roles, passwordHash, emailVerifiedAt: new Date(), designerRequestedAt: null },
         transaction,
       })
       if (created) people += 1

@@ -66,7 +66,7 @@ try {
   const baseEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: '1' }
 
   console.log('\n== unit and integration tests ==')
-  const testEnv = { ...baseEnv, DATABASE_URL: cluster.url('wreathwright_test'), NODE_ENV: 'test' }
+  const testEnv = { ...baseEnv, DATABASE_URL: cluster.url('wreathwright_test'), NODE_ENV: 'test' as const }
   if ((await vitest(['unit', 'integration'], path.join(reports, 'unit.json'), testEnv)) !== 0) failedSteps.push('unit/integration')
 
   console.log('\n== build and start the app for end-to-end tests ==')
