@@ -18,6 +18,8 @@ const EXACT_AREA_SQ_IN = 1e-9
  * to 0.0022 sq in for a whole ring with a hole).
  */
 const CLIPPER_JOIN_SLIVERS_SQ_IN = 0.005
+/** The same chords offset by us and by Clipper2 (1e-8 in grid) agree to far better than this. */
+const CLIPPER_SAME_CHORDS_SQ_IN = 1e-6
 /** Chords for the Clipper reference: fine enough that chord error stays under 1e-4 sq in. */
 const REFERENCE_SEGMENTS_PER_RADIAN = 2000
 
@@ -140,8 +142,24 @@ describe('trim lines of a repeat', () => {
     }
   })
 
-  it('refuses an inner arc smaller than the allowance', () => {
-    expect(() => trimLine(repeatOutline(ring({ innerRadius: 0.2 })))).toThrow(RangeError)
+  it('falls back to the chorded cutting shape when the inner arc is smaller than the allowance', () => {
+    const outline = repeatOutline(ring({ innerRadius: 0.2 }))
+    const { path, polygon } = trimLine(outline)
+    expect(path.every((segment) => segment.kind === 'line')).toBe(true)
+    // The same chords offset by clipper2-ts 2.0.1 (JoinType.Miter, limit 2).
+    const chords = pathToPolygon(outline).map(([x, y]) => ({ x, y }))
+    const reference = inflatePathsD([chords], 0.25, JoinType.Miter, EndType.Polygon, 2, 8)
+      .reduce((sum, p) => sum + polygonArea(p.map(({ x, y }) => [x, y] as Point)), 0)
+    expect(Math.abs(polygonArea(polygon) - reference)).toBeLessThan(CLIPPER_SAME_CHORDS_SQ_IN)
+  })
+
+  it('closes a notch narrower than two allowances instead of crossing itself', () => {
+    const line = (from: Point, to: Point): PathSegment => ({ kind: 'line', from, to })
+    const corners: Point[] = [[0, 0], [4, 0], [4, 4], [2.15, 4], [2.15, 2], [1.85, 2], [1.85, 4], [0, 4]]
+    const notched = corners.map((corner, i) => line(corner, corners[(i + 1) % corners.length]!))
+    const { polygon } = trimLine(notched)
+    // 4.5 × 4.5 in: the 0.3 in notch is filled by the allowances on both its walls.
+    expect(polygonArea(polygon)).toBeCloseTo(4.5 * 4.5, 9)
   })
 })
 
@@ -153,6 +171,21 @@ describe('outlines read back from plan polygons', () => {
       expect(read.map((segment) => segment.kind)).toEqual(original.map((segment) => segment.kind))
       expect(Math.abs(pathArea(read) - pathArea(original))).toBeLessThan(EXACT_AREA_SQ_IN)
     }
+  })
+
+  it('moves a seam end snapped onto a chord out onto the circle', () => {
+    // Repeat 0 of a quarter ring cut by a seam from (3, 0) to the middle of the outer arc's
+    // first chord: the chord's middle is up to 0.005 in inside the circle.
+    const chords = pathToPolygon(repeatOutline(ring()))
+    const [a, b] = [chords[1]!, chords[2]!]
+    const onChord: Point = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2]
+    expect(9 - Math.hypot(...onChord)).toBeGreaterThan(0)
+    const read = outlineFromPolygon([[3, 0], [9, 0], onChord], ring())
+    expect(read.map((segment) => segment.kind)).toEqual(['line', 'arc', 'line'])
+    expect(Math.hypot(...endOf(read[1]!))).toBeCloseTo(9, 12)
+    read.forEach((segment, i) => {
+      expect(distance(endOf(segment), startOf(read[(i + 1) % read.length]!))).toBeLessThan(NOISE_INCHES)
+    })
   })
 
   it('keeps a seam that crosses a cap of the outer circle as a line', () => {

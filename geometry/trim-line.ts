@@ -19,7 +19,7 @@
  * the angles and flip the flag (as canvas `arc()` and SVG's sweep flag read it).
  */
 import { ON_CIRCLE_INCHES, STRAIGHT_TURN_SINE } from './allowance-tolerances'
-import { DEFAULT_MITRE_LIMIT, DEFAULT_SEAM_ALLOWANCE_INCHES } from './offset'
+import { cuttingShape, DEFAULT_MITRE_LIMIT, DEFAULT_SEAM_ALLOWANCE_INCHES, isSimpleRing, polygonArea } from './offset'
 import { ARC_CHORD_TOLERANCE_INCHES } from './tolerances'
 import type { Point, Polygon, Ring } from './types'
 
@@ -210,8 +210,9 @@ function movedSegment(segment: PathSegment, allowance: number, from: Point, to: 
 /**
  * The trim line of a section: its outline moved out by the seam allowance, lines kept straight
  * and arcs concentric (outer radius + allowance, inner radius − allowance), corners mitred with
- * the mitre limit. The outline must be closed and counter-clockwise; the allowance must be
- * smaller than the radius of any inner arc.
+ * the mitre limit. The outline must be closed and counter-clockwise. In the rare case where the
+ * moved elements would cross (a notch narrower than two allowances, an inner radius no larger
+ * than the allowance) the trim line is the cutting shape of the outline's chords, all lines.
  *
  * @example
  * // Repeat 0 of a 4-repeat wedge ring of radius 9 in:
@@ -224,20 +225,47 @@ export function trimLine(outline: OutlinePath, options: TrimLineOptions = {}): T
   const mitreLimit = options.mitreLimit ?? DEFAULT_MITRE_LIMIT
   if (!(allowance >= 0) || !Number.isFinite(allowance)) throw new RangeError(`seam allowance must be ≥ 0, got ${allowance}`)
   if (outline.length < 2) throw new RangeError('an outline needs at least two segments')
-  for (const segment of outline) {
-    if (segment.kind === 'arc' && !segment.anticlockwise && segment.radius <= allowance) {
-      throw new RangeError(`an inner arc of radius ${segment.radius} in cannot shrink by a ${allowance} in allowance`)
-    }
-  }
+  return movedOutline(outline, allowance, mitreLimit) ?? chordedTrimLine(outline, allowance, mitreLimit)
+}
+
+/** Each element moved out and joined to its neighbours; null when that does not give the offset. */
+function movedOutline(outline: OutlinePath, allowance: number, mitreLimit: number): TrimLine | null {
+  // An inner arc no larger than the allowance vanishes: the offset is no longer element by element.
+  if (outline.some((segment) => segment.kind === 'arc' && !segment.anticlockwise && segment.radius <= allowance)) return null
   const count = outline.length
   const joins = outline.map((segment, i) => joinPoints(outline[(i + count - 1) % count]!, segment, allowance, mitreLimit))
   const path: PathSegment[] = []
-  joins.forEach((join, i) => {
+  for (let i = 0; i < count; i += 1) {
+    const join = joins[i]!
     const next = joins[(i + 1) % count]!
     if (join.length === 2) path.push({ kind: 'line', from: join[0]!, to: join[1]! })
-    path.push(movedSegment(outline[i]!, allowance, join[join.length - 1]!, next[0]!))
-  })
-  return { path, polygon: pathToPolygon(path) }
+    const moved = movedSegment(outline[i]!, allowance, join[join.length - 1]!, next[0]!)
+    if (runsBackwards(outline[i]!, moved)) return null
+    path.push(moved)
+  }
+  const polygon = pathToPolygon(path)
+  return isSimpleRing(polygon) && polygonArea(polygon) > 0 ? { path, polygon } : null
+}
+
+/** True when a moved element was swallowed by its neighbours and now runs the other way. */
+function runsBackwards(original: PathSegment, moved: PathSegment): boolean {
+  if (original.kind === 'line' || moved.kind === 'line') {
+    const was = subtract(endOf(original), startOf(original))
+    return dot(subtract(endOf(moved), startOf(moved)), was) < 0
+  }
+  // A reversed arc goes the long way round: its middle faces away from the original's middle.
+  const middle = (arc: ArcPathSegment): number => arc.startAngle + ((arc.anticlockwise ? 1 : -1) * arcSweep(arc)) / 2
+  return Math.cos(middle(moved) - middle(original)) < 0
+}
+
+/**
+ * The rare outline whose moved elements cross (a notch narrower than two allowances, an inner
+ * radius no larger than the allowance): the cutting shape of its chords, every edge a line.
+ */
+function chordedTrimLine(outline: OutlinePath, allowance: number, mitreLimit: number): TrimLine {
+  const polygon = cuttingShape(pathToPolygon(outline), { seamAllowanceInches: allowance, mitreLimit })
+  const path: PathSegment[] = polygon.map((from, i) => ({ kind: 'line', from, to: polygon[(i + 1) % polygon.length]! }))
+  return { path, polygon }
 }
 
 /**
@@ -265,26 +293,38 @@ export function repeatOutline(ring: Ring): OutlinePath {
 
 /**
  * A polygon of the plan (arcs as chords) read back as an outline path: runs of edges whose ends
- * lie on the ring's outer circle (travelled anticlockwise) or inner circle (clockwise) and whose
- * middles lie within the chord tolerance of it become one arc each; every other edge is a line.
- * A real seam joining two points of a circle with so shallow a cap (under 0.005 in) would be
- * read as an arc too; such a cap is a sliver the plan already warns about.
+ * lie on the ring's outer circle (travelled anticlockwise) or inner circle (clockwise), or on one
+ * of its chords (a seam end snapped onto a chord), and whose middles lie within the chord
+ * tolerance of it become one arc each; every other edge is a line. The corners of an arc are
+ * moved out onto the true circle (by at most the chord tolerance, 0.005 in) and the lines that
+ * meet them follow, so the path stays closed. A real seam joining two points of a circle with so
+ * shallow a cap (under 0.005 in) would be read as an arc too; such a cap is a sliver the plan
+ * already warns about.
  *
  * @example outlineFromPolygon(pathToPolygon(repeatOutline(ring)), ring) // ≈ repeatOutline(ring)
  */
 export function outlineFromPolygon(polygon: Polygon, ring: Ring): OutlinePath {
   const count = polygon.length
+  // Chords lie inside their circle, so a chord's points are 0 to 0.005 in inside it.
+  const nearCircle = (p: Point, radius: number): boolean => {
+    const inside = radius - Math.hypot(p[0], p[1])
+    return inside >= -ON_CIRCLE_INCHES && inside <= ARC_CHORD_TOLERANCE_INCHES + ON_CIRCLE_INCHES
+  }
   const circleOf = (a: Point, b: Point): { radius: number; anticlockwise: boolean } | null => {
     const turnsAnticlockwise = cross(a, b) > 0
     const radius = turnsAnticlockwise ? ring.outerRadius : ring.innerRadius
     if (radius <= 0) return null
-    const middle = scale(add(a, b), 0.5)
-    const onIt = (p: Point): boolean => Math.abs(Math.hypot(p[0], p[1]) - radius) <= ON_CIRCLE_INCHES
-    const sagitta = radius - Math.hypot(middle[0], middle[1])
-    if (!onIt(a) || !onIt(b) || sagitta > ARC_CHORD_TOLERANCE_INCHES + ON_CIRCLE_INCHES) return null
+    if (!nearCircle(a, radius) || !nearCircle(b, radius) || !nearCircle(scale(add(a, b), 0.5), radius)) return null
     return { radius, anticlockwise: turnsAnticlockwise }
   }
   const kinds = polygon.map((point, i) => circleOf(point, polygon[(i + 1) % count]!))
+  // Corners of arcs move onto their circle; the neighbouring lines use the moved corner too.
+  const corners = polygon.map((point, i) => {
+    const kind = kinds[i] ?? kinds[(i + count - 1) % count]
+    if (kind === null || kind === undefined) return point
+    const factor = kind.radius / Math.hypot(point[0], point[1])
+    return [point[0] * factor, point[1] * factor] as Point
+  })
   // Start at an edge that begins a run, so no arc is split across the polygon's first corner.
   const sameCircle = (i: number, j: number): boolean =>
     kinds[i] !== null && kinds[j] !== null && kinds[i]!.anticlockwise === kinds[j]!.anticlockwise
@@ -297,7 +337,7 @@ export function outlineFromPolygon(polygon: Polygon, ring: Ring): OutlinePath {
     const i = (first + step) % count
     const kind = kinds[i]
     if (kind === null || kind === undefined) {
-      path.push({ kind: 'line', from: polygon[i]!, to: polygon[(i + 1) % count]! })
+      path.push({ kind: 'line', from: corners[i]!, to: corners[(i + 1) % count]! })
       step += 1
       continue
     }
@@ -305,7 +345,7 @@ export function outlineFromPolygon(polygon: Polygon, ring: Ring): OutlinePath {
     while (step + run < count && sameCircle(i, (i + run) % count)) run += 1
     path.push({
       kind: 'arc', center: [0, 0], radius: kind.radius, anticlockwise: kind.anticlockwise,
-      startAngle: angle(polygon[i]!), endAngle: angle(polygon[(i + run) % count]!),
+      startAngle: angle(corners[i]!), endAngle: angle(corners[(i + run) % count]!),
     })
     step += run
   }
