@@ -18,6 +18,7 @@
  * perpendicular to the corner's bisector, one allowance out from the corner. That square cut is
  * the least cut that still leaves a full allowance all round the point.
  */
+import { FillRule, unionD } from 'clipper2-ts'
 import polygonClipping from 'polygon-clipping'
 import { DUPLICATE_POINT_INCHES, REVERSAL_COSINE, STRAIGHT_TURN_SINE } from './allowance-tolerances'
 import type { Point, Polygon } from './types'
@@ -182,13 +183,12 @@ function unionOffset(ring: Polygon, allowance: number, mitreLimit: number): Poly
       pieces.push(cap.map(([x, y]) => [x, y]))
     }
   }
-  const [first, ...rest] = pieces.map((piece): polygonClipping.Polygon => [piece])
-  const result = polygonClipping.union(first!, ...rest)
+  const outerRings = unitePieces(pieces)
   let best: Polygon = ring
   let bestArea = -Infinity
-  for (const polygon of result) {
+  for (const outerRing of outerRings) {
     // A cutting shape is one piece of fabric: holes (a nearly closed C) are filled.
-    const outer = normalizeRing((polygon[0] ?? []).map(([x, y]) => [x, y] as Point))
+    const outer = normalizeRing(outerRing)
     const area = polygonArea(outer)
     if (area > bestArea) {
       best = outer
@@ -197,6 +197,26 @@ function unionOffset(ring: Polygon, allowance: number, mitreLimit: number): Poly
   }
   return best
 }
+
+/**
+ * Outer rings of the union of counter-clockwise pieces. polygon-clipping works in floating point
+ * and keeps our exact coordinates, but 0.15.7 can fail to close a ring on near-degenerate input
+ * (seen about once in 500 unions of spiky polygons); clipper2-ts then unites on its 1e-8 in
+ * integer grid, which cannot fail that way.
+ */
+function unitePieces(pieces: readonly (readonly Point[])[]): Point[][] {
+  const asRings = pieces.map((piece): polygonClipping.Polygon => [piece.map(([x, y]): [number, number] => [x, y])])
+  try {
+    const [first, ...rest] = asRings
+    return polygonClipping.union(first!, ...rest).map((polygon) => (polygon[0] ?? []).map(([x, y]): Point => [x, y]))
+  } catch {
+    const united = unionD(pieces.map((piece) => piece.map(([x, y]) => ({ x, y }))), [], FillRule.NonZero, CLIPPER_PRECISION_DIGITS)
+    return united.map((path) => path.map(({ x, y }): Point => [x, y]))
+  }
+}
+
+/** Clipper2 rounds to 10^−8 in: far below a needle's width, far above float noise on inches. */
+const CLIPPER_PRECISION_DIGITS = 8
 
 const normals = (ring: Polygon, i: number): Point => outwardNormal(ring[i]!, ring[(i + 1) % ring.length]!)
 
