@@ -1,0 +1,40 @@
+import { describe, expect, it } from 'vitest'
+import { authorize, can, type Actor } from './authorization'
+import { ForbiddenError, NotFoundError, UnauthenticatedError } from './errors'
+
+const person = (roles: NonNullable<Actor>['roles'], id = 'person-1'): Actor => ({ id, roles })
+const patternOf = (ownerId: string) => ({ ownerId, state: 'draft' as const })
+
+describe('can', () => {
+  it('lets designers and admins create patterns, nobody else', () => {
+    expect(can(person(['designer']), 'create-pattern')).toBe(true)
+    expect(can(person(['admin']), 'create-pattern')).toBe(true)
+    expect(can(person(['quilter']), 'create-pattern')).toBe(false)
+    expect(can(person(['tester', 'quilter']), 'create-pattern')).toBe(false)
+    expect(can(null, 'create-pattern')).toBe(false)
+  })
+
+  it("keeps a designer to their own patterns, lets an admin into anyone's", () => {
+    const mine = patternOf('person-1')
+    const theirs = patternOf('person-2')
+    for (const action of ['read-pattern', 'update-pattern', 'delete-pattern', 'change-pattern-state'] as const) {
+      expect(can(person(['designer']), action, mine)).toBe(true)
+      expect(can(person(['designer']), action, theirs)).toBe(false)
+      expect(can(person(['admin'], 'admin-1'), action, theirs)).toBe(true)
+    }
+  })
+
+  it('does not let a former designer change a pattern they still own', () => {
+    expect(can(person(['quilter']), 'update-pattern', patternOf('person-1'))).toBe(false)
+    expect(can(person(['quilter']), 'read-pattern', patternOf('person-1'))).toBe(true)
+  })
+})
+
+describe('authorize', () => {
+  it('asks who is there first, then hides unreadable patterns as missing, then forbids', () => {
+    expect(() => authorize(null, 'create-pattern')).toThrow(UnauthenticatedError)
+    expect(() => authorize(person(['designer']), 'read-pattern', patternOf('person-2'))).toThrow(NotFoundError)
+    expect(() => authorize(person(['quilter']), 'create-pattern')).toThrow(ForbiddenError)
+    expect(() => authorize(person(['designer']), 'create-pattern')).not.toThrow()
+  })
+})
