@@ -9,7 +9,8 @@
  * edge moved out by the allowance, neighbours joined at their mitre); when that outline is not
  * a simple polygon (a notch narrower than two allowances, an edge swallowed by its neighbours)
  * we fall back to the definition itself: the union of the area, one band per edge and one join
- * cap per convex corner, computed with polygon-clipping. The tests compare both paths with
+ * cap per convex corner, computed with polygon-clipping (clipper2-ts's union if that fails; see
+ * `unitePieces`). The tests compare both paths with
  * clipper2-ts 2.0.1's own mitred offset and with the closed-form area of a convex offset, so
  * the check is always something outside this file.
  *

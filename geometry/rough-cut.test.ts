@@ -3,6 +3,7 @@ import polygonClipping from 'polygon-clipping'
 import { describe, expect, it } from 'vitest'
 import { cuttingShape, polygonArea } from './offset'
 import { mirrorAcross, roughCutBeforeFlip, roughCutPiece, roundUpToEighthInch } from './rough-cut'
+import { pathToPolygon, repeatOutline } from './trim-line'
 import type { Point, Polygon, Segment } from './types'
 
 /** polygon-clipping's rounding leaves slivers far below anything cut in fabric. */
@@ -150,6 +151,20 @@ describe('rough-cut pieces sewn along a line', () => {
       }),
       { numRuns: 100 },
     )
+  })
+
+  it('covers a whole repeat of a ring with a hole, reflex chords and all, sewn on a radial edge', () => {
+    // Repeat 0 of a 4-repeat ring, radii 2 and 9 in: the inner arc's chords are reflex corners.
+    const repeat = pathToPolygon(repeatOutline({ innerRadius: 2, outerRadius: 9, repeats: 4, repeatMode: 'rotate' }))
+    const line: Segment = [[2, 0], [9, 0]]
+    const cut = roughCutPiece(repeat, line)
+    // along x: from −1/4 (the allowance beside the edge at x = 0) − 1/4 margin to 9 + 1/4 + 1/4:
+    // 9.5 + 0.5 = 10 in; across: 1/4 past the line + 9 + 1/4 + 1/4 margin = 9.75 in. The chords'
+    // mitre at (9, 0) reaches 0.008 in farther, which the margin absorbs (under 1/64 in).
+    expect([cut.widthIn, cut.heightIn]).toEqual([10, 9.75])
+    expect(uncoveredArea(cuttingShape(repeat), grownRectangle(cut.corners))).toBeLessThan(CONTAINMENT_SLACK_SQ_IN)
+    const first = roughCutPiece(repeat, null)
+    expect(uncoveredArea(cuttingShape(repeat), grownRectangle(first.corners))).toBeLessThan(CONTAINMENT_SLACK_SQ_IN)
   })
 
   it('leaves the area and the sewing line untouched', () => {

@@ -13,6 +13,9 @@
  *   line, common practice); the margin is added at both ends along the line and on the far side;
  *   rounding up to 1/8 in adds its extra equally at both ends along the line, and all of it on
  *   the far side across the line, so the seam-side edge never moves;
+ * - a size no more than 1/64 in over a 1/8 in step is cut at that step and the margin gives up
+ *   that little (`MARGIN_ROUNDING_SLACK_INCHES`; never more than the margin, so the cutting
+ *   shape is always covered);
  * - a section's first area (no sewing line): the margin goes on all four sides and each
  *   rounding extra is shared equally by the two opposite sides.
  */
@@ -24,6 +27,14 @@ import type { Point, Polygon, Segment } from './types'
 export const DEFAULT_ROUGH_CUT_MARGIN_INCHES = 0.25
 /** Rotary-cutting rulers are marked in 1/8 in (common practice), so sizes are rounded up to it. */
 export const ROUGH_CUT_STEP_INCHES = 1 / 8
+
+/**
+ * A size at most this over a 1/8 in step is cut at that step, the excess taken out of the margin
+ * (never out of the cutting shape). Inches. Chords of the ring's arcs push mitred corners out by
+ * up to about 0.01 in (a 9 in arc's corner: 1/4 in × half the chord angle = 0.008 in), which
+ * would otherwise add a whole 1/8 in; a rotary cut is not more accurate than 1/64 in anyway.
+ */
+export const MARGIN_ROUNDING_SLACK_INCHES = 1 / 64
 
 export interface RoughCut {
   /** Length of the first edge (along the sewing line), inches, a multiple of 1/8. */
@@ -108,9 +119,12 @@ function bounds(points: readonly Point[], origin: Point, along: Point) {
   }
 }
 
-/** Grows [min, max] to a rounded-up length, sharing the extra between the ends as asked. */
-function roundedSpan(min: number, max: number, shareAtMin: number): [number, number] {
-  const extra = roundUpToEighthInch(max - min) - (max - min)
+/**
+ * Grows [min, max] to a rounded-up length, sharing the extra between the ends as asked. A span
+ * at most `slack` over a 1/8 in step is cut at that step, the excess taken from the margin.
+ */
+function roundedSpan(min: number, max: number, shareAtMin: number, slack: number): [number, number] {
+  const extra = roundUpToEighthInch(max - min - slack) - (max - min)
   return [min - extra * shareAtMin, max + extra * (1 - shareAtMin)]
 }
 
@@ -161,11 +175,13 @@ export function roughCutPiece(area: Polygon, sewnAlong: Segment | null, options:
   const margin = options.marginInches ?? DEFAULT_ROUGH_CUT_MARGIN_INCHES
   if (!(margin >= 0) || !Number.isFinite(margin)) throw new RangeError(`margin must be a finite length ≥ 0, got ${margin}`)
   const shape = cuttingShape(area, { seamAllowanceInches: allowance })
+  // Never more than the margin itself, so the cutting shape is always covered.
+  const slack = Math.min(MARGIN_ROUNDING_SLACK_INCHES, margin)
 
   if (sewnAlong === null) {
     const smallest = smallestRectangle(shape)
-    const [minAlong, maxAlong] = roundedSpan(smallest.minAlong - margin, smallest.maxAlong + margin, 0.5)
-    const [minAcross, maxAcross] = roundedSpan(smallest.minAcross - margin, smallest.maxAcross + margin, 0.5)
+    const [minAlong, maxAlong] = roundedSpan(smallest.minAlong - margin, smallest.maxAlong + margin, 0.5, slack)
+    const [minAcross, maxAcross] = roundedSpan(smallest.minAcross - margin, smallest.maxAcross + margin, 0.5, slack)
     return toRoughCut({ ...smallest, minAlong, maxAlong, minAcross, maxAcross })
   }
 
@@ -182,8 +198,8 @@ export function roughCutPiece(area: Polygon, sewnAlong: Segment | null, options:
   // The seam-side edge is one allowance past the line; only an area that reaches back over its
   // own sewing line (never a convex one) would push it farther, and then it covers that too.
   const seamSide = Math.min(-allowance, box.minAcross)
-  const [minAlong, maxAlong] = roundedSpan(box.minAlong - margin, box.maxAlong + margin, 0.5)
-  const [minAcross, maxAcross] = roundedSpan(seamSide, box.maxAcross + margin, 0)
+  const [minAlong, maxAlong] = roundedSpan(box.minAlong - margin, box.maxAlong + margin, 0.5, slack)
+  const [minAcross, maxAcross] = roundedSpan(seamSide, box.maxAcross + margin, 0, slack)
   return toRoughCut({ origin: from, along, minAlong, maxAlong, minAcross, maxAcross })
 }
 
