@@ -72,7 +72,10 @@ const at = (p: Point): string => `(${format(p[0])}, ${format(p[1])})`
 export function buildArrangement(ring: Ring, seams: readonly Seam[]): Arrangement {
   const outline = repeatOutline(ring)
   const problems: Problem[] = []
-  const snapped = snapSeamEnds(outline.polygon, seams).map((s) => s.seam)
+  // Chord joints are an artefact of drawing arcs as chords: only where the outline changes part
+  // (radial edge to arc) is a corner a seam end should jump to.
+  const corners = outline.polygon.filter((_, i) => outline.parts[i] !== outline.parts[(i - 1 + outline.parts.length) % outline.parts.length])
+  const snapped = snapSeamEnds(outline.polygon, seams, corners).map((s) => s.seam)
   const segments: Segment[] = outline.polygon.map((a, i) => ({ a, b: outline.polygon[(i + 1) % outline.polygon.length] as Point, seamId: null, splits: [] }))
   const outlineCount = segments.length
   for (const seam of snapped) {
@@ -117,6 +120,15 @@ function intersect(first: Segment, second: Segment): Point | null {
   ) {
     return null
   }
+  // Both ends of one segment clearly on one side of the other: they cannot meet (the common case).
+  const lengthFirst = Math.hypot(b[0] - a[0], b[1] - a[1])
+  const o1 = orientation(a, b, c)
+  const o2 = orientation(a, b, d)
+  if (o1 * o2 > 0 && Math.min(Math.abs(o1), Math.abs(o2)) > ON_SEGMENT_INCHES * lengthFirst) return null
+  const lengthSecond = Math.hypot(d[0] - c[0], d[1] - c[1])
+  const o3 = orientation(c, d, a)
+  const o4 = orientation(c, d, b)
+  if (o3 * o4 > 0 && Math.min(Math.abs(o3), Math.abs(o4)) > ON_SEGMENT_INCHES * lengthSecond) return null
   const onFirst = [c, d].filter((p) => distanceToSegment(p, a, b) <= ON_SEGMENT_INCHES)
   const onSecond = [a, b].filter((p) => distanceToSegment(p, c, d) <= ON_SEGMENT_INCHES)
   for (const p of onFirst) first.splits.push(p)
@@ -128,10 +140,6 @@ function intersect(first: Segment, second: Segment): Point | null {
     if (p && q) return [(p[0] + q[0]) / 2, (p[1] + q[1]) / 2]
   }
   if (shared.length > 0) return null
-  const o1 = orientation(a, b, c)
-  const o2 = orientation(a, b, d)
-  const o3 = orientation(c, d, a)
-  const o4 = orientation(c, d, b)
   if (o1 * o2 >= 0 || o3 * o4 >= 0) return null
   // Compute from the lexicographically smaller segment so swapping the pair changes no bit.
   const [p, p2, q, q2] = comparePoints(a, c) <= 0 ? [a, b, c, d] : [c, d, a, b]

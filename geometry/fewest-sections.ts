@@ -10,7 +10,7 @@
  * prune: they restrict the order inside a section, never which cuts exist (a leaf caught in a
  * join seam is basted before the join).
  */
-import { areaMembers, areaSetKey, areaSetOf, hasArea, type AreaSet } from './area-set'
+import { areaMembers, areaSetKey, areaSetOf, emptyAreaSet, hasArea, type AreaSet } from './area-set'
 import { boundaryOfEdges, type Topology } from './area-topology'
 import { createPeelSearch, findSectionOrder, type InsertConstraint, type PeelSearch } from './sewing-order'
 import { MAX_SECTION_UNITS } from './tolerances'
@@ -48,8 +48,11 @@ interface Solved {
  */
 export function cutsOf(topology: Topology, unit: AreaSet, allowed?: (cut: Cut) => boolean): Cut[] {
   const cuts: Cut[] = []
-  const inCut = new Uint8Array(topology.seamEdges.length)
-  const isBoundary = (vertex: number): boolean => (topology.areasAtVertex[vertex] ?? []).some((area) => area < 0 || !hasArea(unit, area))
+  const scratch = scratchFor(topology)
+  const isBoundary = (vertex: number): boolean => {
+    for (const area of topology.areasAtVertex[vertex] ?? []) if (area < 0 || !hasArea(unit, area)) return true
+    return false
+  }
   const interior = (edge: number): boolean => {
     const e = topology.seamEdges[edge]
     return e !== undefined && hasArea(unit, e.left) && hasArea(unit, e.right)
@@ -72,9 +75,7 @@ export function cutsOf(topology: Topology, unit: AreaSet, allowed?: (cut: Cut) =
           const from = stops[i] as number
           const to = stops[j] as number
           const edges = line.edges.slice(from, to)
-          for (const edge of edges) inCut[edge] = 1
-          const cut = split(topology, unit, members, edges, inCut)
-          for (const edge of edges) inCut[edge] = 0
+          const cut = split(topology, unit, members, edges, scratch)
           if (!cut) continue
           const key = areaSetKey(cut.first)
           if (seen.has(key)) continue
@@ -90,32 +91,79 @@ export function cutsOf(topology: Topology, unit: AreaSet, allowed?: (cut: Cut) =
   return cuts
 }
 
-/** The two parts a cut leaves, or null when it does not split the unit cleanly in two. */
-function split(topology: Topology, unit: AreaSet, members: readonly number[], edges: readonly number[], inCut: Uint8Array): { first: AreaSet; second: AreaSet } | null {
-  const reach = (seed: number, within: (area: number) => boolean): Set<number> => {
-    const seen = new Set<number>([seed])
-    const stack = [seed]
-    while (stack.length > 0) {
-      const area = stack.pop() as number
-      for (const neighbour of topology.neighbours[area] ?? []) {
-        if (seen.has(neighbour.area) || !within(neighbour.area)) continue
-        if (neighbour.edges.every((edge) => inCut[edge] === 1)) continue
-        seen.add(neighbour.area)
-        stack.push(neighbour.area)
+/** Reusable marks for `split`, one set per topology: cutting is the search's inner loop. */
+interface Scratch {
+  readonly inCut: Uint8Array
+  readonly side: Uint8Array
+  readonly stack: Int32Array
+}
+
+const scratchByTopology = new WeakMap<Topology, Scratch>()
+
+function scratchFor(topology: Topology): Scratch {
+  let scratch = scratchByTopology.get(topology)
+  if (!scratch) {
+    scratch = { inCut: new Uint8Array(topology.seamEdges.length), side: new Uint8Array(topology.areaCount), stack: new Int32Array(topology.areaCount + 1) }
+    scratchByTopology.set(topology, scratch)
+  }
+  return scratch
+}
+
+/** Marks with `mark` every area of the unit reachable from `seed` without crossing a cut edge or a marked area. */
+function flood(topology: Topology, unit: AreaSet, seed: number, mark: number, scratch: Scratch): number {
+  const { inCut, side, stack } = scratch
+  let top = 0
+  let count = 1
+  side[seed] = mark
+  stack[top++] = seed
+  while (top > 0) {
+    const area = stack[--top] as number
+    for (const neighbour of topology.neighbours[area] ?? []) {
+      const next = neighbour.area
+      if (side[next] !== 0 || !hasArea(unit, next)) continue
+      let open = false
+      for (const edge of neighbour.edges) {
+        if (inCut[edge] === 0) {
+          open = true
+          break
+        }
       }
+      if (!open) continue
+      side[next] = mark
+      stack[top++] = next
+      count += 1
     }
-    return seen
   }
-  const firstMembers = reach(members[0] as number, (area) => hasArea(unit, area))
-  if (firstMembers.size === members.length) return null
-  const secondSeed = members.find((area) => !firstMembers.has(area)) as number
-  const secondMembers = reach(secondSeed, (area) => hasArea(unit, area) && !firstMembers.has(area))
-  if (firstMembers.size + secondMembers.size !== members.length) return null
-  for (const edge of edges) {
-    const e = topology.seamEdges[edge]
-    if (!e || firstMembers.has(e.left) === firstMembers.has(e.right)) return null
+  return count
+}
+
+/** The two parts a cut leaves, or null when it does not split the unit cleanly in two. */
+function split(topology: Topology, unit: AreaSet, members: readonly number[], edges: readonly number[], scratch: Scratch): { first: AreaSet; second: AreaSet } | null {
+  const { inCut, side } = scratch
+  for (const edge of edges) inCut[edge] = 1
+  let result: { first: AreaSet; second: AreaSet } | null = null
+  const firstCount = flood(topology, unit, members[0] as number, 1, scratch)
+  if (firstCount < members.length) {
+    const secondSeed = members.find((area) => side[area] === 0) as number
+    const secondCount = flood(topology, unit, secondSeed, 2, scratch)
+    let clean = firstCount + secondCount === members.length
+    for (const edge of edges) {
+      const e = topology.seamEdges[edge]
+      if (!e || side[e.left] === side[e.right]) clean = false
+    }
+    if (clean) {
+      const first = emptyAreaSet(topology.areaCount)
+      const second = emptyAreaSet(topology.areaCount)
+      for (const area of members) {
+        const target = side[area] === 1 ? first : second
+        target[area >>> 5] = (target[area >>> 5] as number) | (1 << (area & 31))
+      }
+      result = { first, second }
+    }
   }
-  return { first: areaSetOf(topology.areaCount, firstMembers), second: areaSetOf(topology.areaCount, secondMembers) }
+  for (const edge of edges) inCut[edge] = 0
+  for (const area of members) side[area] = 0
+  return result
 }
 
 interface SearchState {
@@ -125,6 +173,13 @@ interface SearchState {
   readonly atLeast: Map<string, number>
   units: number
   gaveUp: boolean
+}
+
+function lowerBound(state: SearchState, unit: AreaSet): number {
+  const key = areaSetKey(unit)
+  const exact = state.exact.get(key)
+  if (exact) return exact.count
+  return state.atLeast.get(key) ?? 1
 }
 
 /** The best plan of `unit` using fewer than `limit` sections, or null when none exists below it. */
@@ -149,6 +204,8 @@ function solve(state: SearchState, unit: AreaSet, limit: number): Solved | null 
   let bound = limit
   for (const cut of cutsOf(state.topology, unit)) {
     if (bound <= 2) break
+    // Each part needs at least what the memo already proved; skip cuts that cannot beat the bound.
+    if (lowerBound(state, cut.first) + lowerBound(state, cut.second) >= bound) continue
     const first = solve(state, cut.first, bound - 1)
     if (!first) continue
     const second = solve(state, cut.second, bound - first.count)

@@ -63,7 +63,7 @@ export function repeatOutline(ring: Ring): RepeatOutline {
     const innerChords = chordCount(ring.innerRadius, span)
     for (let i = innerChords; i >= 1; i -= 1) {
       polygon.push(polar(ring.innerRadius, (span * i) / innerChords))
-      parts.push(i === innerChords ? 'inner-arc' : 'inner-arc')
+      parts.push('inner-arc')
     }
     // The last inner point (angle 0) is polygon[0]; the edge into it closes the inner arc.
   } else {

@@ -25,15 +25,16 @@ interface End {
 }
 
 /**
- * Snaps seam ends onto the outline (its corners first), onto each other, then onto the nearest
- * seam (a crossing of two seams first). Returns the seams in the input order with moved ends.
+ * Snaps seam ends onto the outline (its true corners first: the joints between radial edges and
+ * arcs, not the joints between chords), onto each other, then onto the nearest seam (a crossing
+ * of two seams first). Returns the seams in the input order with moved ends.
  *
  * @example snapSeamEnds(outline, [{ id: 's1', from: [0.004, 1], to: [3, 2.999] }])
  */
-export function snapSeamEnds(outline: Polygon, seams: readonly Seam[]): SnappedSeam[] {
+export function snapSeamEnds(outline: Polygon, seams: readonly Seam[], corners: readonly Point[] = outline): SnappedSeam[] {
   const ends: End[] = []
   for (const seam of seams) {
-    ends.push(snapToOutline(seam.from, seam.to, outline), snapToOutline(seam.to, seam.from, outline))
+    ends.push(snapToOutline(seam.from, seam.to, outline, corners), snapToOutline(seam.to, seam.from, outline, corners))
   }
   clusterEnds(ends)
   snapToSeams(ends, seams.length)
@@ -42,6 +43,16 @@ export function snapSeamEnds(outline: Polygon, seams: readonly Seam[]): SnappedS
     const to = ends[2 * index + 1] as End
     return { seam: { id: seam.id, from: from.point, to: to.point }, attachments: [from.attachment, to.attachment] }
   })
+}
+
+/** Whether p is farther than the snap distance outside the bounding box of a–b (a cheap early out). */
+function isOutsideBox(p: Point, a: Point, b: Point): boolean {
+  return (
+    p[0] < Math.min(a[0], b[0]) - SNAP_DISTANCE_INCHES ||
+    p[0] > Math.max(a[0], b[0]) + SNAP_DISTANCE_INCHES ||
+    p[1] < Math.min(a[1], b[1]) - SNAP_DISTANCE_INCHES ||
+    p[1] > Math.max(a[1], b[1]) + SNAP_DISTANCE_INCHES
+  )
 }
 
 /**
@@ -63,15 +74,21 @@ function alongSeam(point: Point, other: Point, a: Point, b: Point): Point | null
 
 /** The point of a–b a seam end snaps to: along the seam's line when that is near, else the nearest. */
 function snapOnto(point: Point, other: Point, a: Point, b: Point): Point {
-  const along = alongSeam(point, other, a, b)
-  if (along && distance(along, point) <= SNAP_DISTANCE_INCHES) return along
-  return nearestOnSegment(point, a, b).point
+  return snapCandidate(point, other, a, b).point
 }
 
-function snapToOutline(point: Point, other: Point, outline: Polygon): End {
+/** As `snapOnto`, saying whether the seam keeps its direction (such a candidate is preferred). */
+function snapCandidate(point: Point, other: Point, a: Point, b: Point): { readonly point: Point; readonly alongSeam: boolean } {
+  const along = alongSeam(point, other, a, b)
+  if (along && distance(along, point) <= SNAP_DISTANCE_INCHES) return { point: along, alongSeam: true }
+  return { point: nearestOnSegment(point, a, b).point, alongSeam: false }
+}
+
+function snapToOutline(point: Point, other: Point, outline: Polygon, corners: readonly Point[]): End {
   let nearestCorner: Point | null = null
   let cornerDistance = SNAP_DISTANCE_INCHES
-  for (const corner of outline) {
+  for (const corner of corners) {
+    if (Math.abs(corner[0] - point[0]) > SNAP_DISTANCE_INCHES || Math.abs(corner[1] - point[1]) > SNAP_DISTANCE_INCHES) continue
     const d = distance(point, corner)
     if (d <= cornerDistance) {
       nearestCorner = corner
@@ -79,17 +96,20 @@ function snapToOutline(point: Point, other: Point, outline: Polygon): End {
     }
   }
   if (nearestCorner) return { point: nearestCorner, attachment: 'outline', target: -1 }
+  // Keeping the seam's direction beats being nearest: an end near a chord corner is also near
+  // the neighbouring chord, whose nearest point would turn the seam slightly.
   let nearest: Point | null = null
-  let nearestDistance = SNAP_DISTANCE_INCHES
+  let nearestRank = Infinity
   for (let i = 0; i < outline.length; i += 1) {
     const a = outline[i] as Point
     const b = outline[(i + 1) % outline.length] as Point
+    if (isOutsideBox(point, a, b)) continue
     if (distance(point, nearestOnSegment(point, a, b).point) > SNAP_DISTANCE_INCHES) continue
-    const candidate = snapOnto(point, other, a, b)
-    const d = distance(point, candidate)
-    if (d <= nearestDistance) {
-      nearest = candidate
-      nearestDistance = d
+    const candidate = snapCandidate(point, other, a, b)
+    const rank = (candidate.alongSeam ? 0 : SNAP_DISTANCE_INCHES * 2) + distance(point, candidate.point)
+    if (rank < nearestRank) {
+      nearest = candidate.point
+      nearestRank = rank
     }
   }
   return nearest ? { point: nearest, attachment: 'outline', target: -1 } : { point, attachment: 'free', target: -1 }
@@ -174,12 +194,13 @@ function snapToSeams(ends: End[], seamCount: number): void {
     for (let seam = 0; seam < seamCount; seam += 1) {
       if (own.has(seam)) continue
       const [a, b] = frozenSegment(seam)
+      if (isOutsideBox(point, a, b)) continue
       if (distance(point, nearestOnSegment(point, a, b).point) <= SNAP_DISTANCE_INCHES) near.push(seam)
     }
     let best: { point: Point; distance: number; target: number } | null = null
-    const consider = (candidate: Point, target: number): void => {
-      const d = distance(point, candidate)
-      if (d > SNAP_DISTANCE_INCHES) return
+    const consider = (candidate: Point, target: number, penalty = 0): void => {
+      if (distance(point, candidate) > SNAP_DISTANCE_INCHES) return
+      const d = distance(point, candidate) + penalty
       if (!best || d < best.distance || (d === best.distance && comparePoints(candidate, best.point) < 0)) best = { point: candidate, distance: d, target }
     }
     for (let i = 0; i < near.length; i += 1) {
@@ -194,7 +215,8 @@ function snapToSeams(ends: End[], seamCount: number): void {
     if (!best) {
       for (const seam of near) {
         const [a, b] = frozenSegment(seam)
-        consider(otherEnd ? snapOnto(point, otherEnd, a, b) : nearestOnSegment(point, a, b).point, seam)
+        const candidate = otherEnd ? snapCandidate(point, otherEnd, a, b) : { point: nearestOnSegment(point, a, b).point, alongSeam: true }
+        consider(candidate.point, seam, candidate.alongSeam ? 0 : SNAP_DISTANCE_INCHES * 2)
       }
     }
     const chosen = best as { point: Point; distance: number; target: number } | null
@@ -211,14 +233,19 @@ function snapToSeams(ends: End[], seamCount: number): void {
   }
   // Two ends snapped onto each other's seams both moved; re-project a few times (all at once,
   // from the previous positions) so each lies on its target seam as it finally stands.
+  const targeted = ends.map((end, index) => index).filter((index) => (ends[index] as End).target >= 0)
+  if (targeted.length === 0) return
+  const pointKey = (end: End): string => `${end.target}:${end.point[0]},${end.point[1]}`
+  const sharing = new Map<string, number>()
+  for (const index of targeted) sharing.set(pointKey(ends[index] as End), (sharing.get(pointKey(ends[index] as End)) ?? 0) + 1)
+  const junction = new Set(targeted.filter((index) => (sharing.get(pointKey(ends[index] as End)) ?? 0) > 1))
   for (let round = 0; round < 4; round += 1) {
     const previous = ends.map((end) => end.point)
-    ends.forEach((end, index) => {
-      if (end.target < 0) return
+    for (const index of targeted) {
+      const end = ends[index] as End
       const a = previous[2 * end.target] as Point
       const b = previous[2 * end.target + 1] as Point
-      const junction = ends.some((other, j) => j !== index && other.target === end.target && other.point[0] === end.point[0] && other.point[1] === end.point[1])
-      end.point = junction ? nearestOnSegment(end.point, a, b).point : snapOnto(end.point, previous[index ^ 1] as Point, a, b)
-    })
+      end.point = junction.has(index) ? nearestOnSegment(end.point, a, b).point : snapOnto(end.point, previous[index ^ 1] as Point, a, b)
+    }
   }
 }
