@@ -21,6 +21,7 @@
  */
 import { FillRule, unionD } from 'clipper2-ts'
 import polygonClipping from 'polygon-clipping'
+import { orientation } from './orientation'
 import { DUPLICATE_POINT_INCHES, REVERSAL_COSINE, STRAIGHT_TURN_SINE } from './allowance-tolerances'
 import type { Point, Polygon } from './types'
 
@@ -117,7 +118,7 @@ function joinPoints(
 }
 
 function segmentsCross(a: Point, b: Point, c: Point, d: Point): boolean {
-  const side = (p: Point, q: Point, r: Point): number => Math.sign(cross(subtract(q, p), subtract(r, p)))
+  const side = (p: Point, q: Point, r: Point): number => Math.sign(orientation(p, q, r))
   const d1 = side(c, d, a)
   const d2 = side(c, d, b)
   const d3 = side(a, b, c)

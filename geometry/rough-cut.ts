@@ -21,6 +21,7 @@
  */
 import { ROUNDING_SLACK_INCHES, RECTANGLE_AREA_TIE_SQ_IN, DUPLICATE_POINT_INCHES } from './allowance-tolerances'
 import { cuttingShape, DEFAULT_SEAM_ALLOWANCE_INCHES } from './offset'
+import { orientation } from './orientation'
 import type { Point, Polygon, Segment } from './types'
 
 /** Default extra fabric around the cutting shape, inches; a designer's setting. */
@@ -79,8 +80,7 @@ export function convexHull(points: readonly Point[]): Polygon {
   const half = (list: readonly Point[]): Point[] => {
     const chain: Point[] = []
     for (const point of list) {
-      while (chain.length >= 2 && cross(subtract(chain[chain.length - 1]!, chain[chain.length - 2]!),
-        subtract(point, chain[chain.length - 2]!)) <= 0) chain.pop()
+      while (chain.length >= 2 && orientation(chain[chain.length - 2]!, chain[chain.length - 1]!, point) <= 0) chain.pop()
       chain.push(point)
     }
     chain.pop()
