@@ -1,9 +1,10 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import {
-  applyToPolygon, applyTransform, compose, IDENTITY, isReflection, printedSide, printedSideTransform,
+  applyToPath, applyToPolygon, applyTransform, compose, IDENTITY, isReflection, printedSide, printedSideTransform,
   reflectionAcrossRadius, repeatTransforms, scaleDesign, type AffineTransform,
 } from './symmetry'
+import { arcSweep, endOf, repeatOutline, startOf, trimLine, type OutlinePath } from './trim-line'
 import type { Design, Point, Ring } from './types'
 
 /** Transforms built from sines and cosines agree to floating-point noise on a few inches. */
@@ -74,6 +75,41 @@ describe('the printed side', () => {
     const printed = applyToPolygon(printedSideTransform({ repeats: 6 }), [[0, 0], [2, 0], [1, 1]])
     const [a, b, c] = printed as [Point, Point, Point]
     expect((b[0] - a[0]) * (c[1] - a[1]) - (b[1] - a[1]) * (c[0] - a[0])).toBeGreaterThan(0)
+  })
+})
+
+describe('paths of lines and arcs under the same transforms', () => {
+  /** Exact area of a closed path (Green's theorem, arcs integrated exactly). */
+  const pathArea = (path: OutlinePath): number => path.reduce((sum, segment) => {
+    if (segment.kind === 'line') return sum + (segment.from[0] * segment.to[1] - segment.to[0] * segment.from[1]) / 2
+    const sweep = arcSweep(segment) * (segment.anticlockwise ? 1 : -1)
+    const [a, b] = [segment.startAngle, segment.startAngle + sweep]
+    const [cx, cy] = segment.center
+    const r = segment.radius
+    return sum + (r * r * sweep + r * (cx * (Math.sin(b) - Math.sin(a)) - cy * (Math.cos(b) - Math.cos(a)))) / 2
+  }, 0)
+
+  it('prints a trim line mirrored, still counter-clockwise, closed and of the same area', () => {
+    fc.assert(fc.property(repeatCount, fc.constantFrom(0, 2), (repeats, innerRadius) => {
+      const trim = trimLine(repeatOutline(ring({ repeats, innerRadius }))).path
+      const printed = applyToPath(printedSideTransform({ repeats }), trim)
+      expect(pathArea(printed)).toBeCloseTo(pathArea(trim), 9)
+      printed.forEach((segment, i) => expectSamePoint(endOf(segment), startOf(printed[(i + 1) % printed.length]!)))
+      const back = applyToPath(printedSideTransform({ repeats }), printed)
+      expect(pathArea(back)).toBeCloseTo(pathArea(trim), 9)
+      expect(back.map((segment) => segment.kind)).toEqual(trim.map((segment) => segment.kind))
+    }))
+  })
+
+  it("places a repeat's trim line in every repeat of a mirrored ring", () => {
+    const trim = trimLine(repeatOutline(ring({ repeats: 6, repeatMode: 'mirror', innerRadius: 2 }))).path
+    for (const transform of repeatTransforms(ring({ repeats: 6, repeatMode: 'mirror' }))) {
+      expect(pathArea(applyToPath(transform, trim))).toBeCloseTo(pathArea(trim), 9)
+    }
+  })
+
+  it('refuses a shear, which would not keep arcs as arcs', () => {
+    expect(() => applyToPath({ ...IDENTITY, xy: 0.5 }, repeatOutline(ring()))).toThrow(RangeError)
   })
 })
 

@@ -2,6 +2,7 @@
  * Mirroring and repeats: the printed side of a foundation, the transforms that place every repeat
  * of the ring, and scaling a design to another finished size.
  */
+import type { OutlinePath, PathSegment } from './trim-line'
 import type { Design, Point, Polygon, Ring } from './types'
 
 /** x' = xx·x + xy·y + tx, y' = yx·x + yy·y + ty, in repeat 0's frame (inches). */
@@ -90,6 +91,48 @@ export function applyToPolygon(transform: AffineTransform, polygon: Polygon): Po
   if (!isReflection(transform) || mapped.length === 0) return mapped
   return [mapped[0]!, ...mapped.slice(1).reverse()]
 }
+
+/**
+ * Applies a rotation, reflection or uniform scaling (with any translation) to an outline path of
+ * lines and true arcs, and returns it counter-clockwise: a reflection turns arcs the other way
+ * and reverses the path, which is then read backwards. Arcs stay arcs only under such
+ * transforms, so a shear or an unequal scaling is a programmer error.
+ *
+ * @example applyToPath(printedSideTransform(ring), trimLine(outline).path) // the printed trim line
+ */
+export function applyToPath(transform: AffineTransform, path: OutlinePath): OutlinePath {
+  const columnX = Math.hypot(transform.xx, transform.yx)
+  const columnY = Math.hypot(transform.xy, transform.yy)
+  const skew = transform.xx * transform.xy + transform.yx * transform.yy
+  if (Math.abs(columnX - columnY) > SIMILARITY_SLACK * columnX || Math.abs(skew) > SIMILARITY_SLACK * columnX * columnX) {
+    throw new RangeError('arcs stay arcs only under rotations, reflections and uniform scaling')
+  }
+  const turnAngle = (angle: number): number => {
+    const [x, y] = applyTransform({ ...transform, tx: 0, ty: 0 }, [Math.cos(angle), Math.sin(angle)])
+    return Math.atan2(y, x)
+  }
+  const reflect = isReflection(transform)
+  const mapped: PathSegment[] = path.map((segment) => segment.kind === 'line'
+    ? { kind: 'line', from: applyTransform(transform, segment.from), to: applyTransform(transform, segment.to) }
+    : {
+      kind: 'arc',
+      center: applyTransform(transform, segment.center),
+      radius: segment.radius * columnX,
+      startAngle: turnAngle(segment.startAngle),
+      endAngle: turnAngle(segment.endAngle),
+      anticlockwise: segment.anticlockwise !== reflect,
+    })
+  if (!reflect) return mapped
+  return mapped.reverse().map((segment): PathSegment => segment.kind === 'line'
+    ? { kind: 'line', from: segment.to, to: segment.from }
+    : { ...segment, startAngle: segment.endAngle, endAngle: segment.startAngle, anticlockwise: !segment.anticlockwise })
+}
+
+/**
+ * How far a transform's two columns may differ in length or squareness, relative to their
+ * length, and still count as a similarity. Unitless; sines and cosines leave about 1e-16.
+ */
+const SIMILARITY_SLACK = 1e-9
 
 /**
  * For each repeat k (0 … N−1), the transform that carries repeat 0 onto it. Rotate mode: a
