@@ -45,3 +45,24 @@ export const RECTANGLE_AREA_TIE_SQ_IN = 1e-9
  * Inches; the plan rounds coordinates to 6 decimals (5e-7 in), twenty times less than this.
  */
 export const ON_CIRCLE_INCHES = 1e-5
+
+/**
+ * A size at most this over a 1/8 in step is cut at that step, the excess taken out of the margin
+ * (never out of the cutting shape). Inches. Chords of the ring's arcs push mitred corners out by
+ * up to about 0.01 in (a 9 in arc's corner: 1/4 in × half the chord angle = 0.008 in), which
+ * would otherwise add a whole 1/8 in; a rotary cut is not more accurate than 1/64 in anyway.
+ */
+export const MARGIN_ROUNDING_SLACK_INCHES = 1 / 64
+
+/**
+ * Decimal digits of clipper2-ts's integer grid when it unites offset pieces (offset.ts): 10^−8 in,
+ * far below a needle's width and far above floating-point noise on lengths of inches.
+ */
+export const CLIPPER_PRECISION_DIGITS = 8
+
+/**
+ * How far a transform's two columns may differ in length or squareness, relative to their
+ * length, and still count as a similarity (arcs stay arcs). Unitless; sines and cosines of
+ * repeat angles leave about 1e-16.
+ */
+export const SIMILARITY_SLACK = 1e-9

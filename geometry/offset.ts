@@ -22,7 +22,7 @@
 import { FillRule, unionD } from 'clipper2-ts'
 import polygonClipping from 'polygon-clipping'
 import { orientation } from './orientation'
-import { DUPLICATE_POINT_INCHES, REVERSAL_COSINE, STRAIGHT_TURN_SINE } from './allowance-tolerances'
+import { CLIPPER_PRECISION_DIGITS, DUPLICATE_POINT_INCHES, REVERSAL_COSINE, STRAIGHT_TURN_SINE } from './allowance-tolerances'
 import type { Point, Polygon } from './types'
 
 /** Quarter-inch seam allowance (common practice, universal in quilt piecing). */
@@ -130,7 +130,11 @@ function segmentsCross(a: Point, b: Point, c: Point, d: Point): boolean {
     Math.max(Math.min(a[1], b[1]), Math.min(c[1], d[1])) <= Math.min(Math.max(a[1], b[1]), Math.max(c[1], d[1])))
 }
 
-/** True when no two non-adjacent edges of the ring meet. O(n²): areas have tens of corners. */
+/**
+ * True when no two non-adjacent edges of the ring meet. O(n²): areas have tens of corners.
+ *
+ * @example isSimpleRing([[0, 0], [2, 2], [2, 0], [0, 2]]) // false: a bow tie
+ */
 export function isSimpleRing(ring: Polygon): boolean {
   const count = ring.length
   for (let i = 0; i < count; i += 1) {
@@ -216,9 +220,6 @@ function unitePieces(pieces: readonly (readonly Point[])[]): Point[][] {
     return united.map((path) => path.map(({ x, y }): Point => [x, y]))
   }
 }
-
-/** Clipper2 rounds to 10^−8 in: far below a needle's width, far above float noise on inches. */
-const CLIPPER_PRECISION_DIGITS = 8
 
 const normals = (ring: Polygon, i: number): Point => outwardNormal(ring[i]!, ring[(i + 1) % ring.length]!)
 

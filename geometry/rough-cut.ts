@@ -19,7 +19,9 @@
  * - a section's first area (no sewing line): the margin goes on all four sides and each
  *   rounding extra is shared equally by the two opposite sides.
  */
-import { ROUNDING_SLACK_INCHES, RECTANGLE_AREA_TIE_SQ_IN, DUPLICATE_POINT_INCHES } from './allowance-tolerances'
+import {
+  DUPLICATE_POINT_INCHES, MARGIN_ROUNDING_SLACK_INCHES, RECTANGLE_AREA_TIE_SQ_IN, ROUNDING_SLACK_INCHES,
+} from './allowance-tolerances'
 import { cuttingShape, DEFAULT_SEAM_ALLOWANCE_INCHES } from './offset'
 import { orientation } from './orientation'
 import type { Point, Polygon, Segment } from './types'
@@ -28,14 +30,6 @@ import type { Point, Polygon, Segment } from './types'
 export const DEFAULT_ROUGH_CUT_MARGIN_INCHES = 0.25
 /** Rotary-cutting rulers are marked in 1/8 in (common practice), so sizes are rounded up to it. */
 export const ROUGH_CUT_STEP_INCHES = 1 / 8
-
-/**
- * A size at most this over a 1/8 in step is cut at that step, the excess taken out of the margin
- * (never out of the cutting shape). Inches. Chords of the ring's arcs push mitred corners out by
- * up to about 0.01 in (a 9 in arc's corner: 1/4 in × half the chord angle = 0.008 in), which
- * would otherwise add a whole 1/8 in; a rotary cut is not more accurate than 1/64 in anyway.
- */
-export const MARGIN_ROUNDING_SLACK_INCHES = 1 / 64
 
 export interface RoughCut {
   /** Length of the first edge (along the sewing line), inches, a multiple of 1/8. */

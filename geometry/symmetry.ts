@@ -2,6 +2,7 @@
  * Mirroring and repeats: the printed side of a foundation, the transforms that place every repeat
  * of the ring, and scaling a design to another finished size.
  */
+import { SIMILARITY_SLACK } from './allowance-tolerances'
 import type { OutlinePath, PathSegment } from './trim-line'
 import type { Design, Point, Polygon, Ring } from './types'
 
@@ -55,7 +56,11 @@ export function compose(outer: AffineTransform, inner: AffineTransform): AffineT
   }
 }
 
-/** True when the transform turns the plane over (a mirror image), so orientations flip. */
+/**
+ * True when the transform turns the plane over (a mirror image), so orientations flip.
+ *
+ * @example isReflection(reflectionAcrossRadius(0)) // true
+ */
 export const isReflection = (transform: AffineTransform): boolean =>
   transform.xx * transform.yy - transform.xy * transform.yx < 0
 
@@ -127,12 +132,6 @@ export function applyToPath(transform: AffineTransform, path: OutlinePath): Outl
     ? { kind: 'line', from: segment.to, to: segment.from }
     : { ...segment, startAngle: segment.endAngle, endAngle: segment.startAngle, anticlockwise: !segment.anticlockwise })
 }
-
-/**
- * How far a transform's two columns may differ in length or squareness, relative to their
- * length, and still count as a similarity. Unitless; sines and cosines leave about 1e-16.
- */
-const SIMILARITY_SLACK = 1e-9
 
 /**
  * For each repeat k (0 … N−1), the transform that carries repeat 0 onto it. Rotate mode: a
