@@ -91,6 +91,10 @@ function propose(topology: Topology, arrangement: Arrangement, constraints: read
   if (result.tree) {
     const sections: LabelledSection[] = []
     const assembly = labelTree(result.tree, sections)
+    if (constraints.length > 0) {
+      const free = fewestSections(topology, []).sectionCount
+      if (free > 0 && result.sectionCount > free) problems.push(insertConflict(topology, constraints, free, result.sectionCount))
+    }
     if (result.gaveUp) {
       problems.push({
         code: 'search-limit',
@@ -104,30 +108,32 @@ function propose(topology: Topology, arrangement: Arrangement, constraints: read
   const points = arrangement.areas.map((area) => area.point)
   if (result.gaveUp) {
     problems.push({ code: 'search-gave-up', severity: 'error', message: 'This design is too large for the sewing-plan search to finish; split it with more straight seams.', at: points[0] ?? [0, 0] })
-  } else if (constraints.length > 0 && fewestSections(topology, []).tree) {
-    problems.push(insertConflict(topology, constraints))
   } else {
     problems.push(noPlanProblem(topology, createPeelSearch(topology, []), points))
   }
   return { sections: [], assembly: null, problems }
 }
 
-/** Names a smallest set of leaves that together leave no plan (deletion filter). */
-function insertConflict(topology: Topology, constraints: readonly InsertConstraint[]): Problem {
+/**
+ * Inserts never make a design unsewable (any leaf can be caught in a section join instead), but
+ * they can cost sections: names a smallest set of leaves that together force the extra ones
+ * (deletion filter: drop each leaf whose removal still leaves the count up).
+ */
+function insertConflict(topology: Topology, constraints: readonly InsertConstraint[], free: number, forced: number): Problem {
   let conflicting = [...constraints]
   // Each trial is a full search; the cap keeps a design with many leaves fast.
   if (constraints.length <= 12) {
     for (const constraint of constraints) {
       const trial = conflicting.filter((c) => c !== constraint)
-      if (!fewestSections(topology, trial).tree) conflicting = trial
+      if (fewestSections(topology, trial).sectionCount > free) conflicting = trial
     }
   }
   const ids = [...new Set(conflicting.map((c) => c.leafId))].sort()
-  const names = ids.length === 1 ? `Leaf ${ids[0]}` : `Leaves ${ids.slice(0, -1).join(', ')} and ${ids[ids.length - 1]}`
+  const names = ids.length === 1 ? `Leaf ${ids[0]} needs` : `Leaves ${ids.slice(0, -1).join(', ')} and ${ids[ids.length - 1]} need`
   return {
     code: 'insert-conflict',
-    severity: 'error',
-    message: `${names} cannot all be caught: no sewing order sews each leaf's area before the area sewn over it, and no straight join between sections catches them instead.`,
+    severity: 'warning',
+    message: `${names} an order no single foundation allows, so the seam catching them becomes a section join: ${forced} sections instead of ${free}.`,
     at: (conflicting[0] ?? constraints[0])?.at ?? [0, 0],
   }
 }

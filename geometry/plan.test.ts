@@ -1,0 +1,172 @@
+import fc from 'fast-check'
+import { describe, expect, it } from 'vitest'
+import { design, gridDesign, peelDesign, quarterWedge } from './fixtures/generators'
+import { independentJoinProblem, independentOrderProblem } from './fixtures/independent-checker'
+import { planDesign, sectionLetter, type Plan } from './plan'
+import type { Design, HandSetOrder, JoinTree, Polygon, Seam } from './types'
+
+const arc = (x: number): number => Math.sqrt(81 - x * x)
+
+/** The plan's own order, written back as an order set by hand. */
+function asHandSetOrder(plan: Plan): HandSetOrder {
+  const byId = new Map(plan.areas.map((area) => [area.id, area.point]))
+  return {
+    sections: plan.sections.map((section) => ({ label: section.label, areas: section.order.map((id) => byId.get(id)!) })),
+    assembly: plan.assembly as JoinTree,
+  }
+}
+
+const labels = (plan: Plan): Record<string, string | null> => Object.fromEntries(plan.areas.map((area) => [area.id, area.label]))
+
+const anyDesign = fc.oneof(
+  fc.record({ seed: fc.integer({ min: 1, max: 1_000_000 }), count: fc.integer({ min: 2, max: 16 }) }).map(({ seed, count }) => peelDesign(count, seed).design),
+  fc.record({ m: fc.integer({ min: 1, max: 5 }), n: fc.integer({ min: 1, max: 5 }) }).map(({ m, n }) => gridDesign(m, n)),
+)
+
+function strips(leaves: Design['leaves'] = []): Design {
+  return design({
+    seams: [
+      { id: 'low', from: [0, 2], to: [arc(2), 2] },
+      { id: 'high', from: [0, 4], to: [arc(4), 4] },
+    ],
+    leaves,
+  })
+}
+
+const leaf = (id: string, seam: string, side: 'left' | 'right') => ({ id, seam, at: 0.3, side, angle: 0, length: 1, width: 0.5, layers: ['leaf'] })
+
+describe('planDesign', () => {
+  it('labels sections A, B, … Z, AA', () => {
+    expect([0, 1, 25, 26, 27].map(sectionLetter)).toEqual(['A', 'B', 'Z', 'AA', 'AB'])
+  })
+
+  it('accepts any plan it proposes when the plan is fed back as a hand-set order', () => {
+    fc.assert(
+      fc.property(anyDesign, (d) => {
+        const proposed = planDesign(d)
+        const checked = planDesign({ ...d, order: asHandSetOrder(proposed) })
+        expect(checked.problems.filter((p) => p.severity === 'error')).toEqual([])
+        expect(checked.sewable).toBe(true)
+        expect(labels(checked)).toEqual(labels(proposed))
+      }),
+      { numRuns: 40 },
+    )
+  })
+
+  it('changes no label when the seams are listed in another order or direction', () => {
+    fc.assert(
+      fc.property(anyDesign, fc.integer({ min: 0, max: 1_000 }), (d, shuffleSeed) => {
+        let state = shuffleSeed + 1
+        const next = (): number => (state = (state * 16807) % 2147483647) / 2147483647
+        const seams: Seam[] = d.seams.map((s) => (next() < 0.5 ? { id: s.id, from: s.to, to: s.from } : s))
+        for (let i = seams.length - 1; i > 0; i -= 1) {
+          const j = Math.floor(next() * (i + 1))
+          ;[seams[i], seams[j]] = [seams[j] as Seam, seams[i] as Seam]
+        }
+        expect(labels(planDesign({ ...d, seams }))).toEqual(labels(planDesign(d)))
+      }),
+      { numRuns: 40 },
+    )
+  })
+
+  it('proposes sections and joins that an independent checker accepts', () => {
+    // published criterion (Leake et al., ACM TOG 40(4) 2021) applied to sections and to joins
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 5 }), fc.integer({ min: 1, max: 5 }), (m, n) => {
+        const plan = planDesign(gridDesign(m, n))
+        const polygon = new Map(plan.areas.map((area) => [area.id, area.polygon]))
+        const sectionPolygons = new Map(plan.sections.map((s) => [s.label, s.order.map((id) => polygon.get(id)!)]))
+        for (const areas of sectionPolygons.values()) expect(independentOrderProblem(areas)).toBeNull()
+        const visit = (tree: JoinTree): Polygon[] => {
+          if (typeof tree === 'string') return sectionPolygons.get(tree) ?? []
+          const first = visit(tree[0])
+          const second = visit(tree[1])
+          expect(independentJoinProblem(first, second)).toBeNull()
+          return [...first, ...second]
+        }
+        expect(visit(plan.assembly as JoinTree)).toHaveLength(m * n)
+      }),
+      { numRuns: 25 },
+    )
+  })
+
+  it('gives every step its sewing line, and the first of a section none', () => {
+    const plan = planDesign(strips())
+    expect(plan.areas.map((a) => a.label)).toEqual(['A1', 'A2', 'A3'])
+    expect(plan.areas[0]?.sewnAlong).toBeNull()
+    for (const area of plan.areas.slice(1)) expect(area.sewnAlong).not.toBeNull()
+    // 1/8 in steps (common practice: rotary rulers); the rough cut covers at least the area
+    for (const area of plan.areas) expect((area.roughCut.widthIn * 8) % 1).toBeCloseTo(0, 9)
+  })
+
+  it('bastes a leaf on the area it lies over before the next one is sewn', () => {
+    // seam "low" runs from the y axis to the arc (left to right), so its left side is above it
+    const plan = planDesign(strips([leaf('l1', 'low', 'left')]))
+    const middle = plan.areas.find((a) => a.point[1] > 2 && a.point[1] < 4)!
+    const bottom = plan.areas.find((a) => a.point[1] < 2)!
+    expect(plan.sections).toHaveLength(1)
+    expect((middle.step ?? 0) < (bottom.step ?? 0)).toBe(true)
+    expect(bottom.leavesBefore).toEqual(['l1'])
+  })
+
+  it('turns a seam into a section join when leaves on both sides need opposite orders, and says so', () => {
+    const plan = planDesign(strips([leaf('l1', 'low', 'left'), leaf('l2', 'low', 'right')]))
+    expect(plan.sewable).toBe(true)
+    expect(plan.sections).toHaveLength(2)
+    const conflict = plan.problems.find((p) => p.code === 'insert-conflict')
+    expect(conflict?.message).toMatch(/Leaves l1 and l2/)
+    expect(conflict?.at[1]).toBeCloseTo(2, 9)
+  })
+
+  it('checks a hand-set order instead of proposing one, naming the failing step', () => {
+    const d = strips()
+    const plan = planDesign({ ...d, order: { sections: [{ label: 'A', areas: [[1, 1], [1, 5], [1, 3]] }] } })
+    expect(plan.sewable).toBe(false)
+    expect(plan.problems.map((p) => p.message)).toEqual(['A2 does not meet the sewn areas along a seam.', 'A3 meets the sewn areas along two lines.'])
+    // the problem is placed on the failing step's area (the top strip, y > 4)
+    expect(plan.problems[0]?.at[1]).toBeGreaterThan(4)
+  })
+
+  it('names a leaf basted too late in a hand-set order', () => {
+    const d = strips([leaf('l2', 'low', 'left')])
+    const plan = planDesign({ ...d, order: { sections: [{ label: 'A', areas: [[1, 1], [1, 3], [1, 5]] }] } })
+    expect(plan.problems.map((p) => p.message)).toEqual(['Leaf l2 must be basted on A2 before A1 is sewn, but A2 comes later.'])
+  })
+
+  it('rejects a hand-set join tree that joins along two lines', () => {
+    const grid = gridDesign(2, 2)
+    const proposed = planDesign(grid)
+    const order = asHandSetOrder(proposed)
+    // split the 2 × 2 grid into its four cells and join them round the crossing: A+D touch at a point only
+    const cells = proposed.areas.map((a) => a.point)
+    const plan = planDesign({ ...grid, order: { sections: cells.map((point, index) => ({ label: `S${index}`, areas: [point] })), assembly: [['S0', 'S3'], ['S1', 'S2']] } })
+    expect(order.sections).toHaveLength(2)
+    expect(plan.sewable).toBe(false)
+    expect(plan.problems.some((p) => p.code === 'join-not-straight')).toBe(true)
+  })
+
+  it('warns at the centre of an odd wedge ring and joins even wedges in halves', () => {
+    const odd = planDesign(design({ ring: { ...quarterWedge, repeats: 5 }, seams: [{ id: 's1', from: [3, 0], to: [2 * Math.cos((2 * Math.PI) / 5), 2 * Math.sin((2 * Math.PI) / 5)] }] }))
+    expect(odd.ringAssembly.kind).toBe('none')
+    expect(odd.sewable).toBe(true)
+    const warning = odd.problems.find((p) => p.code === 'odd-wedge-centre')
+    expect(warning?.at).toEqual([0, 0])
+    expect(warning?.severity).toBe('warning')
+    expect(planDesign(design()).ringAssembly.kind).toBe('halves')
+    expect(planDesign(design({ ring: { ...quarterWedge, innerRadius: 2, repeats: 5 } })).ringAssembly.kind).toBe('chain')
+  })
+
+  it('places a set-in seam at its point', () => {
+    const plan = planDesign(
+      design({
+        seams: [
+          { id: 'a', from: [4, 4], to: [4, 0] },
+          { id: 'b', from: [4, 4], to: [0, 6] },
+          { id: 'c', from: [4, 4], to: [9 * Math.SQRT1_2, 9 * Math.SQRT1_2] },
+        ],
+      }),
+    )
+    expect(plan.sewable).toBe(false)
+    expect(plan.problems.map((p) => [p.code, p.at])).toEqual([['set-in-seam', [4, 4]]])
+  })
+})
