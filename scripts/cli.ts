@@ -6,6 +6,7 @@
  * "Command-line contract").
  */
 import { readFileSync } from 'node:fs'
+import { pathToFileURL } from 'node:url'
 import { planDesign } from '../geometry/plan'
 import { formatDesignIssue, parseDesign } from '../lib/schemas/design'
 
@@ -39,31 +40,47 @@ function readDesign(path: string | undefined): ReturnType<typeof parseDesign> & 
   return result
 }
 
-function plan(args: readonly string[]): number {
-  const { design } = readDesign(args[0])
-  process.stdout.write(`${JSON.stringify(planDesign(design), null, 2)}\n`)
-  return 0
+/** What a run writes and returns, so tests can run the CLI in-process. */
+export interface CliResult {
+  readonly code: number
+  readonly stdout: string
+  readonly stderr: string
 }
 
-/** Added by a later issue: the PDF booklet. */
-function pdf(): number {
+function plan(args: readonly string[]): CliResult {
+  const { design } = readDesign(args[0])
+  return { code: 0, stdout: `${JSON.stringify(planDesign(design), null, 2)}\n`, stderr: '' }
+}
+
+/** Added by a later issue: the PDF booklet (`pdf <design.json> --paper … --out <file.pdf>`). */
+function pdf(): CliResult {
   throw new UsageError('pdf: not available yet')
 }
 
-const commands: Record<string, (args: readonly string[]) => number> = { plan, pdf }
+const commands: Record<string, (args: readonly string[]) => CliResult> = { plan, pdf }
 
-function main(argv: readonly string[]): number {
-  const [name, ...args] = argv
-  const command = name ? commands[name] : undefined
-  if (!command) throw new UsageError(`usage: cli <${Object.keys(commands).join('|')}> <design.json> …`)
-  return command(args)
+/**
+ * Runs one command line (without `node` and the script) and returns its exit code and output.
+ * Never throws: invalid input and unexpected failures alike become one line on stderr, exit 2.
+ *
+ * @example runCli(['plan', 'design.json']).code // 0, or 2 for an invalid design
+ */
+export function runCli(argv: readonly string[]): CliResult {
+  try {
+    const [name, ...args] = argv
+    const command = name ? commands[name] : undefined
+    if (!command) throw new UsageError(`usage: cli <${Object.keys(commands).join('|')}> <design.json> …`)
+    return command(args)
+  } catch (error) {
+    // Anything unexpected is still one line: a stack trace is no message for a designer.
+    const message = error instanceof UsageError ? error.message : `internal error: ${error instanceof Error ? error.message : String(error)}`
+    return { code: 2, stdout: '', stderr: `${oneLine(message)}\n` }
+  }
 }
 
-try {
-  process.exitCode = main(process.argv.slice(2))
-} catch (error) {
-  // Anything unexpected is still one line: a stack trace is no message for a designer.
-  const message = error instanceof UsageError ? error.message : `internal error: ${error instanceof Error ? error.message : String(error)}`
-  process.stderr.write(`${oneLine(message)}\n`)
-  process.exitCode = 2
+if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
+  const result = runCli(process.argv.slice(2))
+  process.stdout.write(result.stdout)
+  process.stderr.write(result.stderr)
+  process.exitCode = result.code
 }

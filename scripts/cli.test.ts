@@ -1,0 +1,117 @@
+import { spawnSync } from 'node:child_process'
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
+import fc from 'fast-check'
+import { afterAll, describe, expect, it } from 'vitest'
+import { runCli } from './cli'
+
+const folder = mkdtempSync(join(tmpdir(), 'wreathwright-cli-'))
+let written = 0
+function file(text: string): string {
+  const path = join(folder, `design-${(written += 1)}.json`)
+  writeFileSync(path, text)
+  return path
+}
+
+const valid = {
+  format: 'wreathwright-design',
+  version: 1,
+  name: 'X',
+  units: 'in',
+  ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
+  seams: [
+    { id: 's1', from: [3, 0], to: [3, Math.sqrt(72)] },
+    { id: 's2', from: [0, 3], to: [Math.sqrt(72), 3] },
+  ],
+  leaves: [{ id: 'l1', seam: 's1', at: 0.2, side: 'left', length: 1, width: 0.5, layers: ['a'] }],
+  order: null,
+}
+
+/** The CLI contract of geometry.md: exit 0 with a JSON plan, or exit 2 with one line and no stack. */
+function expectContract(result: ReturnType<typeof runCli>): void {
+  expect([0, 2]).toContain(result.code)
+  if (result.code === 0) {
+    expect(result.stderr).toBe('')
+    expect(JSON.parse(result.stdout)).toHaveProperty('sewable')
+  } else {
+    expect(result.stdout).toBe('')
+    expect(result.stderr.trimEnd().split('\n')).toHaveLength(1)
+    expect(result.stderr).not.toMatch(/\n\s+at /)
+  }
+}
+
+describe('cli plan', () => {
+  afterAll(() => rmSync(folder, { recursive: true, force: true }))
+
+  it('prints a plan for a valid design and exits 0', () => {
+    const result = runCli(['plan', file(JSON.stringify(valid))])
+    expect(result.code).toBe(0)
+    const plan = JSON.parse(result.stdout)
+    expect(plan.sections).toHaveLength(2)
+  })
+
+  it('exits 0 with a plan that says why when the design cannot be sewn', () => {
+    const dangling = { ...valid, seams: [{ id: 's1', from: [3, 0], to: [3, 2] }], leaves: [] }
+    const result = runCli(['plan', file(JSON.stringify(dangling))])
+    expect(result.code).toBe(0)
+    expect(JSON.parse(result.stdout).sewable).toBe(false)
+  })
+
+  it('exits 2 with one line for malformed JSON, a wrong version, a negative radius and NaN', () => {
+    const cases = ['{"format": ', JSON.stringify({ ...valid, version: 2 }), JSON.stringify({ ...valid, ring: { ...valid.ring, outerRadius: -3 } }), JSON.stringify(valid).replace('"to":[3,', '"to":[NaN,')]
+    for (const text of cases) {
+      const result = runCli(['plan', file(text)])
+      expect(result.code, text).toBe(2)
+      expectContract(result)
+    }
+    expect(runCli(['plan', file(JSON.stringify({ ...valid, version: 2 }))]).stderr).toMatch(/version/)
+  })
+
+  it('says pdf is not available yet', () => {
+    expect(runCli(['pdf', 'x.json'])).toEqual({ code: 2, stdout: '', stderr: 'pdf: not available yet\n' })
+  })
+
+  it('never crashes on fuzzed JSON', () => {
+    fc.assert(
+      fc.property(fc.jsonValue(), (json) => {
+        expectContract(runCli(['plan', file(JSON.stringify(json))]))
+      }),
+      { numRuns: 150 },
+    )
+  })
+
+  it('never crashes on valid designs with one field fuzzed', () => {
+    const paths = [['name'], ['units'], ['ring', 'innerRadius'], ['ring', 'outerRadius'], ['ring', 'repeats'], ['ring', 'repeatMode'], ['seams', 0, 'from'], ['seams', 0, 'to', 1], ['seams', 1], ['leaves', 0, 'seam'], ['leaves', 0, 'at'], ['order'], ['extra']] as const
+    fc.assert(
+      fc.property(fc.constantFrom(...paths), fc.jsonValue(), (path, value) => {
+        const copy = structuredClone(valid) as Record<string, unknown>
+        let node = copy as Record<string | number, unknown>
+        for (const key of path.slice(0, -1)) node = node[key] as Record<string | number, unknown>
+        node[path[path.length - 1] as string | number] = value
+        expectContract(runCli(['plan', file(JSON.stringify(copy))]))
+      }),
+      { numRuns: 300 },
+    )
+  })
+
+  it('never crashes on random seams in a valid file', () => {
+    const point = fc.tuple(fc.double({ min: -20, max: 20, noNaN: true }), fc.double({ min: -20, max: 20, noNaN: true }))
+    fc.assert(
+      fc.property(fc.array(fc.tuple(point, point), { maxLength: 6 }), fc.integer({ min: 2, max: 36 }), (pairs, repeats) => {
+        const design = { ...valid, ring: { ...valid.ring, repeats }, leaves: [], seams: pairs.map(([from, to], i) => ({ id: `s${i}`, from, to })) }
+        const result = runCli(['plan', file(JSON.stringify(design))])
+        expect(result.code).toBe(0)
+        expectContract(result)
+      }),
+      { numRuns: 150 },
+    )
+  })
+
+  it('as a real process: exit code 2 and one line on stderr, no stack trace', () => {
+    const run = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/cli.ts', 'plan', file('[1, 2')], { encoding: 'utf8', cwd: join(import.meta.dirname, '..') })
+    expect(run.status).toBe(2)
+    expect(run.stdout).toBe('')
+    expect(run.stderr.trimEnd().split('\n')).toHaveLength(1)
+  })
+})
