@@ -205,12 +205,15 @@ function unionOffset(ring: Polygon, allowance: number, mitreLimit: number): Poly
 }
 
 /**
- * Outer rings of the union of counter-clockwise pieces. polygon-clipping works in floating point
- * and keeps our exact coordinates, but 0.15.7 can fail to close a ring on near-degenerate input
- * (seen about once in 500 unions of spiky polygons); clipper2-ts then unites on its 1e-8 in
- * integer grid, which cannot fail that way.
+ * Outer rings of the union of counter-clockwise pieces (holes dropped). polygon-clipping works in
+ * floating point and keeps our exact coordinates, but 0.15.7 can fail to close a ring on
+ * near-degenerate input (seen about once in 500 unions of spiky polygons); clipper2-ts then
+ * unites on its 1e-8 in integer grid, which cannot fail that way.
+ *
+ * @example unitePieces([[[0, 0], [1, 0], [1, 1], [0, 1]], [[1, 0], [2, 0], [2, 1], [1, 1]]])
+ * // one ring: the 2 × 1 in rectangle
  */
-function unitePieces(pieces: readonly (readonly Point[])[]): Point[][] {
+export function unitePieces(pieces: readonly (readonly Point[])[]): Point[][] {
   const asRings = pieces.map((piece): polygonClipping.Polygon => [piece.map(([x, y]): [number, number] => [x, y])])
   try {
     const [first, ...rest] = asRings

@@ -3,7 +3,7 @@ import { EndType, inflatePathsD, JoinType } from 'clipper2-ts'
 import { describe, expect, it } from 'vitest'
 import { polygonArea } from './offset'
 import {
-  arcSweep, endOf, outlineFromPolygon, pathToPolygon, repeatOutline, startOf, trimLine,
+  arcSweep, endOf, outlineFromPolygon, pathToPolygon, repeatOutline, sectionTrimLine, startOf, trimLine,
   type ArcPathSegment, type OutlinePath, type PathSegment,
 } from './trim-line'
 import type { Point, Ring } from './types'
@@ -160,6 +160,25 @@ describe('trim lines of a repeat', () => {
     const { polygon } = trimLine(notched)
     // 4.5 × 4.5 in: the 0.3 in notch is filled by the allowances on both its walls.
     expect(polygonArea(polygon)).toBeCloseTo(4.5 * 4.5, 9)
+  })
+})
+
+describe('trim lines of sections given as plan areas', () => {
+  it('trims two areas of a repeat exactly as the whole repeat', () => {
+    // Repeat 0 of a 4-repeat ring (radii 2 and 9) cut by a seam from (5, 0) to (0, 5).
+    const r = ring({ innerRadius: 2 })
+    const whole = pathToPolygon(repeatOutline(r))
+    const seam: [Point, Point] = [[5, 0], [0, 5]]
+    const side = (p: Point): number => (seam[1][0] - seam[0][0]) * (p[1] - seam[0][1]) - (seam[1][1] - seam[0][1]) * (p[0] - seam[0][0])
+    // Left of the seam's direction is the centre's side.
+    const near = whole.filter((p) => side(p) > 0)
+    const far = whole.filter((p) => side(p) < 0)
+    // Both halves as the plan would list them, counter-clockwise, sharing the seam.
+    const inner: Point[] = [...near.slice(0, 1), [5, 0], [0, 5], ...near.slice(1)]
+    const outer: Point[] = [[5, 0], ...far, [0, 5]]
+    const { path } = sectionTrimLine([inner, outer], r)
+    expect(Math.abs(pathArea(path) - pathArea(trimLine(repeatOutline(r)).path))).toBeLessThan(EXACT_AREA_SQ_IN)
+    expect(path.filter((segment) => segment.kind === 'arc')).toHaveLength(2)
   })
 })
 

@@ -19,7 +19,9 @@
  * the angles and flip the flag (as canvas `arc()` and SVG's sweep flag read it).
  */
 import { ON_CIRCLE_INCHES, STRAIGHT_TURN_SINE } from './allowance-tolerances'
-import { cuttingShape, DEFAULT_MITRE_LIMIT, DEFAULT_SEAM_ALLOWANCE_INCHES, isSimpleRing, polygonArea } from './offset'
+import {
+  cuttingShape, DEFAULT_MITRE_LIMIT, DEFAULT_SEAM_ALLOWANCE_INCHES, isSimpleRing, normalizeRing, polygonArea, unitePieces,
+} from './offset'
 import { ARC_CHORD_TOLERANCE_INCHES } from './tolerances'
 import type { Point, Polygon, Ring } from './types'
 
@@ -350,4 +352,20 @@ export function outlineFromPolygon(polygon: Polygon, ring: Ring): OutlinePath {
     step += run
   }
   return path
+}
+
+/**
+ * The trim line of a section given its areas as the plan gives them (counter-clockwise
+ * polygons, arcs as chords): their union's outer boundary, read back into lines and arcs, moved
+ * out by the allowance. A section is one connected piece of paper; were its areas ever to enclose
+ * a hole, the trim line follows the outside only.
+ *
+ * @example sectionTrimLine(plan.areas.filter((a) => a.section === 'A').map((a) => a.polygon), design.ring)
+ */
+export function sectionTrimLine(areas: readonly Polygon[], ring: Ring, options: TrimLineOptions = {}): TrimLine {
+  if (areas.length === 0) throw new RangeError('a section needs at least one area')
+  const outline = unitePieces(areas.map(normalizeRing))
+    .map(normalizeRing)
+    .reduce((best, ring) => (polygonArea(ring) > polygonArea(best) ? ring : best))
+  return trimLine(outlineFromPolygon(outline, ring), options)
 }
