@@ -31,11 +31,14 @@ function run(binary: string, args: string[], options: { quiet?: boolean } = {}):
   return result.stdout
 }
 
-/** Can the postgres user reach this folder? A folder under a 0700 parent such as /root cannot. */
-function isReachableByPostgres(folder: string): boolean {
+/**
+ * Can the postgres user reach a folder inside `parent`? It needs to pass through every folder above;
+ * one under a 0700 folder such as /root cannot. (We create the data folder itself as root and hand
+ * it to postgres, so postgres needs no write access to the parent.)
+ */
+function isReachableByPostgres(parent: string): boolean {
   if (!isRoot) return true
-  const parent = path.dirname(folder)
-  return spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-x', parent, '-a', '-w', parent], { cwd: '/' }).status === 0
+  return spawnSync('runuser', ['-u', 'postgres', '--', 'test', '-x', parent], { cwd: '/' }).status === 0
 }
 
 /**
@@ -44,9 +47,9 @@ function isReachableByPostgres(folder: string): boolean {
  * the project's path and port.
  */
 export function projectClusterFolder(projectRoot: string, port: number): string {
-  const local = path.join(projectRoot, '.data', `postgres-${port}`)
-  fs.mkdirSync(path.dirname(local), { recursive: true })
-  if (isReachableByPostgres(local)) return local
+  const dataFolder = path.join(projectRoot, '.data')
+  fs.mkdirSync(dataFolder, { recursive: true, mode: 0o755 })
+  if (isReachableByPostgres(dataFolder)) return path.join(dataFolder, `postgres-${port}`)
   const tag = createHash('sha256').update(projectRoot).digest('hex').slice(0, 10)
   return path.join('/var/lib/wreathwright', `${tag}-${port}`)
 }

@@ -55,7 +55,7 @@ function readCounts(file: string): { passed: number; failed: number; skipped: nu
 
 const vitest = (projects: string[], report: string, env: NodeJS.ProcessEnv) =>
   run('npx', ['vitest', 'run', ...projects.flatMap((p) => ['--project', p]), '--reporter=default', '--reporter=json',
-    `--outputFile.json=${report}`, ...filters], env)
+    `--outputFile.json=${report}`, ...(filters.length > 0 ? ['--passWithNoTests', ...filters] : [])], env)
 
 const failedSteps: string[] = []
 try {
