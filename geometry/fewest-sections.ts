@@ -25,6 +25,9 @@ export interface Cut {
   readonly first: AreaSet
   readonly second: AreaSet
   readonly along: Segment
+  /** Memo keys of the two parts. */
+  readonly firstKey: string
+  readonly secondKey: string
 }
 
 export interface FewestSectionsResult {
@@ -59,7 +62,15 @@ export function cutsOf(topology: Topology, unit: AreaSet, allowed?: (cut: Cut) =
   }
   const members = areaMembers(unit)
   const seen = new Set<string>()
-  for (const line of topology.lines) {
+  // Only the seam lines with an edge inside the unit can cut it.
+  const lineIds = new Set<number>()
+  for (const area of members) {
+    for (const neighbour of topology.neighbours[area] ?? []) {
+      if (neighbour.area > area && hasArea(unit, neighbour.area)) for (const edge of neighbour.edges) lineIds.add(topology.seamEdges[edge]!.line)
+    }
+  }
+  for (const lineId of [...lineIds].sort((a, b) => a - b)) {
+    const line = topology.lines[lineId]!
     let start = 0
     while (start < line.edges.length) {
       if (!interior(line.edges[start] as number)) {
@@ -81,7 +92,7 @@ export function cutsOf(topology: Topology, unit: AreaSet, allowed?: (cut: Cut) =
           if (seen.has(key)) continue
           seen.add(key)
           const along: Segment = [topology.vertices[line.vertices[from] as number]!, topology.vertices[line.vertices[to] as number]!]
-          const full = { ...cut, along }
+          const full = { ...cut, along, firstKey: key, secondKey: areaSetKey(cut.second) }
           if (!allowed || allowed(full)) cuts.push(full)
         }
       }
@@ -175,17 +186,15 @@ interface SearchState {
   gaveUp: boolean
 }
 
-function lowerBound(state: SearchState, unit: AreaSet): number {
-  const key = areaSetKey(unit)
+function lowerBound(state: SearchState, key: string): number {
   const exact = state.exact.get(key)
   if (exact) return exact.count
   return state.atLeast.get(key) ?? 1
 }
 
 /** The best plan of `unit` using fewer than `limit` sections, or null when none exists below it. */
-function solve(state: SearchState, unit: AreaSet, limit: number): Solved | null {
+function solve(state: SearchState, unit: AreaSet, limit: number, key = areaSetKey(unit)): Solved | null {
   if (limit <= 1) return null
-  const key = areaSetKey(unit)
   const exact = state.exact.get(key)
   if (exact !== undefined) return exact && exact.count < limit ? exact : null
   if ((state.atLeast.get(key) ?? 1) >= limit) return null
@@ -205,10 +214,10 @@ function solve(state: SearchState, unit: AreaSet, limit: number): Solved | null 
   for (const cut of cutsOf(state.topology, unit)) {
     if (bound <= 2) break
     // Each part needs at least what the memo already proved; skip cuts that cannot beat the bound.
-    if (lowerBound(state, cut.first) + lowerBound(state, cut.second) >= bound) continue
-    const first = solve(state, cut.first, bound - 1)
+    if (lowerBound(state, cut.firstKey) + lowerBound(state, cut.secondKey) >= bound) continue
+    const first = solve(state, cut.first, bound - 1, cut.firstKey)
     if (!first) continue
-    const second = solve(state, cut.second, bound - first.count)
+    const second = solve(state, cut.second, bound - first.count, cut.secondKey)
     if (!second) continue
     best = { tree: { kind: 'join', first: first.tree, second: second.tree, along: cut.along }, count: first.count + second.count }
     bound = best.count

@@ -30,6 +30,9 @@ export function repeatSpan(ring: Ring): number {
 export function chordCount(radius: number, span: number): number {
   if (radius <= ARC_CHORD_TOLERANCE_INCHES) return 1
   const maximumAngle = 2 * Math.acos(1 - ARC_CHORD_TOLERANCE_INCHES / radius)
+  // A radius so large that the angle underflows to 0 is a programmer error upstream (the schema
+  // caps radii); never loop forever on it.
+  if (!(maximumAngle > 0)) throw new RangeError(`radius ${radius} in is too large to draw as chords`)
   return Math.max(1, Math.ceil(span / maximumAngle))
 }
 

@@ -124,9 +124,24 @@ export function createPeelSearch(topology: Topology, constraints: readonly Inser
 
 /** Whether `area` can be the last area sewn of `set`: one straight segment with the rest, no insert broken. */
 export function canPeel(search: PeelSearch, set: AreaSet, area: number): boolean {
-  const rest = withoutArea(set, area)
-  for (const later of search.mustPrecede[area] ?? []) if (hasArea(rest, later)) return false
-  return boundaryOfEdges(search.topology, edgesBetweenAreaAndSet(search.topology, area, rest)).kind === 'segment'
+  for (const later of search.mustPrecede[area] ?? []) if (later !== area && hasArea(set, later)) return false
+  // The same test as boundaryOfEdges, without building the edge list: this is the inner loop.
+  let line = -1
+  let low = Infinity
+  let high = -Infinity
+  let count = 0
+  for (const neighbour of search.topology.neighbours[area] ?? []) {
+    if (neighbour.area === area || !hasArea(set, neighbour.area)) continue
+    for (const edge of neighbour.edges) {
+      const e = search.topology.seamEdges[edge] as { line: number; position: number }
+      if (line === -1) line = e.line
+      else if (e.line !== line) return false
+      if (e.position < low) low = e.position
+      if (e.position > high) high = e.position
+      count += 1
+    }
+  }
+  return count > 0 && high - low + 1 === count
 }
 
 /** Whether the areas of a set are connected through seam edges (a section must be). */

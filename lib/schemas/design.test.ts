@@ -66,6 +66,10 @@ describe('parseDesign', () => {
     expect(firstIssuePath(designFile({ ring: { innerRadius: 0, outerRadius: 3, repeats: 2.5, repeatMode: 'rotate' } }))).toBe('ring.repeats')
   })
 
+  it('rejects a runaway radius (no quilt ring is 1000 units across its radius)', () => {
+    expect(firstIssuePath(designFile({ ring: { innerRadius: 0, outerRadius: 1e12, repeats: 4, repeatMode: 'rotate' } }))).toBe('ring.outerRadius')
+  })
+
   it('rejects mirror mode with an odd number of repeats', () => {
     expect(firstIssuePath(designFile({ ring: { innerRadius: 0, outerRadius: 3, repeats: 5, repeatMode: 'mirror' } }))).toBe('ring.repeatMode')
   })

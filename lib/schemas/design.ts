@@ -43,10 +43,16 @@ const handSetOrder = z.strictObject({
   assembly: joinTree.nullable().optional(),
 })
 
+/**
+ * Radii above this are refused: no quilt ring is that large, and the outline's chord count grows
+ * with the radius (a runaway value would make an outline of millions of chords). File units.
+ */
+const MAXIMUM_RADIUS = 1000
+
 const ring = z
   .strictObject({
-    innerRadius: finite.min(0),
-    outerRadius: positive,
+    innerRadius: finite.min(0).max(MAXIMUM_RADIUS),
+    outerRadius: positive.max(MAXIMUM_RADIUS),
     repeats: z.number().int().min(2).max(36),
     repeatMode: z.enum(['rotate', 'mirror']),
   })
