@@ -1,0 +1,305 @@
+/**
+ * Every change a designer can make on the drafting board, as named commands in one table. A
+ * command takes the design and its arguments and returns the next design; it never mutates its
+ * input. The mouse, the keyboard, the panels and the tests all go through this table.
+ */
+import type { DesignFile } from '@/lib/schemas/design'
+
+type Point = [number, number]
+type Seam = DesignFile['seams'][number]
+type Leaf = NonNullable<DesignFile['leaves']>[number]
+type Berry = NonNullable<DesignFile['berries']>[number]
+type StemRing = NonNullable<DesignFile['stems']>[number]
+type Colorway = NonNullable<DesignFile['colorways']>[number]
+export type BoardRing = DesignFile['ring']
+export type HandOrder = NonNullable<DesignFile['order']>
+
+/** A design with every optional list present, as the board keeps it. */
+export type BoardDesign = DesignFile & {
+  fills: NonNullable<DesignFile['fills']>
+  leaves: Leaf[]
+  stems: StemRing[]
+  berries: Berry[]
+  curls: NonNullable<DesignFile['curls']>
+  colorways: Colorway[]
+  order: HandOrder | null
+}
+
+export function normalizeDesign(design: DesignFile): BoardDesign {
+  return {
+    ...design,
+    fills: design.fills ?? [],
+    leaves: design.leaves ?? [],
+    stems: design.stems ?? [],
+    berries: design.berries ?? [],
+    curls: design.curls ?? [],
+    colorways: design.colorways && design.colorways.length > 0 ? design.colorways : [{ name: 'Main', fabrics: {} }],
+    order: design.order ?? null,
+  }
+}
+
+export interface Command<Args> {
+  readonly name: string
+  readonly run: (design: BoardDesign, args: Args) => BoardDesign
+}
+
+export function defineCommand<Args>(command: Command<Args>): Command<Args> {
+  return command
+}
+
+/** The smallest id of the form `prefix` + number that no item uses. */
+export function nextId(prefix: string, taken: readonly { id: string }[]): string {
+  const used = new Set(taken.map((item) => item.id))
+  let n = 1
+  while (used.has(`${prefix}${n}`)) n += 1
+  return `${prefix}${n}`
+}
+
+const round = (value: number) => Math.round(value * 10_000) / 10_000
+const roundPoint = (p: readonly [number, number]): Point => [round(p[0]), round(p[1])]
+const samePoint = (a: readonly number[], b: readonly number[]) => a[0] === b[0] && a[1] === b[1]
+
+/** Changing the drawing invalidates an order set by hand only when areas may have changed. */
+const withoutHandOrder = (design: BoardDesign): BoardDesign => (design.order ? { ...design, order: null } : design)
+
+export const setRing = defineCommand({
+  name: 'set-ring',
+  run: (design, ring: Partial<BoardRing>) => ({ ...design, ring: { ...design.ring, ...ring } }),
+})
+
+export const addSeam = defineCommand({
+  name: 'add-seam',
+  run: (design, { from, to, id }: { from: Point; to: Point; id?: string }) => {
+    if (samePoint(roundPoint(from), roundPoint(to))) return design
+    const seam: Seam = { id: id ?? nextId('s', design.seams), from: roundPoint(from), to: roundPoint(to) }
+    return withoutHandOrder({ ...design, seams: [...design.seams, seam] })
+  },
+})
+
+export const moveSeamEnd = defineCommand({
+  name: 'move-seam-end',
+  run: (design, { seamId, end, to }: { seamId: string; end: 'from' | 'to'; to: Point }) => ({
+    ...design,
+    seams: design.seams.map((seam) => (seam.id === seamId ? { ...seam, [end]: roundPoint(to) } : seam)),
+  }),
+})
+
+/** Moves a whole seam by an offset, both ends together. */
+export const moveSeam = defineCommand({
+  name: 'move-seam',
+  run: (design, { seamId, by }: { seamId: string; by: Point }) => ({
+    ...design,
+    seams: design.seams.map((seam) =>
+      seam.id === seamId
+        ? { ...seam, from: roundPoint([seam.from[0] + by[0], seam.from[1] + by[1]]), to: roundPoint([seam.to[0] + by[0], seam.to[1] + by[1]]) }
+        : seam,
+    ),
+  }),
+})
+
+/** Deletes a seam and the leaves caught in it. */
+export const deleteSeam = defineCommand({
+  name: 'delete-seam',
+  run: (design, { seamId }: { seamId: string }) =>
+    withoutHandOrder({
+      ...design,
+      seams: design.seams.filter((seam) => seam.id !== seamId),
+      leaves: design.leaves.filter((leaf) => leaf.seam !== seamId),
+    }),
+})
+
+/**
+ * Fills the area around a point with a fabric. One fill per area: `replacing` lists points of
+ * earlier fills that name the same area (the board finds them through the plan).
+ */
+export const fillArea = defineCommand({
+  name: 'fill-area',
+  run: (design, { at, fabric, replacing = [] }: { at: Point; fabric: string; replacing?: readonly Point[] }) => ({
+    ...design,
+    fills: [
+      ...design.fills.filter((fill) => !replacing.some((point) => samePoint(point, fill.at))),
+      { at: roundPoint(at), fabric },
+    ],
+  }),
+})
+
+export const clearFill = defineCommand({
+  name: 'clear-fill',
+  run: (design, { points }: { points: readonly Point[] }) => ({
+    ...design,
+    fills: design.fills.filter((fill) => !points.some((point) => samePoint(point, fill.at))),
+  }),
+})
+
+/** The fabric roles of a colourway, with their colours; roles are shared by every colourway. */
+export const setFabricColour = defineCommand({
+  name: 'set-fabric-colour',
+  run: (design, { colorway, fabric, colour }: { colorway: string; fabric: string; colour: string }) => ({
+    ...design,
+    colorways: design.colorways.map((c) => (c.name === colorway ? { ...c, fabrics: { ...c.fabrics, [fabric]: colour } } : c)),
+  }),
+})
+
+/** Adds a fabric role to every colourway, each with the given starting colour. */
+export const addFabric = defineCommand({
+  name: 'add-fabric',
+  run: (design, { fabric, colour }: { fabric: string; colour: string }) => ({
+    ...design,
+    colorways: design.colorways.map((c) => (fabric in c.fabrics ? c : { ...c, fabrics: { ...c.fabrics, [fabric]: colour } })),
+  }),
+})
+
+/** A new colourway starts as a copy of another, to be recoloured. */
+export const addColorway = defineCommand({
+  name: 'add-colorway',
+  run: (design, { name, copyOf }: { name: string; copyOf?: string }) => {
+    if (design.colorways.some((c) => c.name === name)) return design
+    const source = design.colorways.find((c) => c.name === copyOf) ?? design.colorways[0]
+    return { ...design, colorways: [...design.colorways, { name, fabrics: { ...(source?.fabrics ?? {}) } }] }
+  },
+})
+
+export const addLeaf = defineCommand({
+  name: 'add-leaf',
+  run: (design, leaf: Omit<Leaf, 'id'> & { id?: string }) => {
+    if (!design.seams.some((seam) => seam.id === leaf.seam)) return design
+    return { ...design, leaves: [...design.leaves, { angle: 0, ...leaf, id: leaf.id ?? nextId('l', design.leaves) }] }
+  },
+})
+
+export const updateLeaf = defineCommand({
+  name: 'update-leaf',
+  run: (design, { leafId, changes }: { leafId: string; changes: Partial<Omit<Leaf, 'id'>> }) => ({
+    ...design,
+    leaves: design.leaves.map((leaf) => (leaf.id === leafId ? { ...leaf, ...changes } : leaf)),
+  }),
+})
+
+export const flipLeafSide = defineCommand({
+  name: 'flip-leaf-side',
+  run: (design, { leafId }: { leafId: string }) => ({
+    ...design,
+    leaves: design.leaves.map((leaf) =>
+      leaf.id === leafId ? { ...leaf, side: leaf.side === 'left' ? ('right' as const) : ('left' as const) } : leaf,
+    ),
+  }),
+})
+
+export const deleteLeaf = defineCommand({
+  name: 'delete-leaf',
+  run: (design, { leafId }: { leafId: string }) => ({ ...design, leaves: design.leaves.filter((leaf) => leaf.id !== leafId) }),
+})
+
+/** One appliqué stem ring per design: setting it replaces the old one; null removes it. */
+export const setStemRing = defineCommand({
+  name: 'set-stem-ring',
+  run: (design, stem: StemRing | null) => ({ ...design, stems: stem ? [{ ...stem, radius: round(stem.radius) }] : [] }),
+})
+
+export const addBerry = defineCommand({
+  name: 'add-berry',
+  run: (design, berry: Berry) => ({ ...design, berries: [...design.berries, { ...berry, at: roundPoint(berry.at) }] }),
+})
+
+export const updateBerry = defineCommand({
+  name: 'update-berry',
+  run: (design, { index, changes }: { index: number; changes: Partial<Berry> }) => ({
+    ...design,
+    berries: design.berries.map((berry, i) => (i === index ? { ...berry, ...changes, at: roundPoint(changes.at ?? berry.at) } : berry)),
+  }),
+})
+
+export const deleteBerry = defineCommand({
+  name: 'delete-berry',
+  run: (design, { index }: { index: number }) => ({ ...design, berries: design.berries.filter((_, i) => i !== index) }),
+})
+
+export const addCurl = defineCommand({
+  name: 'add-curl',
+  run: (design, { points }: { points: readonly Point[] }) =>
+    points.length < 2 ? design : { ...design, curls: [...design.curls, { points: points.map(roundPoint) }] },
+})
+
+export const deleteCurl = defineCommand({
+  name: 'delete-curl',
+  run: (design, { index }: { index: number }) => ({ ...design, curls: design.curls.filter((_, i) => i !== index) }),
+})
+
+/** Sets (or, with null, clears) a sewing order chosen by hand. */
+export const setHandOrder = defineCommand({
+  name: 'set-hand-order',
+  run: (design, order: HandOrder | null) => ({ ...design, order }),
+})
+
+export const renameDesign = defineCommand({
+  name: 'rename-design',
+  run: (design, { name }: { name: string }) => ({ ...design, name }),
+})
+
+const CENTIMETRES_PER_INCH = 2.54
+
+/**
+ * Switches the design between inches and centimetres, converting every length so the ring stays
+ * the same size. Angles, fractions along a seam and colours are unitless and stay.
+ */
+export const setUnits = defineCommand({
+  name: 'set-units',
+  run: (design, { units }: { units: 'in' | 'cm' }) => {
+    if (design.units === units) return design
+    const factor = units === 'cm' ? CENTIMETRES_PER_INCH : 1 / CENTIMETRES_PER_INCH
+    const length = (value: number) => round(value * factor)
+    const point = (p: readonly [number, number]): Point => [length(p[0]), length(p[1])]
+    return {
+      ...design,
+      units,
+      ring: { ...design.ring, innerRadius: length(design.ring.innerRadius), outerRadius: length(design.ring.outerRadius) },
+      seams: design.seams.map((seam) => ({ ...seam, from: point(seam.from), to: point(seam.to) })),
+      fills: design.fills.map((fill) => ({ ...fill, at: point(fill.at) })),
+      leaves: design.leaves.map((leaf) => ({ ...leaf, length: length(leaf.length), width: length(leaf.width) })),
+      stems: design.stems.map((stem) => ({ ...stem, radius: length(stem.radius), finishedWidth: length(stem.finishedWidth) })),
+      berries: design.berries.map((berry) => ({ ...berry, at: point(berry.at), finishedDiameter: length(berry.finishedDiameter) })),
+      curls: design.curls.map((curl) => ({ points: curl.points.map(point) })),
+      order: design.order
+        ? { ...design.order, sections: design.order.sections.map((s) => ({ ...s, areas: s.areas.map(point) })) }
+        : null,
+    }
+  },
+})
+
+/** Replaces the whole design (import of a file, or taking the saved version after a conflict). */
+export const replaceDesign = defineCommand({
+  name: 'replace-design',
+  run: (_design, { design }: { design: DesignFile }) => normalizeDesign(design),
+})
+
+/** The table the store, the shortcuts and the panels use. */
+export const commands = {
+  setRing,
+  addSeam,
+  moveSeamEnd,
+  moveSeam,
+  deleteSeam,
+  fillArea,
+  clearFill,
+  setFabricColour,
+  addFabric,
+  addColorway,
+  addLeaf,
+  updateLeaf,
+  flipLeafSide,
+  deleteLeaf,
+  setStemRing,
+  addBerry,
+  updateBerry,
+  deleteBerry,
+  addCurl,
+  deleteCurl,
+  setHandOrder,
+  renameDesign,
+  setUnits,
+  replaceDesign,
+} as const
+
+export type CommandTable = typeof commands
+export type CommandName = keyof CommandTable
+export type CommandArgs<Name extends CommandName> = Parameters<CommandTable[Name]['run']>[1]

@@ -1,0 +1,103 @@
+import { describe, expect, it } from 'vitest'
+import type { DesignFile } from '@/lib/schemas/design'
+import { boardPlan } from './board-plan'
+import { createBoardStore, design } from './store'
+
+const emptyQuarterRing = (overrides: Partial<DesignFile> = {}): DesignFile => ({
+  format: 'wreathwright-design',
+  version: 1,
+  name: 'Store test',
+  units: 'in',
+  ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
+  seams: [],
+  colorways: [{ name: 'Autumn', fabrics: { background: '#f4ecd8', leaf: '#8a3b12' } }],
+  ...overrides,
+})
+
+describe('the board store', () => {
+  it('runs commands as undoable steps and redoes them', () => {
+    const store = createBoardStore(emptyQuarterRing())
+    store.run('addSeam', { from: [4, 0], to: [0, 4] })
+    store.run('addSeam', { from: [7, 0], to: [0, 7] })
+    expect(design(store.getState()).seams.map((s) => s.id)).toEqual(['s1', 's2'])
+    store.undo()
+    expect(design(store.getState()).seams.map((s) => s.id)).toEqual(['s1'])
+    store.redo()
+    expect(design(store.getState()).seams).toHaveLength(2)
+  })
+
+  it('turns a dragged seam end into one undo step', () => {
+    const store = createBoardStore(emptyQuarterRing({ seams: [{ id: 's1', from: [4, 0], to: [0, 4] }] }))
+    store.beginDrag()
+    for (const y of [4.5, 5, 5.5]) store.run('moveSeamEnd', { seamId: 's1', end: 'to', to: [0, y] })
+    store.endDrag()
+    expect(design(store.getState()).seams[0]!.to).toEqual([0, 5.5])
+    store.undo()
+    expect(design(store.getState()).seams[0]!.to).toEqual([0, 4])
+  })
+
+  it('puts a dragged end back on Escape', () => {
+    const store = createBoardStore(emptyQuarterRing({ seams: [{ id: 's1', from: [4, 0], to: [0, 4] }] }))
+    store.beginDrag()
+    store.run('moveSeamEnd', { seamId: 's1', end: 'to', to: [0, 6] })
+    store.cancelDrag()
+    expect(design(store.getState()).seams[0]!.to).toEqual([0, 4])
+    expect(store.getState().history.past).toHaveLength(0)
+  })
+
+  it('keeps the redo stack when only the view changes', () => {
+    const store = createBoardStore(emptyQuarterRing())
+    store.run('addSeam', { from: [4, 0], to: [0, 4] })
+    store.undo()
+    store.update({ view: { zoom: 50, centre: [10, 10], side: 'printed' }, tool: 'seam' })
+    store.redo()
+    expect(design(store.getState()).seams).toHaveLength(1)
+  })
+
+  it('drops a selection whose seam was undone away', () => {
+    const store = createBoardStore(emptyQuarterRing())
+    store.run('addSeam', { from: [4, 0], to: [0, 4] })
+    store.update({ selection: { kind: 'seam', id: 's1' } })
+    store.undo()
+    expect(store.getState().selection).toBeNull()
+  })
+
+  it('deletes the leaves caught in a deleted seam', () => {
+    const store = createBoardStore(emptyQuarterRing({ seams: [{ id: 's1', from: [4, 0], to: [0, 4] }] }))
+    store.run('addLeaf', { seam: 's1', at: 0.5, side: 'left', angle: 0, length: 1.5, width: 0.75, layers: ['leaf'] })
+    store.run('deleteSeam', { seamId: 's1' })
+    expect(design(store.getState()).leaves).toEqual([])
+  })
+
+  it('converts every length when switching to centimetres (1 in = 2.54 cm exactly, 1959 agreement)', () => {
+    const store = createBoardStore(emptyQuarterRing({ seams: [{ id: 's1', from: [4, 0], to: [0, 4] }] }))
+    store.run('setUnits', { units: 'cm' })
+    const converted = design(store.getState())
+    expect(converted.ring.outerRadius).toBeCloseTo(22.86, 10) // 9 in × 2.54
+    expect(converted.seams[0]!.from).toEqual([10.16, 0]) // 4 in × 2.54
+    store.run('setUnits', { units: 'in' })
+    expect(design(store.getState()).seams[0]!.from).toEqual([4, 0])
+  })
+
+  it('keeps a fill on its area when a seam moves, since the fill names the area by a point', () => {
+    const store = createBoardStore(emptyQuarterRing({ seams: [{ id: 's1', from: [4, 0], to: [0, 4] }] }))
+    store.run('fillArea', { at: [1, 1], fabric: 'leaf' })
+    store.run('moveSeamEnd', { seamId: 's1', end: 'to', to: [0, 5] })
+    const current = design(store.getState())
+    const plan = boardPlan(current)
+    const filled = plan.plan!.areas.filter((area) => area.areaSqIn < 12)
+    expect(filled).toHaveLength(1)
+    expect(current.fills).toEqual([{ at: [1, 1], fabric: 'leaf' }])
+  })
+
+  it('notifies subscribers on every change and stops after unsubscribing', () => {
+    const store = createBoardStore(emptyQuarterRing())
+    let calls = 0
+    const unsubscribe = store.subscribe(() => (calls += 1))
+    store.run('addSeam', { from: [4, 0], to: [0, 4] })
+    store.update({ tool: 'seam' })
+    unsubscribe()
+    store.undo()
+    expect(calls).toBe(2)
+  })
+})
