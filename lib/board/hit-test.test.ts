@@ -1,0 +1,40 @@
+import { describe, expect, it } from 'vitest'
+import { normalizeDesign } from './commands'
+import { hitTest } from './hit-test'
+
+const design = normalizeDesign({
+  format: 'wreathwright-design',
+  version: 1,
+  name: 'Hits',
+  units: 'in',
+  ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
+  seams: [{ id: 's1', from: [7, 0], to: [0, 7] }],
+  leaves: [{ id: 'l1', seam: 's1', at: 0.5, side: 'left', angle: 0, length: 1.5, width: 0.75, layers: ['leaf'] }],
+  berries: [{ at: [6, 4], finishedDiameter: 0.5, fabric: 'berry' }],
+})
+
+describe('hitTest', () => {
+  it('finds a seam end before the seam itself', () => {
+    expect(hitTest(design, [6.95, 0.05], 0.2)).toEqual({ kind: 'seam-end', seamId: 's1', end: 'from' })
+  })
+
+  it('finds the leaf lying over the seam', () => {
+    // The leaf's open end sits at the seam's middle (3.5, 3.5) and points towards the centre (its left side).
+    expect(hitTest(design, [3.1, 3.1], 0.1)).toEqual({ kind: 'leaf', leafId: 'l1' })
+  })
+
+  it('finds a seam with the fraction along it and the side of the pointer', () => {
+    // Along (7,0)→(0,7): ((5.3 − 7)·(−7) + 1.9·7) / 98 = 25.2 / 98 = 0.257 of the way.
+    const hit = hitTest(design, [5.3, 1.9], 0.2)
+    expect(hit).toMatchObject({ kind: 'seam', seamId: 's1', side: 'right' })
+    expect(hit && 'fraction' in hit ? hit.fraction : 0).toBeCloseTo(0.257, 2)
+  })
+
+  it('finds a berry by its circle', () => {
+    expect(hitTest(design, [6.1, 4.1], 0.05)).toEqual({ kind: 'berry', index: 0 })
+  })
+
+  it('finds nothing in open space', () => {
+    expect(hitTest(design, [1, 1], 0.1)).toBeNull()
+  })
+})
