@@ -102,11 +102,20 @@ export function cutsOf(topology: Topology, unit: AreaSet, allowed?: (cut: Cut) =
   return cuts
 }
 
-/** Reusable marks for `split`, one set per topology: cutting is the search's inner loop. */
+/**
+ * Reusable marks for `split`, and the neighbour lists flattened into typed arrays, one set per
+ * topology: cutting is the search's inner loop.
+ */
 interface Scratch {
   readonly inCut: Uint8Array
   readonly side: Uint8Array
   readonly stack: Int32Array
+  /** Neighbour pairs of area a are neighbourStart[a] … neighbourStart[a + 1] − 1. */
+  readonly neighbourStart: Int32Array
+  readonly neighbourArea: Int32Array
+  /** Edges of neighbour pair k are edgeStart[k] … edgeStart[k + 1] − 1 in `edgeList`. */
+  readonly edgeStart: Int32Array
+  readonly edgeList: Int32Array
 }
 
 const scratchByTopology = new WeakMap<Topology, Scratch>()
@@ -114,27 +123,55 @@ const scratchByTopology = new WeakMap<Topology, Scratch>()
 function scratchFor(topology: Topology): Scratch {
   let scratch = scratchByTopology.get(topology)
   if (!scratch) {
-    scratch = { inCut: new Uint8Array(topology.seamEdges.length), side: new Uint8Array(topology.areaCount), stack: new Int32Array(topology.areaCount + 1) }
+    const pairs = topology.neighbours.reduce((sum, list) => sum + list.length, 0)
+    const neighbourStart = new Int32Array(topology.areaCount + 1)
+    const neighbourArea = new Int32Array(pairs)
+    const edgeStart = new Int32Array(pairs + 1)
+    const edgeList = new Int32Array(topology.neighbours.reduce((sum, list) => sum + list.reduce((inner, n) => inner + n.edges.length, 0), 0))
+    let pair = 0
+    let edgeAt = 0
+    topology.neighbours.forEach((list, area) => {
+      neighbourStart[area] = pair
+      for (const neighbour of list) {
+        neighbourArea[pair] = neighbour.area
+        edgeStart[pair] = edgeAt
+        for (const edge of neighbour.edges) edgeList[edgeAt++] = edge
+        pair += 1
+      }
+    })
+    neighbourStart[topology.areaCount] = pair
+    edgeStart[pair] = edgeAt
+    scratch = {
+      inCut: new Uint8Array(topology.seamEdges.length),
+      side: new Uint8Array(topology.areaCount),
+      stack: new Int32Array(topology.areaCount + 1),
+      neighbourStart,
+      neighbourArea,
+      edgeStart,
+      edgeList,
+    }
     scratchByTopology.set(topology, scratch)
   }
   return scratch
 }
 
 /** Marks with `mark` every area of the unit reachable from `seed` without crossing a cut edge or a marked area. */
-function flood(topology: Topology, unit: AreaSet, seed: number, mark: number, scratch: Scratch): number {
-  const { inCut, side, stack } = scratch
+function flood(unit: AreaSet, seed: number, mark: number, scratch: Scratch): number {
+  const { inCut, side, stack, neighbourStart, neighbourArea, edgeStart, edgeList } = scratch
   let top = 0
   let count = 1
   side[seed] = mark
   stack[top++] = seed
   while (top > 0) {
     const area = stack[--top] as number
-    for (const neighbour of topology.neighbours[area] ?? []) {
-      const next = neighbour.area
-      if (side[next] !== 0 || !hasArea(unit, next)) continue
+    const end = neighbourStart[area + 1] as number
+    for (let pair = neighbourStart[area] as number; pair < end; pair += 1) {
+      const next = neighbourArea[pair] as number
+      if (side[next] !== 0 || (((unit[next >>> 5] as number) >>> (next & 31)) & 1) === 0) continue
       let open = false
-      for (const edge of neighbour.edges) {
-        if (inCut[edge] === 0) {
+      const last = edgeStart[pair + 1] as number
+      for (let k = edgeStart[pair] as number; k < last; k += 1) {
+        if (inCut[edgeList[k] as number] === 0) {
           open = true
           break
         }
@@ -153,10 +190,16 @@ function split(topology: Topology, unit: AreaSet, members: readonly number[], ed
   const { inCut, side } = scratch
   for (const edge of edges) inCut[edge] = 1
   let result: { first: AreaSet; second: AreaSet } | null = null
-  const firstCount = flood(topology, unit, members[0] as number, 1, scratch)
+  const firstCount = flood(unit, members[0] as number, 1, scratch)
   if (firstCount < members.length) {
-    const secondSeed = members.find((area) => side[area] === 0) as number
-    const secondCount = flood(topology, unit, secondSeed, 2, scratch)
+    let secondSeed = -1
+    for (const area of members) {
+      if (side[area] === 0) {
+        secondSeed = area
+        break
+      }
+    }
+    const secondCount = flood(unit, secondSeed, 2, scratch)
     let clean = firstCount + secondCount === members.length
     for (const edge of edges) {
       const e = topology.seamEdges[edge]
@@ -182,6 +225,7 @@ interface SearchState {
   readonly peel: PeelSearch
   readonly exact: Map<string, Solved | null>
   readonly atLeast: Map<string, number>
+  readonly cuts: Map<string, Cut[]>
   units: number
   gaveUp: boolean
 }
@@ -211,7 +255,13 @@ function solve(state: SearchState, unit: AreaSet, limit: number, key = areaSetKe
   }
   let best: Solved | null = null
   let bound = limit
-  for (const cut of cutsOf(state.topology, unit)) {
+  // A unit can be searched again under a larger limit; its cuts do not change, so keep them.
+  let cuts = state.cuts.get(key)
+  if (!cuts) {
+    cuts = cutsOf(state.topology, unit)
+    state.cuts.set(key, cuts)
+  }
+  for (const cut of cuts) {
     if (bound <= 2) break
     // Each part needs at least what the memo already proved; skip cuts that cannot beat the bound.
     if (lowerBound(state, cut.firstKey) + lowerBound(state, cut.secondKey) >= bound) continue
@@ -234,7 +284,7 @@ function solve(state: SearchState, unit: AreaSet, limit: number, key = areaSetKe
  */
 export function fewestSections(topology: Topology, constraints: readonly InsertConstraint[]): FewestSectionsResult {
   const all = areaSetOf(topology.areaCount, Array.from({ length: topology.areaCount }, (_, index) => index))
-  const state: SearchState = { topology, peel: createPeelSearch(topology, constraints), exact: new Map(), atLeast: new Map(), units: 0, gaveUp: false }
+  const state: SearchState = { topology, peel: createPeelSearch(topology, constraints), exact: new Map(), atLeast: new Map(), cuts: new Map(), units: 0, gaveUp: false }
   const solved = topology.areaCount === 0 ? null : solve(state, all, Infinity)
   return { tree: solved?.tree ?? null, sectionCount: solved?.count ?? 0, gaveUp: state.gaveUp || state.peel.gaveUp }
 }
