@@ -47,6 +47,16 @@ export interface Snapping {
   readonly angles: boolean
 }
 
+/** What the pointer is in the middle of drawing: shown on the board, never part of the design. */
+export interface BoardDraft {
+  /** A seam being drawn, from its first end to the pointer. */
+  readonly seam: readonly [readonly [number, number], readonly [number, number]] | null
+  /** Where the pointer snapped to, and onto what. */
+  readonly snap: { readonly point: readonly [number, number]; readonly kind: string } | null
+  /** Points of an embroidered curl being drawn. */
+  readonly curl: readonly (readonly [number, number])[] | null
+}
+
 export interface BoardState {
   readonly history: History<BoardDesign>
   readonly tool: Tool
@@ -59,6 +69,7 @@ export interface BoardState {
   readonly step: number | null
   /** Areas clicked so far while setting an order by hand, as sections of points. */
   readonly handOrderDraft: readonly (readonly (readonly [number, number])[])[] | null
+  readonly draft: BoardDraft
 }
 
 export interface BoardStore {
@@ -75,6 +86,8 @@ export interface BoardStore {
   /** Changes that are not part of the design and so never undone. */
   update(change: Partial<Omit<BoardState, 'history'>>): void
 }
+
+export const EMPTY_DRAFT: BoardDraft = { seam: null, snap: null, curl: null }
 
 export const design = (state: BoardState): BoardDesign => state.history.present
 export const isDragging = (state: BoardState) => state.history.mark !== null
@@ -94,6 +107,7 @@ export function initialBoardState(file: DesignFile, overrides: Partial<Omit<Boar
     activeFabric: Object.keys(firstColorway?.fabrics ?? {})[0] ?? null,
     step: null,
     handOrderDraft: null,
+    draft: EMPTY_DRAFT,
     ...overrides,
   }
 }
