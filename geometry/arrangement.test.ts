@@ -73,6 +73,12 @@ describe('buildArrangement', () => {
     expect(warning?.severity).toBe('warning')
   })
 
+  it('does not call the 10° point of a 36-repeat wedge "under 10°"', () => {
+    // 360° / 36 = 10° exactly (arithmetic); only rounding noise could make it 9.9999999°
+    const arrangement = buildArrangement({ ...ring, repeats: 36 }, [])
+    expect(arrangement.problems).toEqual([])
+  })
+
   it('gives the same ids whatever order or direction the seams are listed in', () => {
     const { seams } = gridDesign(3, 4)
     const reversed: Seam[] = [...seams].reverse().map((s) => ({ id: s.id, from: s.to, to: s.from }))

@@ -10,7 +10,7 @@ import { orientation } from './orientation'
 import { comparePoints, distance, distanceToBoundary, distanceToSegment, interiorPoint, isPointInPolygon, polygonCentroid, signedArea } from './polygon-measure'
 import { repeatOutline, type RepeatOutline } from './ring'
 import { snapSeamEnds } from './seam-snapping'
-import { ID_DECIMALS, ON_SEGMENT_INCHES, SHARP_ANGLE_DEGREES, SLIVER_AREA_SQ_IN, VERTEX_MERGE_INCHES } from './tolerances'
+import { ANGLE_NOISE_DEGREES, ID_DECIMALS, ON_SEGMENT_INCHES, SHARP_ANGLE_DEGREES, SLIVER_AREA_SQ_IN, VERTEX_MERGE_INCHES } from './tolerances'
 import type { Point, Polygon, Problem, Ring, Seam } from './types'
 import { mergeVertices } from './vertex-merge'
 
@@ -395,7 +395,7 @@ function areaWarnings(areas: readonly Area[]): Problem[] {
       const outY = next[1] - corner[1]
       const turn = Math.atan2(inX * outY - inY * outX, inX * outX + inY * outY)
       const interior = ((Math.PI - turn) * 180) / Math.PI
-      if (interior >= SHARP_ANGLE_DEGREES) return
+      if (interior >= SHARP_ANGLE_DEGREES - ANGLE_NOISE_DEGREES) return
       const key = `${corner[0].toFixed(6)},${corner[1].toFixed(6)}`
       const known = sharpest.get(key)
       if (!known || interior < known.angle) sharpest.set(key, { angle: interior, point: corner })

@@ -138,6 +138,24 @@ function insertConflict(topology: Topology, constraints: readonly InsertConstrai
   }
 }
 
+/**
+ * The rough cut of an area; a degenerate area the allowance code refuses (it throws for shapes it
+ * cannot offset) becomes a warning and an empty rectangle, so a plan is still returned.
+ */
+function safeRoughCut(polygon: Polygon, sewnAlong: Segment | null, options: PlanOptions, point: Point, problems: Problem[]): RoughCut {
+  try {
+    return roughCutPiece(polygon, sewnAlong, options)
+  } catch (error) {
+    problems.push({
+      code: 'rough-cut-failed',
+      severity: 'warning',
+      message: `No rough cut could be sized for the area at (${point[0].toFixed(2)}, ${point[1].toFixed(2)}): ${error instanceof Error ? error.message : String(error)}.`,
+      at: point,
+    })
+    return { widthIn: 0, heightIn: 0, corners: [] }
+  }
+}
+
 const round = (value: number): number => {
   const scale = 10 ** OUTPUT_DECIMALS
   const rounded = Math.round(value * scale) / scale
@@ -198,7 +216,7 @@ export function planDesign(design: Design, options: PlanOptions = {}): Plan {
     const area = arrangement.areas[index]!
     const place = placed.get(index)
     const sewnAlong = place?.sewnAlong ?? null
-    const cut = roughCutPiece(area.polygon, sewnAlong, roughCutOptions)
+    const cut = safeRoughCut(area.polygon, sewnAlong, roughCutOptions, area.point, problems)
     return {
       id: area.id,
       label: place ? `${place.section}${place.step}` : null,

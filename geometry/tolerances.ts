@@ -19,6 +19,12 @@ export const SLIVER_AREA_SQ_IN = 0.1
 export const SHARP_ANGLE_DEGREES = 10
 
 /**
+ * Angles computed from coordinates carry rounding noise; a corner within this of the limit is
+ * taken as on it (a 36-repeat wedge's 10° point is not "under 10°"). Degrees.
+ */
+export const ANGLE_NOISE_DEGREES = 1e-6
+
+/**
  * After snapping, two computed points closer than this are one vertex of the arrangement.
  * Inches; far above floating-point noise on coordinates of a few inches (about 1e-15) and far
  * below anything a designer can draw or a maker can sew.
