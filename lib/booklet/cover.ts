@@ -1,0 +1,140 @@
+/**
+ * The cover: the finished ring in the chosen colourway (fabric side, as the quilt will look),
+ * its size, and the fabric and cutting list that follows it.
+ */
+import type { jsPDF } from 'jspdf'
+import { applyToPolygon, applyTransform, outlineFromPolygon, repeatTransforms, type AffineTransform, type Point } from '@/geometry'
+import { formatInches, inchesToCentimetres } from '@/lib/units'
+import { font } from './chrome'
+import { startPage, type BookletContext } from './context'
+import { fitView, rgb, solidPen, toPage, tracePath, tracePolygon, type View } from './draw'
+import { bindingLengthInches, cuttingList } from './fabric-list'
+import { placeLeaf } from './geometry-gaps'
+import { fabricColour, type BookletModel } from './model'
+import { PAPERS } from './paper'
+import { startFlow } from './flow'
+
+/**
+ * Draws the whole ring, fabric side, into a page box; labels the first repeat's areas.
+ *
+ * @example drawRingPreview(doc, model, { x: 36, y: 100, width: 400, height: 400 }, true)
+ */
+export function drawRingPreview(doc: jsPDF, model: BookletModel, into: { x: number; y: number; width: number; height: number }, labels: boolean): View {
+  const { design } = model
+  const r = design.ring.outerRadius
+  const view = fitView([-r, -r, r, r], into)
+  const transforms = repeatTransforms(design.ring)
+  for (const transform of transforms) {
+    for (const area of model.plan.areas) {
+      doc.setFillColor(...rgb(fabricColour(model, model.fabricOf.get(area.id) ?? '')))
+      solidPen(doc, 0.4, [90, 90, 90])
+      tracePath(doc, view, outlineFromPolygon(applyToPolygon(transform, area.polygon), design.ring))
+      doc.fillStroke()
+    }
+  }
+  for (const stem of design.stems) {
+    // The folded stem as a band of its finished width along its circle.
+    doc.setLineDashPattern([], 0)
+    doc.setDrawColor(...rgb(fabricColour(model, stem.fabric)))
+    doc.setLineWidth(stem.finishedWidth * view.scale)
+    const [cx, cy] = toPage(view, [0, 0])
+    doc.circle(cx, cy, stem.radius * view.scale, 'S')
+  }
+  for (const transform of transforms) drawDecorations(doc, model, view, transform)
+  if (labels) {
+    for (const area of model.labelledAreas) {
+      const at = toPage(view, area.point)
+      font(doc, 6.5, 'bold', 20)
+      doc.text(area.label ?? '', at[0], at[1] + 2, { align: 'center' })
+    }
+  }
+  return view
+}
+
+/** Leaves, berries and embroidered curls of one repeat. */
+function drawDecorations(doc: jsPDF, model: BookletModel, view: View, transform: AffineTransform): void {
+  const { design } = model
+  for (const leaf of design.leaves) {
+    const seam = design.seams.find((s) => s.id === leaf.seam)
+    if (!seam) continue
+    try {
+      const placement = placeLeaf(leaf, seam)
+      // The top layer shows; the ones beneath peek out only at the edges.
+      doc.setFillColor(...rgb(fabricColour(model, leaf.layers[leaf.layers.length - 1] ?? '')))
+      solidPen(doc, 0.3, [40, 40, 40])
+      tracePolygon(doc, view, applyToPolygon(transform, placement.finishedOutline))
+      doc.fillStroke()
+    } catch {
+      // An impossible leaf is reported by the plan; the preview leaves it out.
+    }
+  }
+  for (const berry of design.berries) {
+    const [x, y] = toPage(view, applyTransform(transform, berry.at))
+    doc.setFillColor(...rgb(fabricColour(model, berry.fabric)))
+    solidPen(doc, 0.3, [40, 40, 40])
+    doc.circle(x, y, (berry.finishedDiameter / 2) * view.scale, 'FD')
+  }
+  for (const curl of design.curls) {
+    solidPen(doc, 0.8, [50, 40, 30])
+    tracePolygon(doc, view, curl.points.map((p: Point) => applyTransform(transform, p)), false)
+    doc.stroke()
+  }
+}
+
+/**
+ * Writes the cover page and the fabric and cutting pages after it.
+ *
+ * @example writeCover(context)
+ */
+export function writeCover(context: BookletContext): void {
+  const { doc, frame, model } = context
+  const { design } = model
+  const { x, y, width, height } = frame.printable
+  startPage(context)
+  font(doc, 22, 'bold')
+  doc.text(design.name, x, y + 24)
+  font(doc, 10, 'normal', 60)
+  doc.text('A foundation-pieced ring: pattern booklet', x, y + 40)
+  const size = Math.min(width, height * 0.55)
+  drawRingPreview(doc, model, { x: x + (width - size) / 2, y: y + 52, width: size, height: size }, true)
+  let line = y + 52 + size + 20
+  const facts = [
+    `Finished diameter: ${formatInches(model.finishedDiameterInches)} (${inchesToCentimetres(model.finishedDiameterInches).toFixed(1)} cm)`,
+    `${design.ring.repeats} repeats, ${design.ring.repeatMode === 'mirror' ? 'alternately mirrored' : 'all alike'}; ${model.plan.sections.length} foundation section${model.plan.sections.length === 1 ? '' : 's'} per repeat`,
+    `Colourway: ${model.colorway?.name ?? 'none (fabrics shown grey)'}`,
+    `Paper: ${PAPERS[model.options.paper].title}, ${model.options.orientation}. Print at 100 % (actual size).`,
+    'The picture shows the finished quilt (fabric side); the first repeat carries its area labels.',
+  ]
+  for (const fact of facts) {
+    font(doc, 10, fact.startsWith('The picture') ? 'italic' : 'normal', fact.startsWith('The picture') ? 80 : 0)
+    doc.text(fact, x, line)
+    line += 14
+  }
+  if (!model.plan.sewable) {
+    font(doc, 10, 'bold', 0)
+    const problems: string[] = doc.splitTextToSize(`This design cannot be sewn as it stands: ${model.plan.problems.filter((p) => p.severity === 'error').map((p) => p.message).join(' ')}`, width)
+    doc.text(problems, x, line + 4)
+  }
+  writeFabricPages(context)
+}
+
+function writeFabricPages(context: BookletContext): void {
+  const { doc, model } = context
+  const flow = startFlow(context, 'Fabric and cutting', 'Rough-cut pieces are rectangles: cut them on the straight grain, one per area and foundation.')
+  flow.heading('Cutting list by fabric')
+  flow.paragraph('Each rectangle covers its area and a 1/4 in seam allowance with a little to spare once it is sewn and flipped. Counts are for the whole ring.', { size: 8.5, grey: 50 })
+  for (const [fabric, pieces] of cuttingList(model)) {
+    flow.ensure(30)
+    flow.y += 6
+    doc.setFillColor(...rgb(fabricColour(model, fabric)))
+    solidPen(doc, 0.4)
+    doc.rect(flow.left, flow.y, 14, 10, 'FD')
+    font(doc, 10, 'bold')
+    doc.text(fabric, flow.left + 20, flow.y + 8)
+    flow.y += 10
+    for (const piece of pieces) flow.paragraph(piece, { indent: 20, size: 8.5 })
+  }
+  flow.gap(8)
+  flow.heading('Binding')
+  flow.paragraph(`About ${bindingLengthInches(model)} in of bias binding for the curved edge${model.design.ring.innerRadius > 0 ? 's (outer and inner)' : ''}: a curved edge must be bound with strips cut on the bias.`)
+}

@@ -1,0 +1,73 @@
+/**
+ * The cutting list by fabric, from the plan's rough-cut pieces, the leaves, berries and stem ring.
+ * A stand-in until the fabric-math issue lands (yardage, fat quarters): it says what to cut,
+ * not how much fabric to buy.
+ */
+import { formatInches } from '@/lib/units'
+import type { BookletModel } from './model'
+
+export interface CutLine {
+  readonly fabric: string
+  /** What to cut, in the maker's words: "4 × rectangle 3 1/4 × 2 1/2 in (A1)". */
+  readonly text: string
+}
+
+/** Cut allowance added around a berry circle beyond twice its diameter, inches (from memory; check in a sample). */
+export const BERRY_EXTRA_INCHES = 0.25
+/** Extra bias strip for joining the stem ring's ends, inches (common practice: a few inches). */
+export const STEM_OVERLAP_INCHES = 4
+/** Extra binding for joining its ends, inches (common practice). */
+export const BINDING_EXTRA_INCHES = 10
+
+/**
+ * Every piece to cut, grouped by fabric, in first-seen order of fabrics.
+ *
+ * @example cuttingList(model).get('background') // ['8 × rectangle 3 1/4 × 2 1/2 in (A1, A3)', …]
+ */
+export function cuttingList(model: BookletModel): Map<string, string[]> {
+  const pieces = new Map<string, Map<string, { count: number; labels: string[] }>>()
+  const add = (fabric: string, what: string, count: number, label: string): void => {
+    const byWhat = pieces.get(fabric) ?? new Map<string, { count: number; labels: string[] }>()
+    pieces.set(fabric, byWhat)
+    const entry = byWhat.get(what) ?? { count: 0, labels: [] }
+    entry.count += count
+    if (label && !entry.labels.includes(label)) entry.labels.push(label)
+    byWhat.set(what, entry)
+  }
+  for (const kind of model.foundations) {
+    for (const area of model.labelledAreas.filter((a) => a.section === kind.section)) {
+      const long = Math.max(area.roughCut.widthIn, area.roughCut.heightIn)
+      const short = Math.min(area.roughCut.widthIn, area.roughCut.heightIn)
+      add(model.fabricOf.get(area.id) ?? '', `rectangle ${formatInches(long).replace(' in', '')} × ${formatInches(short)}`, kind.count, area.label ?? '')
+    }
+  }
+  const { design } = model
+  const repeats = design.ring.repeats
+  for (const leaf of design.leaves) {
+    for (const fabric of leaf.layers) add(fabric, `leaf ${formatInches(leaf.length).replace(' in', '')} × ${formatInches(leaf.width)} (see the leaf template)`, repeats, leaf.id)
+  }
+  for (const berry of design.berries) {
+    add(berry.fabric, `circle ${formatInches(2 * berry.finishedDiameter + BERRY_EXTRA_INCHES)} across for a ${formatInches(berry.finishedDiameter)} berry`, repeats, '')
+  }
+  for (const stem of design.stems) {
+    const length = 2 * Math.PI * stem.radius + STEM_OVERLAP_INCHES
+    // Folded bias stem: cut width = 2 × finished width + 1/2 in (derivable: fold, sew 1/4 in from the raw edges).
+    add(stem.fabric, `bias strip ${formatInches(2 * stem.finishedWidth + 0.5)} wide, ${formatInches(Math.ceil(length))} long in all (stem ring)`, 1, '')
+  }
+  const result = new Map<string, string[]>()
+  for (const [fabric, byWhat] of pieces) {
+    result.set(fabric, [...byWhat].map(([what, { count, labels }]) => `${count} × ${what}${labels.length ? ` (${labels.join(', ')})` : ''}`))
+  }
+  return result
+}
+
+/**
+ * Binding for the ring's curved edges: bias strips (common practice for curves), 2πr plus a join.
+ *
+ * @example bindingLengthInches(model) // 86 for an 18 in wedge ring
+ */
+export function bindingLengthInches(model: BookletModel): number {
+  const { ring } = model.design
+  const edges = 2 * Math.PI * ring.outerRadius + (ring.innerRadius > 0 ? 2 * Math.PI * ring.innerRadius : 0)
+  return Math.ceil(edges + BINDING_EXTRA_INCHES)
+}

@@ -1,0 +1,166 @@
+/**
+ * Foundation pages: every section of every kind of repeat, printed side up (the mirror image of
+ * the finished quilt), at true scale, tiled across the paper. Seam lines solid, the trim line
+ * dashed one allowance outside, arcs as true arcs, each area labelled with its fabric, leaf
+ * basting marks on their seams with the layer fabrics beside them.
+ *
+ * Text is never mirrored: the geometry goes through the printed-side transform and the labels are
+ * written, upright, at the transformed places.
+ */
+import type { jsPDF } from 'jspdf'
+import {
+  applyToPolygon, applyTransform, isPointInPolygon, outlineFromPolygon, type Point, type Polygon,
+} from '@/geometry'
+import { font } from './chrome'
+import type { BookletContext } from './context'
+import { dashedPen, solidPen, toPage, tracePath, tracePolygon, type View } from './draw'
+import { placeLeaf, sectionTrimLine } from './geometry-gaps'
+import { sectionAreas, type BookletModel, type FoundationKind } from './model'
+import type { PageRect } from './paper'
+import { writeTiledDrawing, type TiledDrawing } from './tiled-drawing'
+import type { TileLayout } from './tiling'
+
+/** Room around the trim line on the sheet, inches, so labels and marks near it stay on paper. */
+const SHEET_PADDING_INCHES = 0.2
+
+/** One foundation as drawn: its kind, areas and trim line on the printed side. */
+export interface FoundationSheet {
+  readonly kind: FoundationKind
+  readonly title: string
+  /** Design-inch box of the sheet (padding included). */
+  readonly box: readonly [number, number, number, number]
+  /** The trim line as chords, printed side, design inches. */
+  readonly trimPolygon: Polygon
+  readonly drawing: TiledDrawing
+}
+
+/**
+ * The sheets of every foundation to print, before any page is written.
+ *
+ * @example foundationSheets(model).map((sheet) => sheet.title) // ['Foundation A - every repeat (all 4): make 4', …]
+ */
+export function foundationSheets(model: BookletModel): FoundationSheet[] {
+  return model.foundations.map((kind) => foundationSheet(model, kind))
+}
+
+function foundationSheet(model: BookletModel, kind: FoundationKind): FoundationSheet {
+  const { design } = model
+  const areas = sectionAreas(model, kind.section)
+  const printed = areas.map((area) => ({ area, polygon: applyToPolygon(kind.printedSide, area.polygon) }))
+  const trim = sectionTrimLine(printed.map((p) => p.polygon), design.ring)
+  const xs = trim.polygon.map((p) => p[0])
+  const ys = trim.polygon.map((p) => p[1])
+  const box = [
+    Math.min(...xs) - SHEET_PADDING_INCHES, Math.min(...ys) - SHEET_PADDING_INCHES,
+    Math.max(...xs) + SHEET_PADDING_INCHES, Math.max(...ys) + SHEET_PADDING_INCHES,
+  ] as const
+  const title = `Foundation ${kind.section} - ${kind.repeatName}: make ${kind.count}`
+  const leaves = leavesOfSection(model, kind)
+  const draw = (doc: jsPDF, view: View, window: PageRect): void => {
+    dashedPen(doc, 0.75, [6, 3])
+    tracePath(doc, view, trim.path)
+    doc.stroke()
+    solidPen(doc, 0.8)
+    for (const { polygon } of printed) {
+      tracePath(doc, view, outlineFromPolygon(polygon, design.ring))
+      doc.stroke()
+    }
+    for (const leaf of leaves) drawLeafMarks(doc, view, window, leaf)
+    for (const { area } of printed) {
+      const at = toPage(view, applyTransform(kind.printedSide, area.point))
+      const fabric = model.fabricOf.get(area.id) ?? ''
+      font(doc, 6.5)
+      const fabricWidth = doc.getTextWidth(fabric)
+      if (!fitsIn(window, at, Math.max(fabricWidth, 20) / 2 + 2, 12)) continue
+      font(doc, 10, 'bold')
+      doc.text(area.label ?? '', at[0], at[1], { align: 'center' })
+      font(doc, 6.5, 'normal', 50)
+      doc.text(fabric, at[0], at[1] + 8, { align: 'center' })
+    }
+  }
+  const note = kind.mirroredRepeat
+    ? 'Printed side of the mirrored repeats. Solid: seam lines; dashed: trim line 1/4 in outside.'
+    : 'Printed side (the mirror image of the finished quilt). Solid: seam lines; dashed: trim line 1/4 in outside.'
+  return {
+    kind,
+    title: `${design.name} - ${title}`,
+    box,
+    trimPolygon: trim.polygon,
+    drawing: { title: `${design.name} - ${title}`, note, box, outline: trim.polygon, draw },
+  }
+}
+
+/** A leaf as printed on a foundation: its outline, the marks on its seam, its layers. */
+interface PrintedLeaf {
+  readonly id: string
+  readonly layers: readonly string[]
+  readonly outline: Polygon
+  readonly ticks: readonly [Point, Point][]
+  readonly tip: Point
+}
+
+/** The leaves lying over an area of this section, on the printed side. */
+function leavesOfSection(model: BookletModel, kind: FoundationKind): PrintedLeaf[] {
+  const { design } = model
+  const areas = sectionAreas(model, kind.section)
+  const result: PrintedLeaf[] = []
+  for (const leaf of design.leaves) {
+    const seam = design.seams.find((s) => s.id === leaf.seam)
+    if (!seam) continue
+    let placement
+    try {
+      placement = placeLeaf(leaf, seam)
+    } catch {
+      continue // an impossible leaf is the plan's problem to report, not a reason to stop printing
+    }
+    const { base, tip, rawEdge } = placement
+    const axis = [tip[0] - base[0], tip[1] - base[1]]
+    const axisLength = Math.hypot(axis[0]!, axis[1]!) || 1
+    const probe: Point = [base[0] + (0.05 * axis[0]!) / axisLength, base[1] + (0.05 * axis[1]!) / axisLength]
+    if (!areas.some((area) => isPointInPolygon(probe, area.polygon))) continue
+    // A tick across the seam at each end of the open edge: from the raw edge, through the seam, as far again.
+    const mid: Point = [(rawEdge[0][0] + rawEdge[1][0]) / 2, (rawEdge[0][1] + rawEdge[1][1]) / 2]
+    const toSeam: Point = [base[0] - mid[0], base[1] - mid[1]]
+    const ticks = rawEdge.map((end): [Point, Point] => [end, [end[0] + 2 * toSeam[0], end[1] + 2 * toSeam[1]]])
+    const t = kind.printedSide
+    result.push({
+      id: leaf.id,
+      layers: leaf.layers,
+      outline: applyToPolygon(t, placement.finishedOutline),
+      ticks: ticks.map(([a, b]) => [applyTransform(t, a), applyTransform(t, b)]),
+      tip: applyTransform(t, tip),
+    })
+  }
+  return result
+}
+
+function drawLeafMarks(doc: jsPDF, view: View, window: PageRect, leaf: PrintedLeaf): void {
+  dashedPen(doc, 0.5, [2, 1.5], [80, 80, 80])
+  tracePolygon(doc, view, leaf.outline)
+  doc.stroke()
+  solidPen(doc, 1.4)
+  for (const [a, b] of leaf.ticks) doc.line(...toPage(view, a), ...toPage(view, b))
+  const at = toPage(view, leaf.tip)
+  font(doc, 6, 'italic', 30)
+  const lines = [`leaf ${leaf.id}: baste`, leaf.layers.join(', then ') + (leaf.layers.length > 1 ? ' on top' : '')]
+  const width = Math.max(...lines.map((line) => doc.getTextWidth(line)))
+  const x = at[0] + 3
+  const y = at[1] - 2
+  if (x + width < window.x + window.width - 2 && x > window.x && y - 6 > window.y && y + 8 < window.y + window.height) {
+    doc.text(lines, x, y)
+  }
+}
+
+/** True when a box of half-width `halfWidth` and `height` below the baseline-ish point fits the window. */
+function fitsIn(window: PageRect, at: [number, number], halfWidth: number, height: number): boolean {
+  return at[0] - halfWidth > window.x && at[0] + halfWidth < window.x + window.width && at[1] - height > window.y && at[1] + height < window.y + window.height
+}
+
+/**
+ * Writes every foundation, each tiled across as many pages as it needs.
+ *
+ * @example writeFoundationPages(context) // one layout per foundation
+ */
+export function writeFoundationPages(context: BookletContext): { sheet: FoundationSheet; layout: TileLayout }[] {
+  return foundationSheets(context.model).map((sheet) => ({ sheet, layout: writeTiledDrawing(context, sheet.drawing) }))
+}

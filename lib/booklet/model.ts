@@ -1,0 +1,110 @@
+/**
+ * What every part of the booklet reads: the design at its printed size, its plan, the colourway,
+ * each area's fabric, the foundations to print and the fabric each repeat needs. Pure data.
+ */
+import {
+  IDENTITY, isPointInPolygon, planDesign, printedSideTransform, scaleDesign,
+  type AffineTransform, type Colorway, type Design, type Plan, type PlanArea,
+} from '@/geometry'
+import type { BookletOptions } from '@/lib/schemas/booklet'
+
+/** One foundation to print: a section of a kind of repeat, how many to make and how it is mirrored. */
+export interface FoundationKind {
+  readonly section: string
+  /** Which repeats, in the maker's words: "every repeat", "repeats 1, 3, 5". */
+  readonly repeatName: string
+  /** How many of this foundation to print and sew. */
+  readonly count: number
+  /** Repeat 0's frame → this repeat's fabric side, kept in repeat 0's sector. */
+  readonly fabricSide: AffineTransform
+  /** Repeat 0's frame → the printed side of this foundation. */
+  readonly printedSide: AffineTransform
+  /** True for the mirrored repeats of an alternately mirrored ring. */
+  readonly mirroredRepeat: boolean
+}
+
+export interface BookletModel {
+  readonly design: Design
+  readonly plan: Plan
+  readonly colorway: Colorway | null
+  readonly options: BookletOptions
+  /** Fabric role of each area id ("unassigned" when no fill names it). */
+  readonly fabricOf: ReadonlyMap<string, string>
+  /** Labelled areas in sewing order. */
+  readonly labelledAreas: readonly PlanArea[]
+  readonly foundations: readonly FoundationKind[]
+  readonly finishedDiameterInches: number
+}
+
+/** The fabric role for an area nobody filled. */
+export const UNASSIGNED_FABRIC = 'unassigned'
+
+/**
+ * Builds the booklet's model: scales the design, plans it, picks the colourway and lists the
+ * foundations (one kind per section in rotate mode; in alternate-mirror mode a second, mirrored
+ * kind for the odd repeats).
+ *
+ * @example bookletModel(design, bookletOptionsSchema.parse({ paper: 'letter' })).foundations[0]?.count // 4
+ */
+export function bookletModel(original: Design, options: BookletOptions): BookletModel {
+  const diameter = options.finishedDiameterInches ?? 2 * original.ring.outerRadius
+  const design = Math.abs(diameter - 2 * original.ring.outerRadius) < 1e-9 ? original : scaleDesign(original, diameter)
+  const plan = planDesign(design)
+  const colorway = (options.colorway ? design.colorways.find((c) => c.name === options.colorway) : design.colorways[0]) ?? null
+  const fabricOf = new Map<string, string>()
+  for (const area of plan.areas) {
+    const fill = design.fills.find((f) => isPointInPolygon(f.at, area.polygon))
+    fabricOf.set(area.id, fill?.fabric ?? UNASSIGNED_FABRIC)
+  }
+  const labelledAreas = plan.areas.filter((area) => area.label !== null)
+  const n = design.ring.repeats
+  const printed = printedSideTransform(design.ring)
+  const kinds: { repeatName: string; count: number; fabricSide: AffineTransform; mirrored: boolean }[] =
+    design.ring.repeatMode === 'mirror'
+      ? [
+        { repeatName: `repeats ${oddNumbers(n, 1)}`, count: n / 2, fabricSide: IDENTITY, mirrored: false },
+        // The mirrored repeats, kept in repeat 0's sector: the bisector mirror of repeat 0.
+        { repeatName: `repeats ${oddNumbers(n, 2)} (mirror image)`, count: n / 2, fabricSide: printed, mirrored: true },
+      ]
+      : [{ repeatName: `every repeat (all ${n})`, count: n, fabricSide: IDENTITY, mirrored: false }]
+  const foundations: FoundationKind[] = []
+  for (const kind of kinds) {
+    for (const section of plan.sections) {
+      foundations.push({
+        section: section.label,
+        repeatName: kind.repeatName,
+        count: kind.count,
+        fabricSide: kind.fabricSide,
+        // The printed side is the bisector mirror of the fabric side (common practice: fabric on the unprinted side).
+        printedSide: kind.mirrored ? IDENTITY : printed,
+        mirroredRepeat: kind.mirrored,
+      })
+    }
+  }
+  return { design, plan, colorway, options, fabricOf, labelledAreas, foundations, finishedDiameterInches: diameter }
+}
+
+/** "1, 3, 5" (from 1) or "2, 4, 6" (from 2): the repeats of one kind, counted from 1. */
+function oddNumbers(n: number, first: number): string {
+  const list: number[] = []
+  for (let k = first; k <= n; k += 2) list.push(k)
+  return list.join(', ')
+}
+
+/**
+ * The colour of a fabric role in the model's colourway (grey when it has none).
+ *
+ * @example fabricColour(model, 'background') // '#f4ecd8'
+ */
+export function fabricColour(model: BookletModel, fabric: string): string | undefined {
+  return model.colorway?.fabrics[fabric]
+}
+
+/**
+ * The areas of one section, in sewing order.
+ *
+ * @example sectionAreas(model, 'A').map((area) => area.label) // ['A1', 'A2', …]
+ */
+export function sectionAreas(model: BookletModel, section: string): PlanArea[] {
+  return model.labelledAreas.filter((area) => area.section === section).sort((a, b) => (a.step ?? 0) - (b.step ?? 0))
+}

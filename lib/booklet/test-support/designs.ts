@@ -1,0 +1,75 @@
+/**
+ * Designs for the booklet's tests, built with the same schema a design file goes through.
+ * Invented shapes, never check values.
+ */
+import type { Design } from '@/geometry'
+import { parseDesign, type DesignFile } from '@/lib/schemas/design'
+
+const polar = (radius: number, degrees: number): [number, number] => [
+  radius * Math.cos((degrees * Math.PI) / 180), radius * Math.sin((degrees * Math.PI) / 180),
+]
+
+/** Parses a design file or fails the test with the first issue. */
+export function designFrom(file: DesignFile): Design {
+  const parsed = parseDesign(file)
+  if (!parsed.ok) throw new Error(`test design is invalid: ${parsed.issues[0]?.path} ${parsed.issues[0]?.message}`)
+  return parsed.design
+}
+
+/** An 18 in wreath of quarters with a band, two stacked leaves, a stem ring, berries and a curl. */
+export function wreathFile(overrides: Partial<DesignFile> = {}): DesignFile {
+  return {
+    format: 'wreathwright-design',
+    version: 1,
+    name: 'Test Wreath',
+    units: 'in',
+    ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
+    seams: [
+      { id: 'centre', from: [4, 0], to: [0, 4] },
+      { id: 'band', from: [7, 0], to: [0, 7] },
+      { id: 'vein', from: [3.5, 3.5], to: polar(9, 45) },
+    ],
+    fills: [
+      { at: [1, 1], fabric: 'background' },
+      { at: [2.5, 3], fabric: 'band' },
+      { at: [6, 1.5], fabric: 'background' },
+      { at: [1.5, 6], fabric: 'sky' },
+    ],
+    leaves: [
+      { id: 'l1', seam: 'band', at: 0.3, side: 'left', angle: 0, length: 1.75, width: 0.875, layers: ['leaf-dark', 'leaf-light'] },
+      { id: 'l2', seam: 'band', at: 0.7, side: 'left', angle: 0, length: 1.75, width: 0.875, layers: ['leaf-dark', 'leaf-light'] },
+    ],
+    stems: [{ radius: 7.75, finishedWidth: 0.375, fabric: 'stem' }],
+    berries: [{ at: polar(7.75, 20), finishedDiameter: 0.625, fabric: 'berry' }],
+    curls: [{ points: [polar(8.1, 40), polar(8.4, 44), polar(8.2, 49)] }],
+    colorways: [
+      { name: 'Holly', fabrics: { background: '#f4ecd8', band: '#c9d6b8', sky: '#b8c9d6', 'leaf-dark': '#2f5540', 'leaf-light': '#6f9a6a', stem: '#4a3a2a', berry: '#a3392b' } },
+      { name: 'Frost', fabrics: { background: '#eef2f5', band: '#c8d4de', sky: '#dde6ee', 'leaf-dark': '#41607a', 'leaf-light': '#8fb0c8', stem: '#5b6670', berry: '#d9dee3' } },
+    ],
+    order: null,
+    ...overrides,
+  }
+}
+
+/**
+ * One section of three areas that read differently in a mirror: a small triangle at the
+ * centre, then two areas cut off by seams of different slopes.
+ */
+export function asymmetricFile(): DesignFile {
+  return wreathFile({
+    name: 'Lopsided',
+    seams: [
+      { id: 's1', from: [2, 0], to: [0, 3] },
+      { id: 's2', from: [7, 0], to: [0, 4] },
+    ],
+    fills: [
+      { at: [0.5, 0.5], fabric: 'background' },
+      { at: [3, 1], fabric: 'band' },
+      { at: [5, 5], fabric: 'sky' },
+    ],
+    leaves: [],
+    stems: [],
+    berries: [],
+    curls: [],
+  })
+}
