@@ -83,6 +83,24 @@ describe('findSectionOrder', () => {
     )
   })
 
+  it('does not multiply independent ears into every order of them (30 caps along the arc)', () => {
+    // an X crossing near the centre and 30 caps cut off the arc, each touching only the area
+    // inside it: 2 sections (the X, geometry.md); the caps peel in any order, so trying every
+    // order (2^30 sets) must not happen
+    const radius = 30
+    const arc30 = (x: number): number => Math.sqrt(radius * radius - x * x)
+    const polar = (degrees: number): Point => [radius * Math.cos((degrees * Math.PI) / 180), radius * Math.sin((degrees * Math.PI) / 180)]
+    const seams = [
+      { id: 'v', from: [3, 0] as Point, to: [3, arc30(3)] as Point },
+      { id: 'h', from: [0, 3] as Point, to: [arc30(3), 3] as Point },
+      ...Array.from({ length: 30 }, (_, i) => ({ id: `c${i}`, from: polar(12 + 2.2 * i), to: polar(12 + 2.2 * (i + 1)) })),
+    ]
+    const plan = planDesign(design({ ring: { innerRadius: 0, outerRadius: radius, repeats: 4, repeatMode: 'rotate' }, seams }))
+    expect(plan.sewable).toBe(true)
+    expect(plan.sections).toHaveLength(2)
+    expect(plan.problems.filter((p) => p.code.startsWith('search'))).toEqual([])
+  })
+
   it('honours a leaf by sewing the area it lies over first', () => {
     const { topology, bottom, middle, top } = strips()
     // a leaf over the top strip caught in the top/middle seam: top before middle

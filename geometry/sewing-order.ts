@@ -164,12 +164,24 @@ export function isConnected(topology: Topology, set: AreaSet): boolean {
 
 /**
  * A valid one-section order of the set honouring every insert, or null. Depth-first over peels
- * (the last area first), memoised by the set that remains; it gives up (null, `gaveUp` set)
- * after MAX_PEEL_STATES sets, which only happens far beyond the sizes designers draw.
+ * (the last area first), memoised by the set that remains; each question may explore
+ * MAX_PEEL_STATES sets before it gives up (null, with `gaveUp` set), which only happens far
+ * beyond the sizes designers draw.
  *
  * @example findSectionOrder(createPeelSearch(topology, []), areaSetOf(3, [0, 1, 2])) // e.g. [0, 1, 2]
  */
 export function findSectionOrder(search: PeelSearch, set: AreaSet): readonly number[] | null {
+  search.states = 0
+  return peel(search, set)
+}
+
+function neighboursIn(topology: Topology, set: AreaSet, area: number): number {
+  let count = 0
+  for (const neighbour of topology.neighbours[area] ?? []) if (neighbour.area !== area && hasArea(set, neighbour.area)) count += 1
+  return count
+}
+
+function peel(search: PeelSearch, set: AreaSet): readonly number[] | null {
   const key = areaSetKey(set)
   const known = search.memo.get(key)
   if (known !== undefined) return known
@@ -180,18 +192,33 @@ export function findSectionOrder(search: PeelSearch, set: AreaSet): readonly num
     return null
   }
   search.states += 1
-  let found: readonly number[] | null = null
-  // Highest index first: a fixed rule, so the same design always gets the same order.
-  for (let i = members.length - 1; i >= 0 && !found; i -= 1) {
+  // An area touching only one other area of the set can be peeled first without losing any
+  // order: every other peel before it is independent of it (they share no edge), and peeling
+  // its one neighbour first would strand it. So take it and do not branch; this keeps many
+  // independent ears (caps along an arc) from multiplying into every order of them.
+  let forced = -1
+  for (let i = members.length - 1; i >= 0 && forced < 0; i -= 1) {
     const area = members[i] as number
-    if (!canPeel(search, set, area)) continue
-    const rest = withoutArea(set, area)
-    // What remains must stay connected, or it can never be one section: prune before recursing.
-    if (!isConnected(search.topology, rest)) continue
-    const before = findSectionOrder(search, rest)
-    if (before) found = [...before, area]
+    if (neighboursIn(search.topology, set, area) === 1 && canPeel(search, set, area)) forced = area
   }
-  if (found || !search.gaveUp) search.memo.set(key, found)
+  let found: readonly number[] | null = null
+  if (forced >= 0) {
+    const before = peel(search, withoutArea(set, forced))
+    found = before ? [...before, forced] : null
+  } else {
+    // Highest index first: a fixed rule, so the same design always gets the same order.
+    for (let i = members.length - 1; i >= 0 && !found; i -= 1) {
+      const area = members[i] as number
+      if (!canPeel(search, set, area)) continue
+      const rest = withoutArea(set, area)
+      // What remains must stay connected, or it can never be one section: prune before recursing.
+      if (!isConnected(search.topology, rest)) continue
+      const before = peel(search, rest)
+      if (before) found = [...before, area]
+    }
+  }
+  // A failure is only known when this question still had budget left (the count only grows).
+  if (found || search.states < MAX_PEEL_STATES) search.memo.set(key, found)
   return found
 }
 
