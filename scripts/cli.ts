@@ -9,6 +9,7 @@ import { readFileSync } from 'node:fs'
 import { pathToFileURL } from 'node:url'
 import { planDesign } from '../geometry/plan'
 import { formatDesignIssue, parseDesign } from '../lib/schemas/design'
+import { runPdfCommand } from './pdf-command'
 
 /** An error meant for the user: printed as one line, exit 2. */
 class UsageError extends Error {}
@@ -79,8 +80,14 @@ export function runCli(argv: readonly string[]): CliResult {
 }
 
 if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
-  const result = runCli(process.argv.slice(2))
-  process.stdout.write(result.stdout)
-  process.stderr.write(result.stderr)
-  process.exitCode = result.code
+  const argv = process.argv.slice(2)
+  if (argv[0] === 'pdf') {
+    // The booklet is written asynchronously (scripts/pdf-command.ts); runCli stays synchronous.
+    process.exitCode = await runPdfCommand(argv.slice(1), { stdout: (text) => process.stdout.write(text), stderr: (text) => process.stderr.write(text) })
+  } else {
+    const result = runCli(argv)
+    process.stdout.write(result.stdout)
+    process.stderr.write(result.stderr)
+    process.exitCode = result.code
+  }
 }
