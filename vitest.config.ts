@@ -21,7 +21,7 @@ export default defineConfig({
         extends: true,
         test: {
           name: 'unit',
-          include: ['geometry/**/*.test.ts', 'lib/**/*.test.ts', 'components/**/*.test.ts', 'scripts/**/*.test.ts'],
+          include: ['geometry/**/*.test.ts', 'lib/**/*.test.ts', 'components/**/*.test.ts', 'scripts/**/*.test.ts', 'tests/booklet/**/*.test.ts'],
           environment: 'node',
         },
       },
