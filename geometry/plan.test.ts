@@ -1,6 +1,6 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { design, gridDesign, peelDesign, quarterWedge } from './fixtures/generators'
+import { design, gridDesign, peelDesign, quarterWedge, xInLastRegionDesign } from './fixtures/generators'
 import { independentJoinProblem, independentOrderProblem } from './fixtures/independent-checker'
 import { planDesign, sectionLetter, type Plan } from './plan'
 import type { Design, HandSetOrder, JoinTree, Polygon, Seam } from './types'
@@ -21,6 +21,7 @@ const labels = (plan: Plan): Record<string, string | null> => Object.fromEntries
 const anyDesign = fc.oneof(
   fc.record({ seed: fc.integer({ min: 1, max: 1_000_000 }), count: fc.integer({ min: 2, max: 16 }) }).map(({ seed, count }) => peelDesign(count, seed).design),
   fc.record({ m: fc.integer({ min: 1, max: 5 }), n: fc.integer({ min: 1, max: 5 }) }).map(({ m, n }) => gridDesign(m, n)),
+  fc.record({ seed: fc.integer({ min: 1, max: 1_000_000 }), count: fc.integer({ min: 2, max: 12 }) }).map(({ seed, count }) => xInLastRegionDesign(count, seed)),
 )
 
 function strips(leaves: Design['leaves'] = []): Design {
@@ -71,9 +72,14 @@ describe('planDesign', () => {
 
   it('proposes sections and joins that an independent checker accepts', () => {
     // published criterion (Leake et al., ACM TOG 40(4) 2021) applied to sections and to joins
+    const designs = fc.oneof(
+      fc.record({ m: fc.integer({ min: 1, max: 5 }), n: fc.integer({ min: 1, max: 5 }) }).map(({ m, n }) => gridDesign(m, n)),
+      fc.record({ seed: fc.integer({ min: 1, max: 1_000_000 }), count: fc.integer({ min: 2, max: 14 }) }).map(({ seed, count }) => xInLastRegionDesign(count, seed)),
+    )
     fc.assert(
-      fc.property(fc.integer({ min: 1, max: 5 }), fc.integer({ min: 1, max: 5 }), (m, n) => {
-        const plan = planDesign(gridDesign(m, n))
+      fc.property(designs, (d) => {
+        const plan = planDesign(d)
+        expect(plan.sewable).toBe(true)
         const polygon = new Map(plan.areas.map((area) => [area.id, area.polygon]))
         const sectionPolygons = new Map(plan.sections.map((s) => [s.label, s.order.map((id) => polygon.get(id)!)]))
         for (const areas of sectionPolygons.values()) expect(independentOrderProblem(areas)).toBeNull()
@@ -84,9 +90,9 @@ describe('planDesign', () => {
           expect(independentJoinProblem(first, second)).toBeNull()
           return [...first, ...second]
         }
-        expect(visit(plan.assembly as JoinTree)).toHaveLength(m * n)
+        expect(visit(plan.assembly as JoinTree)).toHaveLength(plan.areas.length)
       }),
-      { numRuns: 25 },
+      { numRuns: 40 },
     )
   })
 
