@@ -24,7 +24,7 @@ export default function RootLayout({ children }: { children: ReactNode }) {
     <html lang="en" className={inter.variable}>
       <body className="min-h-screen font-sans">
         <SiteHeader />
-        <main className="mx-auto max-w-6xl px-4 py-8">{children}</main>
+        <main className="px-4 py-6">{children}</main>
       </body>
     </html>
   )

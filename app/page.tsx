@@ -5,7 +5,8 @@ import { can } from '@/lib/authorization'
 export default async function HomePage() {
   const user = await getCurrentUser()
   return (
-    <section className="max-w-3xl space-y-6">
+    <section className="mx-auto max-w-6xl">
+      <div className="max-w-3xl space-y-6">
       <h1 className="text-3xl font-semibold text-thread-800">Rings, wreaths and medallions, sewn flip-and-sew.</h1>
       <p className="text-lg text-stone-700">
         Wreathwright is a studio for designers of circular foundation-paper-pieced quilt patterns: draft one repeat,
@@ -30,6 +31,7 @@ export default async function HomePage() {
           </Link>
         </div>
       )}
+      </div>
     </section>
   )
 }

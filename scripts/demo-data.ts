@@ -33,8 +33,9 @@ const polar = (radius: number, degrees: number): [number, number] => [
 ]
 
 /**
- * Quarters of an 18 in wreath, each cut centre-outwards by straight lines: a centre triangle, a
- * band carrying two stacked leaves, and two outer areas split along the quarter's middle.
+ * Quarters of an 18 in wreath, each cut by straight lines: a centre triangle, a band, and two
+ * outer areas split along the quarter's middle. The two stacked leaves lie over the outer areas,
+ * caught in the band's seam, so the outer areas are sewn first and all four fit on one foundation.
  */
 const hollyberryWreath: DesignFile = {
   format: 'wreathwright-design',
@@ -54,8 +55,8 @@ const hollyberryWreath: DesignFile = {
     { at: [1.5, 6], fabric: 'background' },
   ],
   leaves: [
-    { id: 'leaf-east', seam: 'band', at: 0.3, side: 'left', angle: 0, length: 1.75, width: 0.875, layers: ['leaf-dark', 'leaf-light'] },
-    { id: 'leaf-north', seam: 'band', at: 0.7, side: 'left', angle: 0, length: 1.75, width: 0.875, layers: ['leaf-dark', 'leaf-light'] },
+    { id: 'leaf-east', seam: 'band', at: 0.3, side: 'right', angle: 0, length: 1.75, width: 0.875, layers: ['leaf-dark', 'leaf-light'] },
+    { id: 'leaf-north', seam: 'band', at: 0.7, side: 'right', angle: 0, length: 1.75, width: 0.875, layers: ['leaf-dark', 'leaf-light'] },
   ],
   stems: [{ radius: 7.75, finishedWidth: 0.375, fabric: 'stem' }],
   berries: [

@@ -18,11 +18,16 @@ export default async function PatternPage({ params }: { params: Promise<{ id: st
   const { ring } = pattern.design
   const unit = pattern.design.units
   return (
-    <article className="space-y-6">
+    <article className="mx-auto max-w-6xl space-y-6">
       <Link href="/patterns" className="text-sm text-thread-700 hover:underline">
         ← Pattern shelf
       </Link>
       <h1 className="text-2xl font-semibold text-thread-800">{pattern.name}</h1>
+      <div className="flex gap-3">
+        <Link href={`/patterns/${pattern.id}/board`} className="rounded bg-thread-700 px-4 py-2 text-white hover:bg-thread-800">
+          Open the drafting board
+        </Link>
+      </div>
       <dl className="grid max-w-xl grid-cols-2 gap-x-6 gap-y-2 text-sm">
         <dt className="text-stone-500">State</dt>
         <dd>{pattern.state}</dd>

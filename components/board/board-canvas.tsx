@@ -1,0 +1,106 @@
+'use client'
+
+import type Konva from 'konva'
+import { useEffect, useMemo, useRef, type MutableRefObject } from 'react'
+import { Layer, Stage } from 'react-konva'
+import { boardPlan } from '@/lib/board/board-plan'
+import type { PointerController } from '@/lib/board/pointer'
+import { design as designOf, type BoardStore } from '@/lib/board/store'
+import { toWorld, zoomAt } from '@/lib/board/view'
+import { OverlayShapes } from './overlay-shapes'
+import { RingShapes } from './ring-shapes'
+import { useBoard } from './use-board'
+
+/**
+ * The drafting board's canvas. It draws from the store and forwards pointer events, in design
+ * units, to the pointer controller; it holds no design state of its own.
+ */
+export function BoardCanvas({
+  store,
+  pointer,
+  width,
+  height,
+  stageRef,
+}: {
+  store: BoardStore
+  pointer: PointerController
+  width: number
+  height: number
+  stageRef?: MutableRefObject<Konva.Stage | null>
+}) {
+  const design = useBoard(store, designOf)
+  const view = useBoard(store, (state) => state.view)
+  const plan = useMemo(() => boardPlan(design), [design])
+  const panning = useRef<{ from: [number, number] } | null>(null)
+  const localStage = useRef<Konva.Stage | null>(null)
+
+  const worldOf = (stage: Konva.Stage | null) => {
+    const position = stage?.getPointerPosition()
+    if (!position) return null
+    return toWorld([position.x, position.y], store.getState().view, design.ring.repeats)
+  }
+
+  // Redraw at most once per animation frame however many store changes a pointer move causes.
+  useEffect(() => {
+    const stage = localStage.current
+    if (stage) stage.batchDraw()
+  })
+
+  return (
+    <Stage
+      ref={(stage) => {
+        localStage.current = stage
+        if (stageRef) stageRef.current = stage
+      }}
+      width={width}
+      height={height}
+      data-testid="board-canvas"
+      onPointerDown={(event) => {
+        const stage = event.target.getStage()
+        const native = event.evt
+        if (native.button === 1 || native.button === 2) {
+          panning.current = { from: [native.clientX, native.clientY] }
+          return
+        }
+        const world = worldOf(stage)
+        if (world) pointer.down(world, { alt: native.altKey })
+      }}
+      onPointerMove={(event) => {
+        const native = event.evt
+        if (panning.current) {
+          const [x, y] = panning.current.from
+          const current = store.getState().view
+          store.update({ view: { ...current, centre: [current.centre[0] + native.clientX - x, current.centre[1] + native.clientY - y] } })
+          panning.current = { from: [native.clientX, native.clientY] }
+          return
+        }
+        const world = worldOf(event.target.getStage())
+        if (world) pointer.move(world, { alt: native.altKey })
+      }}
+      onPointerUp={(event) => {
+        if (panning.current) {
+          panning.current = null
+          return
+        }
+        const world = worldOf(event.target.getStage())
+        if (world) pointer.up(world, { alt: event.evt.altKey })
+      }}
+      onDblClick={() => pointer.doubleClick()}
+      onContextMenu={(event) => event.evt.preventDefault()}
+      onWheel={(event) => {
+        event.evt.preventDefault()
+        const position = event.target.getStage()?.getPointerPosition()
+        if (!position) return
+        const factor = Math.exp(-event.evt.deltaY * 0.0015)
+        store.update({ view: zoomAt(store.getState().view, [position.x, position.y], factor) })
+      }}
+    >
+      <Layer listening={false}>
+        <RingShapes store={store} design={design} plan={plan} view={view} />
+      </Layer>
+      <Layer listening={false}>
+        <OverlayShapes store={store} design={design} plan={plan} view={view} />
+      </Layer>
+    </Stage>
+  )
+}

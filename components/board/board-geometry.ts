@@ -1,0 +1,100 @@
+/**
+ * Shapes of the board in design units, computed from the design and its plan for drawing:
+ * repeat 0 and every other repeat of the ring, leaves as they lie, fabric colours per area.
+ */
+import { applyTransform, repeatTransforms, type AffineTransform } from '@/geometry'
+import { placeLeaf } from '@/geometry/leaf-template'
+import type { BoardPlan } from '@/lib/board/board-plan'
+import { areaAt } from '@/lib/board/board-plan'
+import type { BoardDesign } from '@/lib/board/commands'
+
+export type Point = readonly [number, number]
+
+export interface AreaShape {
+  readonly id: string
+  readonly label: string | null
+  readonly polygon: readonly Point[]
+  readonly labelAt: Point
+  readonly fabric: string | null
+}
+
+export interface LeafShape {
+  readonly id: string
+  /** Outlines of the stacked layers, bottom first, each a little smaller so all show. */
+  readonly layers: readonly { readonly outline: readonly Point[]; readonly fabric: string }[]
+}
+
+const scalePoint = (p: Point, factor: number): Point => [p[0] * factor, p[1] * factor]
+
+/** The plan's areas in design units, each with the fabric of the last fill that falls in it. */
+export function areaShapes(design: BoardDesign, plan: BoardPlan): AreaShape[] {
+  if (!plan.plan) return []
+  const fabricByArea = new Map<string, string>()
+  for (const fill of design.fills) {
+    const area = areaAt(plan, fill.at)
+    if (area) fabricByArea.set(area.id, fill.fabric)
+  }
+  return plan.plan.areas.map((area) => ({
+    id: area.id,
+    label: area.label,
+    polygon: area.polygon.map((p) => scalePoint(p, plan.unitsPerInch)),
+    labelAt: scalePoint(area.point, plan.unitsPerInch),
+    fabric: fabricByArea.get(area.id) ?? null,
+  }))
+}
+
+/** Each leaf as it lies on its seam, its layers shrinking towards the seam so every layer shows. */
+export function leafShapes(design: BoardDesign): LeafShape[] {
+  const shapes: LeafShape[] = []
+  for (const leaf of design.leaves) {
+    const seam = design.seams.find((s) => s.id === leaf.seam)
+    if (!seam) continue
+    try {
+      const placed = placeLeaf({ ...leaf, angle: leaf.angle ?? 0 }, seam)
+      const count = leaf.layers.length
+      shapes.push({
+        id: leaf.id,
+        layers: leaf.layers.map((fabric, index) => {
+          // Upper layers are drawn a little shorter, as a stacked pair of folded leaves shows.
+          const shrink = 1 - (0.22 * index) / Math.max(1, count - 1 || 1)
+          return {
+            fabric,
+            outline: placed.finishedOutline.map((p) => [
+              placed.base[0] + (p[0] - placed.base[0]) * shrink,
+              placed.base[1] + (p[1] - placed.base[1]) * shrink,
+            ] as Point),
+          }
+        }),
+      })
+    } catch {
+      // A leaf too wide for its length cannot be pointed; the inspector says so.
+    }
+  }
+  return shapes
+}
+
+/** The transforms from repeat 0 to every repeat of the ring (rotations, or reflections in mirror mode). */
+export function ringTransforms(design: BoardDesign): AffineTransform[] {
+  return repeatTransforms({ ...design.ring })
+}
+
+export const transformPoints = (transform: AffineTransform, points: readonly Point[]): Point[] =>
+  points.map((p) => applyTransform(transform, p))
+
+/** The outline of repeat 0 as a polygon (arcs as short chords), in design units. */
+export function repeatOutlinePolygon(design: BoardDesign, segmentsPerArc = 48): Point[] {
+  const { innerRadius, outerRadius, repeats } = design.ring
+  const sweep = (2 * Math.PI) / repeats
+  const outer: Point[] = []
+  for (let i = 0; i <= segmentsPerArc; i += 1) {
+    const angle = (sweep * i) / segmentsPerArc
+    outer.push([outerRadius * Math.cos(angle), outerRadius * Math.sin(angle)])
+  }
+  if (innerRadius === 0) return [[0, 0], ...outer]
+  const inner: Point[] = []
+  for (let i = segmentsPerArc; i >= 0; i -= 1) {
+    const angle = (sweep * i) / segmentsPerArc
+    inner.push([innerRadius * Math.cos(angle), innerRadius * Math.sin(angle)])
+  }
+  return [...outer, ...inner]
+}

@@ -1,0 +1,97 @@
+'use client'
+
+import { useMemo } from 'react'
+import { Circle, Line, Rect, Text } from 'react-konva'
+import { roughCutBeforeFlip } from '@/geometry'
+import { sewingSteps, type BoardPlan } from '@/lib/board/board-plan'
+import type { BoardDesign } from '@/lib/board/commands'
+import { formatSize } from '@/lib/board/format'
+import type { BoardStore, View } from '@/lib/board/store'
+import { toScreen } from '@/lib/board/view'
+import { leafShapes, type Point } from './board-geometry'
+import { screenPoints } from './ring-shapes'
+import { useBoard } from './use-board'
+
+const HIGHLIGHT = '#2f5540'
+
+/** What is selected, being drawn, or highlighted by the step-through, over the ring. */
+export function OverlayShapes({ store, design, plan, view }: { store: BoardStore; design: BoardDesign; plan: BoardPlan; view: View }) {
+  const selection = useBoard(store, (state) => state.selection)
+  const tool = useBoard(store, (state) => state.tool)
+  const draft = useBoard(store, (state) => state.draft)
+  const step = useBoard(store, (state) => state.step)
+  const handOrder = useBoard(store, (state) => state.handOrderDraft)
+  const repeats = design.ring.repeats
+  const pixels = (points: readonly Point[]) => screenPoints(points, view, repeats)
+  const steps = useMemo(() => (plan.plan ? sewingSteps(plan.plan) : []), [plan])
+  const leaves = useMemo(() => leafShapes(design), [design])
+  const scale = plan.unitsPerInch
+  const inDesignUnits = (p: Point): Point => [p[0] * scale, p[1] * scale]
+  const current = step !== null ? steps[Math.min(step, steps.length - 1)] : undefined
+
+  return (
+    <>
+      {current && (
+        <>
+          <Line points={pixels(current.polygon.map(inDesignUnits))} closed fill="rgba(47,85,64,0.35)" stroke={HIGHLIGHT} strokeWidth={3} />
+          {current.sewnAlong && (
+            <Line points={pixels(current.sewnAlong.map(inDesignUnits))} stroke="#a3392b" strokeWidth={4} dash={[10, 5]} />
+          )}
+          {(() => {
+            // Before the flip the piece lies right side down over the sewn areas, mirrored across the sewing line.
+            const placed = current.sewnAlong ? roughCutBeforeFlip(current.roughCut, current.sewnAlong) : current.roughCut.corners
+            const [x, y] = toScreen(inDesignUnits(placed[0]!), view, repeats)
+            return (
+              <>
+                <Line points={pixels(placed.map(inDesignUnits))} closed stroke="#6b4f2a" strokeWidth={2} dash={[6, 4]} fill="rgba(215,155,31,0.15)" />
+                <Text x={x + 4} y={y + 4} text={`cut ${formatSize(current.roughCut.widthIn, current.roughCut.heightIn, design.units)}`} fontSize={12} fill="#6b4f2a" />
+              </>
+            )
+          })()}
+          {leaves
+            .filter((leaf) => current.leavesBefore.includes(leaf.id))
+            .map((leaf) => (
+              <Line key={leaf.id} points={pixels(leaf.layers[0]!.outline)} closed stroke="#d79b1f" strokeWidth={3} />
+            ))}
+        </>
+      )}
+      {selection?.kind === 'seam' &&
+        design.seams
+          .filter((seam) => seam.id === selection.id)
+          .map((seam) => <Line key={seam.id} points={pixels([seam.from, seam.to])} stroke={HIGHLIGHT} strokeWidth={5} opacity={0.6} />)}
+      {selection?.kind === 'leaf' &&
+        leaves
+          .filter((leaf) => leaf.id === selection.id)
+          .map((leaf) => <Line key={leaf.id} points={pixels(leaf.layers[0]!.outline)} closed stroke={HIGHLIGHT} strokeWidth={3} />)}
+      {selection?.kind === 'berry' && design.berries[selection.index] && (() => {
+        const berry = design.berries[selection.index]!
+        const [x, y] = toScreen(berry.at, view, repeats)
+        return <Circle x={x} y={y} radius={(berry.finishedDiameter / 2) * view.zoom + 4} stroke={HIGHLIGHT} strokeWidth={2} />
+      })()}
+      {selection?.kind === 'curl' && design.curls[selection.index] && (
+        <Line points={pixels(design.curls[selection.index]!.points)} stroke={HIGHLIGHT} strokeWidth={4} tension={0.5} opacity={0.6} />
+      )}
+      {tool === 'select' &&
+        design.seams.flatMap((seam) =>
+          (['from', 'to'] as const).map((end) => {
+            const [x, y] = toScreen(seam[end], view, repeats)
+            return <Rect key={`${seam.id}-${end}`} x={x - 4} y={y - 4} width={8} height={8} fill="#ffffff" stroke={HIGHLIGHT} strokeWidth={1.5} />
+          }),
+        )}
+      {draft.seam && <Line points={pixels(draft.seam)} stroke={HIGHLIGHT} strokeWidth={2} dash={[8, 4]} />}
+      {draft.snap && draft.snap.kind !== 'none' && (() => {
+        const [x, y] = toScreen(draft.snap.point, view, repeats)
+        return <Circle x={x} y={y} radius={5} stroke="#a3392b" strokeWidth={2} />
+      })()}
+      {draft.curl && <Line points={pixels(draft.curl)} stroke="#4a3a2a" strokeWidth={2} tension={0.5} dash={[4, 3]} />}
+      {handOrder?.flatMap((section, s) =>
+        section.map((point, index) => {
+          const [x, y] = toScreen(point, view, repeats)
+          return (
+            <Text key={`${s}-${index}`} x={x - 20} y={y + 10} width={40} align="center" text={`${String.fromCharCode(65 + s)}${index + 1}?`} fontSize={13} fill="#a3392b" fontStyle="bold" />
+          )
+        }),
+      )}
+    </>
+  )
+}
