@@ -1,0 +1,73 @@
+/**
+ * The print dialog's form state turned into booklet options through the shared schema, and the
+ * file name the download gets. No React, so it can be tested on its own.
+ */
+import { bookletOptionsSchema, BOOKLET_PARTS, type BookletOptions, type BookletPart, type PaperName } from '@/lib/schemas/booklet'
+import { centimetresToInches } from '@/lib/units'
+
+export interface PrintFormState {
+  readonly paper: PaperName
+  readonly orientation: 'portrait' | 'landscape'
+  readonly colorway: string
+  /** As typed, in the design's units. */
+  readonly diameter: string
+  readonly units: 'in' | 'cm'
+  readonly parts: readonly BookletPart[]
+  readonly margin: string
+  readonly overlap: string
+}
+
+/** Friendly names of the booklet's parts for the checkboxes. */
+export const PART_TITLES: Readonly<Record<BookletPart, string>> = {
+  cover: 'Cover, fabric and cutting list',
+  cautions: 'Printing notes and cautions',
+  steps: 'Sewing steps, joins and finishing',
+  foundations: 'Foundations (true scale, tiled)',
+  templates: 'Leaf and berry templates',
+  guide: 'Stem ring and curl placement guide',
+}
+
+export const ALL_PARTS: readonly BookletPart[] = BOOKLET_PARTS
+
+/**
+ * Booklet options from the form, or the first problem in words.
+ *
+ * @example printOptionsFrom({ paper: 'a4', orientation: 'portrait', colorway: 'Holly', diameter: '24', units: 'in', parts: ['foundations'], margin: '0.4', overlap: '0.5' })
+ * // { ok: true, options: { paper: 'a4', finishedDiameterInches: 24, … } }
+ */
+export function printOptionsFrom(state: PrintFormState): { ok: true; options: BookletOptions } | { ok: false; message: string } {
+  const diameter = Number(state.diameter)
+  if (state.diameter.trim() === '' || !Number.isFinite(diameter) || diameter <= 0) return { ok: false, message: 'The finished diameter must be a positive number.' }
+  const margin = Number(state.margin)
+  const overlap = Number(state.overlap)
+  const parsed = bookletOptionsSchema.safeParse({
+    paper: state.paper,
+    orientation: state.orientation,
+    colorway: state.colorway || undefined,
+    finishedDiameterInches: state.units === 'cm' ? centimetresToInches(diameter) : diameter,
+    parts: ALL_PARTS.filter((part) => state.parts.includes(part)),
+    marginInches: margin,
+    overlapInches: overlap,
+  })
+  if (parsed.success) return { ok: true, options: parsed.data }
+  const issue = parsed.error.issues[0]
+  const field = String(issue?.path[0] ?? '')
+  const names: Record<string, string> = {
+    parts: 'Choose at least one part of the booklet.',
+    marginInches: 'The margin must be between 0.1 and 1.5 in.',
+    overlapInches: 'The overlap must be between 0.25 and 2 in.',
+    finishedDiameterInches: 'The finished diameter must be at most 200 in.',
+  }
+  return { ok: false, message: names[field] ?? `${field}: ${issue?.message ?? 'invalid'}` }
+}
+
+/**
+ * A file name for the booklet: pattern, colourway, size and paper, safe on every system.
+ *
+ * @example bookletFileName('Hollyberry Wreath', { paper: 'letter', colorway: 'Holly', finishedDiameterInches: 24 }) // 'hollyberry-wreath-holly-24in-letter.pdf'
+ */
+export function bookletFileName(name: string, options: Pick<BookletOptions, 'paper' | 'colorway' | 'finishedDiameterInches'>): string {
+  const slug = (text: string): string => text.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '')
+  const size = options.finishedDiameterInches ? `${Math.round(options.finishedDiameterInches * 100) / 100}in` : ''
+  return `${[slug(name) || 'pattern', options.colorway ? slug(options.colorway) : '', size, options.paper].filter(Boolean).join('-')}.pdf`
+}
