@@ -40,6 +40,12 @@ export interface Topology {
   readonly areasAtVertex: readonly (readonly number[])[]
   /** For each vertex, the seam edges ending there. */
   readonly edgesAtVertex: readonly (readonly number[])[]
+  /**
+   * Interior vertices around which no area runs straight through (an X crossing, a Y point):
+   * the last of their areas to be sewn would meet the others along two lines, so no section
+   * holds all of their areas. Each with the areas around it.
+   */
+  readonly blockedVertices: readonly { readonly vertex: number; readonly areas: readonly number[] }[]
 }
 
 /** Why a boundary is not one straight segment. */
@@ -141,6 +147,17 @@ export function buildTopology(arrangement: Arrangement): Topology {
       for (const area of [edge.left, edge.right]) if (!list.includes(area)) list.push(area)
     }
   }
+  const blockedVertices: { vertex: number; areas: number[] }[] = []
+  edgesAtVertex.forEach((edges, vertex) => {
+    const around = areasAtVertex[vertex] ?? []
+    if (arrangement.vertexOnOutline[vertex] || around.length < 3 || around.includes(-1)) return
+    // An area runs straight through the vertex when its two sides there lie on one seam line.
+    const straight = around.some((area) => {
+      const sides = edges.filter((edge) => seamEdges[edge]?.left === area || seamEdges[edge]?.right === area)
+      return sides.length === 2 && seamEdges[sides[0] as number]?.line === seamEdges[sides[1] as number]?.line
+    })
+    if (!straight) blockedVertices.push({ vertex, areas: [...around].sort((p, q) => p - q) })
+  })
   return {
     areaCount: arrangement.areas.length,
     vertices,
@@ -150,6 +167,7 @@ export function buildTopology(arrangement: Arrangement): Topology {
     neighbours: neighbourMaps.map((map) => [...map.entries()].sort((p, q) => p[0] - q[0]).map(([area, edges]) => ({ area, edges }))),
     areasAtVertex,
     edgesAtVertex,
+    blockedVertices,
   }
 }
 

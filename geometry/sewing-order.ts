@@ -175,6 +175,11 @@ export function findSectionOrder(search: PeelSearch, set: AreaSet): readonly num
   return peel(search, set)
 }
 
+/** Whether the set holds every area around a vertex no area runs straight through (see Topology). */
+function holdsBlockedVertex(topology: Topology, set: AreaSet): boolean {
+  return topology.blockedVertices.some(({ areas }) => areas.every((area) => hasArea(set, area)))
+}
+
 function neighboursIn(topology: Topology, set: AreaSet, area: number): number {
   let count = 0
   for (const neighbour of topology.neighbours[area] ?? []) if (neighbour.area !== area && hasArea(set, neighbour.area)) count += 1
@@ -187,6 +192,10 @@ function peel(search: PeelSearch, set: AreaSet): readonly number[] | null {
   if (known !== undefined) return known
   const members = areaMembers(set)
   if (members.length === 1) return members
+  if (holdsBlockedVertex(search.topology, set)) {
+    search.memo.set(key, null)
+    return null
+  }
   if (search.states >= MAX_PEEL_STATES) {
     search.gaveUp = true
     return null
