@@ -8,14 +8,12 @@
  * written, upright, at the transformed places.
  */
 import type { jsPDF } from 'jspdf'
-import {
-  applyToPolygon, applyTransform, isPointInPolygon, outlineFromPolygon, type Point, type Polygon,
-} from '@/geometry'
+import { applyToPolygon, applyTransform, outlineFromPolygon, type Point, type Polygon } from '@/geometry'
 import { font } from './chrome'
 import type { BookletContext } from './context'
 import { dashedPen, solidPen, toPage, tracePath, tracePolygon, type View } from './draw'
-import { placeLeaf, sectionTrimLine } from './geometry-gaps'
-import { sectionAreas, type BookletModel, type FoundationKind } from './model'
+import { sectionTrimLine } from './geometry-gaps'
+import { leavesInBooklet, sectionAreas, type BookletModel, type FoundationKind } from './model'
 import type { PageRect } from './paper'
 import { writeTiledDrawing, type TiledDrawing } from './tiled-drawing'
 import type { TileLayout } from './tiling'
@@ -101,37 +99,23 @@ interface PrintedLeaf {
 
 /** The leaves lying over an area of this section, on the printed side. */
 function leavesOfSection(model: BookletModel, kind: FoundationKind): PrintedLeaf[] {
-  const { design } = model
-  const areas = sectionAreas(model, kind.section)
-  const result: PrintedLeaf[] = []
-  for (const leaf of design.leaves) {
-    const seam = design.seams.find((s) => s.id === leaf.seam)
-    if (!seam) continue
-    let placement
-    try {
-      placement = placeLeaf(leaf, seam)
-    } catch {
-      continue // an impossible leaf is the plan's problem to report, not a reason to stop printing
-    }
-    const { base, tip, rawEdge } = placement
-    const axis = [tip[0] - base[0], tip[1] - base[1]]
-    const axisLength = Math.hypot(axis[0]!, axis[1]!) || 1
-    const probe: Point = [base[0] + (0.05 * axis[0]!) / axisLength, base[1] + (0.05 * axis[1]!) / axisLength]
-    if (!areas.some((area) => isPointInPolygon(probe, area.polygon))) continue
-    // A tick across the seam at each end of the open edge: from the raw edge, through the seam, as far again.
-    const mid: Point = [(rawEdge[0][0] + rawEdge[1][0]) / 2, (rawEdge[0][1] + rawEdge[1][1]) / 2]
-    const toSeam: Point = [base[0] - mid[0], base[1] - mid[1]]
-    const ticks = rawEdge.map((end): [Point, Point] => [end, [end[0] + 2 * toSeam[0], end[1] + 2 * toSeam[1]]])
-    const t = kind.printedSide
-    result.push({
-      id: leaf.id,
-      layers: leaf.layers,
-      outline: applyToPolygon(t, placement.finishedOutline),
-      ticks: ticks.map(([a, b]) => [applyTransform(t, a), applyTransform(t, b)]),
-      tip: applyTransform(t, tip),
+  return leavesInBooklet(model)
+    .filter((entry) => entry.section === kind.section)
+    .map(({ leaf, placement }) => {
+      const { base, rawEdge } = placement
+      // A tick across the seam at each end of the open edge: from the raw edge, through the seam, as far again.
+      const mid: Point = [(rawEdge[0][0] + rawEdge[1][0]) / 2, (rawEdge[0][1] + rawEdge[1][1]) / 2]
+      const toSeam: Point = [base[0] - mid[0], base[1] - mid[1]]
+      const ticks = rawEdge.map((end): [Point, Point] => [end, [end[0] + 2 * toSeam[0], end[1] + 2 * toSeam[1]]])
+      const t = kind.printedSide
+      return {
+        id: leaf.id,
+        layers: leaf.layers,
+        outline: applyToPolygon(t, placement.finishedOutline),
+        ticks: ticks.map(([a, b]): [Point, Point] => [applyTransform(t, a), applyTransform(t, b)]),
+        tip: applyTransform(t, placement.tip),
+      }
     })
-  }
-  return result
 }
 
 function drawLeafMarks(doc: jsPDF, view: View, window: PageRect, leaf: PrintedLeaf): void {

@@ -4,8 +4,9 @@
  */
 import {
   IDENTITY, isPointInPolygon, planDesign, printedSideTransform, scaleDesign,
-  type AffineTransform, type Colorway, type Design, type Plan, type PlanArea,
+  type AffineTransform, type Colorway, type Design, type Leaf, type Plan, type PlanArea, type Point,
 } from '@/geometry'
+import { placeLeaf, type LeafPlacement } from './geometry-gaps'
 import type { BookletOptions } from '@/lib/schemas/booklet'
 
 /** One foundation to print: a section of a kind of repeat, how many to make and how it is mirrored. */
@@ -107,4 +108,42 @@ export function fabricColour(model: BookletModel, fabric: string): string | unde
  */
 export function sectionAreas(model: BookletModel, section: string): PlanArea[] {
   return model.labelledAreas.filter((area) => area.section === section).sort((a, b) => (a.step ?? 0) - (b.step ?? 0))
+}
+
+/** A leaf as the booklet needs it: where it lies, over which section, and when it is basted. */
+export interface LeafInBooklet {
+  readonly leaf: Leaf
+  readonly placement: LeafPlacement
+  /** The section of the area it lies over (null when it lies over none). */
+  readonly section: string | null
+  /** The area sewn right after it is basted, or null when a section join catches it. */
+  readonly basteBefore: string | null
+}
+
+/**
+ * Every leaf that can be placed, with its section and the step that catches it.
+ *
+ * @example leavesInBooklet(model)[0]?.basteBefore // 'A3', or null for a leaf caught in a join
+ */
+export function leavesInBooklet(model: BookletModel): LeafInBooklet[] {
+  const { design } = model
+  const result: LeafInBooklet[] = []
+  for (const leaf of design.leaves) {
+    const seam = design.seams.find((s) => s.id === leaf.seam)
+    if (!seam) continue
+    let placement: LeafPlacement
+    try {
+      placement = placeLeaf(leaf, seam)
+    } catch {
+      continue // an impossible leaf is the plan's problem to report, not a reason to stop printing
+    }
+    const { base, tip } = placement
+    const length = Math.hypot(tip[0] - base[0], tip[1] - base[1]) || 1
+    // A point just off the seam on the leaf's side names the area it lies over.
+    const probe: Point = [base[0] + (0.05 * (tip[0] - base[0])) / length, base[1] + (0.05 * (tip[1] - base[1])) / length]
+    const over = model.labelledAreas.find((area) => isPointInPolygon(probe, area.polygon))
+    const caught = model.labelledAreas.find((area) => area.leavesBefore.includes(leaf.id))
+    result.push({ leaf, placement, section: over?.section ?? null, basteBefore: caught?.label ?? null })
+  }
+  return result
 }

@@ -13,7 +13,7 @@ import type { BookletContext } from './context'
 import { dashedPen, fitView, rgb, solidPen, toPage, tracePath, tracePolygon } from './draw'
 import { BERRY_EXTRA_INCHES, STEM_OVERLAP_INCHES } from './fabric-list'
 import { startFlow, WRAP_SLACK_PT } from './flow'
-import { fabricColour, sectionAreas, type BookletModel, type FoundationKind } from './model'
+import { fabricColour, leavesInBooklet, sectionAreas, type BookletModel, type FoundationKind } from './model'
 
 /** Side of a step's diagram, points. */
 const DIAGRAM_PT = 92
@@ -122,6 +122,11 @@ export function writeSteps(context: BookletContext): void {
   const joins = joinSentences(model.plan.assembly)
   if (joins.length === 0) flow.paragraph('Each repeat is one section: nothing to join.')
   joins.forEach((sentence, index) => flow.paragraph(`${index + 1}. ${sentence} Pin at the seam ends, sew on the line, press the seam open.`))
+  const inJoins = leavesInBooklet(model).filter((entry) => entry.basteBefore === null && entry.section !== null)
+  if (inJoins.length > 0) {
+    flow.paragraph('Leaves caught in a section join: before sewing that join, baste each on its marks at the edge of its section, raw edges 1/4 in past the seam line:', { style: 'bold', size: 8.5 })
+    for (const { leaf, section } of inJoins) flow.paragraph(`- leaf ${leaf.id} on section ${section}: ${leaf.layers.join(', then ')}${leaf.layers.length > 1 ? ' on top' : ''}.`, { indent: 10, size: 8.5 })
+  }
   flow.heading('Joining the repeats')
   flow.paragraph(model.plan.ringAssembly.message)
   if (model.design.ring.repeatMode === 'mirror') flow.paragraph('Alternate the repeats: each mirrored repeat sits between two plain ones.')

@@ -1,0 +1,68 @@
+import { readFileSync } from 'node:fs'
+import { describe, expect, it } from 'vitest'
+import { buildBooklet, writeBooklet } from './booklet'
+import { joinSentences } from './steps'
+import { allText, openPdf } from './test-support/read-pdf'
+import { designFrom, wreathFile } from './test-support/designs'
+import type { DesignFile } from '@/lib/schemas/design'
+
+const fixture = (name: string) => designFrom(JSON.parse(readFileSync(`geometry/fixtures/${name}/design.json`, 'utf8')) as DesignFile)
+const textOf = async (bytes: Uint8Array) => (await allText(await openPdf(bytes))).replace(/\s+/g, ' ')
+
+describe('booklet text', () => {
+  it('carries the cautions of the trade (common practice)', async () => {
+    const text = await textOf(buildBooklet(designFrom(wreathFile()), { paper: 'letter', parts: ['cautions'] }))
+    expect(text).toMatch(/Rotary cutters are very sharp/)
+    expect(text).toMatch(/never leave a hot iron unattended/)
+    expect(text).toMatch(/not suitable for infants/)
+    expect(text).toMatch(/Use your own judgement/)
+  })
+
+  it('gives each step its rough-cut size and the leaves to baste first', async () => {
+    // Plan fixture: A2 is sewn after leaf l1 is basted; A2's rough cut is 9 1/4 × 5 3/4 in.
+    const design = fixture('leaf-basted-before-its-seam')
+    const text = await textOf(buildBooklet(design, { paper: 'letter', parts: ['steps'] }))
+    expect(text).toMatch(/First baste leaf l1 \(leaf-dark, then leaf-light on top\)/)
+    expect(text).toMatch(/A2: unassigned\. Cut 9 1\/4 × 5 3\/4 in/)
+    expect(text).toMatch(/Finishing, in this order/)
+  })
+
+  it('names leaves caught in a section join and the finishing order', async () => {
+    const text = await textOf(buildBooklet(designFrom(wreathFile()), { paper: 'letter', parts: ['steps'] }))
+    expect(text).toMatch(/Join A and B along their shared seam/)
+    expect(text).toMatch(/leaf l1 on section [AB]: leaf-dark, then leaf-light on top/)
+    const order = ['Stem ring', 'Curling stems', 'quilt it', 'Berries', 'Bind the curved edge'].map((words) => text.indexOf(words))
+    expect(order.every((at) => at >= 0)).toBe(true)
+    expect([...order].sort((a, b) => a - b)).toEqual(order)
+  })
+
+  it('lists every fabric of the colourway in the cutting list', async () => {
+    const text = await textOf(buildBooklet(designFrom(wreathFile()), { paper: 'a4', parts: ['cover'], colorway: 'Frost' }))
+    for (const fabric of ['background', 'band', 'sky', 'leaf-dark', 'leaf-light', 'stem', 'berry']) expect(text).toContain(fabric)
+    expect(text).toContain('Colourway: Frost')
+    expect(text).toMatch(/Finished diameter: 18 in/)
+  })
+
+  it('prints the mirrored repeats of an alternately mirrored ring as their own foundations', () => {
+    const design = designFrom(wreathFile({ ring: { innerRadius: 2, outerRadius: 9, repeats: 6, repeatMode: 'mirror' }, seams: [{ id: 'a', from: [5, 0], to: [2.5, 4.33] }], fills: [], leaves: [], berries: [], curls: [], stems: [] }))
+    const written = writeBooklet(design, { paper: 'letter', parts: ['foundations'] })
+    const titles = written.foundations.map((f) => f.sheet.title)
+    expect(titles.some((title) => /repeats 1, 3, 5: make 3/.test(title))).toBe(true)
+    expect(titles.some((title) => /repeats 2, 4, 6 \(mirror image\): make 3/.test(title))).toBe(true)
+  })
+
+  it('still writes a booklet for a design that cannot be sewn, and says why on the cover', async () => {
+    const text = await textOf(buildBooklet(fixture('y-junction-set-in'), { paper: 'letter' }))
+    expect(text).toMatch(/cannot be sewn as it stands/)
+  })
+
+  it('describes the join tree pairs first', () => {
+    expect(joinSentences([['A', 'B'], ['C', 'D']])).toEqual([
+      'Join A and B along their shared seam (now AB).',
+      'Join C and D along their shared seam (now CD).',
+      'Join AB and CD along their shared seam (now ABCD).',
+    ])
+    expect(joinSentences('A')).toEqual([])
+    expect(joinSentences([])).toEqual([])
+  })
+})
