@@ -375,7 +375,8 @@ function simplify(polygon: readonly Point[]): Point[] {
 
 function areaWarnings(areas: readonly Area[]): Problem[] {
   const warnings: Problem[] = []
-  const sharpest = new Map<string, { angle: number; point: Point }>()
+  // Corners are the arrangement's own vertex objects, so the point itself is the key.
+  const sharpest = new Map<Point, { angle: number; point: Point }>()
   for (const area of areas) {
     if (area.areaSqIn < SLIVER_AREA_SQ_IN) {
       warnings.push({
@@ -396,9 +397,8 @@ function areaWarnings(areas: readonly Area[]): Problem[] {
       const turn = Math.atan2(inX * outY - inY * outX, inX * outX + inY * outY)
       const interior = ((Math.PI - turn) * 180) / Math.PI
       if (interior >= SHARP_ANGLE_DEGREES - ANGLE_NOISE_DEGREES) return
-      const key = `${corner[0].toFixed(6)},${corner[1].toFixed(6)}`
-      const known = sharpest.get(key)
-      if (!known || interior < known.angle) sharpest.set(key, { angle: interior, point: corner })
+      const known = sharpest.get(corner)
+      if (!known || interior < known.angle) sharpest.set(corner, { angle: interior, point: corner })
     })
   }
   const corners = [...sharpest.values()].sort((p, q) => comparePoints(p.point, q.point))

@@ -63,13 +63,23 @@ export function cutsOf(topology: Topology, unit: AreaSet, allowed?: (cut: Cut) =
   const members = areaMembers(unit)
   const seen = new Set<string>()
   // Only the seam lines with an edge inside the unit can cut it.
-  const lineIds = new Set<number>()
+  const { lineMark } = scratch
+  const lineIds: number[] = []
   for (const area of members) {
     for (const neighbour of topology.neighbours[area] ?? []) {
-      if (neighbour.area > area && hasArea(unit, neighbour.area)) for (const edge of neighbour.edges) lineIds.add(topology.seamEdges[edge]!.line)
+      if (neighbour.area <= area || !hasArea(unit, neighbour.area)) continue
+      for (const edge of neighbour.edges) {
+        const line = topology.seamEdges[edge]!.line
+        if (lineMark[line] === 0) {
+          lineMark[line] = 1
+          lineIds.push(line)
+        }
+      }
     }
   }
-  for (const lineId of [...lineIds].sort((a, b) => a - b)) {
+  for (const line of lineIds) lineMark[line] = 0
+  lineIds.sort((a, b) => a - b)
+  for (const lineId of lineIds) {
     const line = topology.lines[lineId]!
     let start = 0
     while (start < line.edges.length) {
@@ -81,10 +91,13 @@ export function cutsOf(topology: Topology, unit: AreaSet, allowed?: (cut: Cut) =
       while (end + 1 < line.edges.length && interior(line.edges[end + 1] as number)) end += 1
       const stops: number[] = []
       for (let k = start; k <= end + 1; k += 1) if (isBoundary(line.vertices[k] as number)) stops.push(k)
-      for (let i = 0; i < stops.length; i += 1) {
-        for (let j = i + 1; j < stops.length; j += 1) {
+      // A unit is a disc (the repeat, cut by straight cuts), so a straight run between two of its
+      // boundary points splits it in two, and a run passing a third boundary point splits it in
+      // three: only consecutive stops can be cuts.
+      for (let i = 0; i + 1 < stops.length; i += 1) {
+        {
           const from = stops[i] as number
-          const to = stops[j] as number
+          const to = stops[i + 1] as number
           const edges = line.edges.slice(from, to)
           const cut = split(topology, unit, members, edges, scratch)
           if (!cut) continue
@@ -92,7 +105,8 @@ export function cutsOf(topology: Topology, unit: AreaSet, allowed?: (cut: Cut) =
           if (seen.has(key)) continue
           seen.add(key)
           const along: Segment = [topology.vertices[line.vertices[from] as number]!, topology.vertices[line.vertices[to] as number]!]
-          const full = { ...cut, along, firstKey: key, secondKey: areaSetKey(cut.second) }
+          // Written out, not spread: this object is built for every cut the search sees.
+          const full: Cut = { first: cut.first, second: cut.second, along, firstKey: key, secondKey: areaSetKey(cut.second) }
           if (!allowed || allowed(full)) cuts.push(full)
         }
       }
@@ -110,6 +124,7 @@ interface Scratch {
   readonly inCut: Uint8Array
   readonly side: Uint8Array
   readonly stack: Int32Array
+  readonly lineMark: Uint8Array
   /** Neighbour pairs of area a are neighbourStart[a] … neighbourStart[a + 1] − 1. */
   readonly neighbourStart: Int32Array
   readonly neighbourArea: Int32Array
@@ -145,6 +160,7 @@ function scratchFor(topology: Topology): Scratch {
       inCut: new Uint8Array(topology.seamEdges.length),
       side: new Uint8Array(topology.areaCount),
       stack: new Int32Array(topology.areaCount + 1),
+      lineMark: new Uint8Array(topology.lines.length),
       neighbourStart,
       neighbourArea,
       edgeStart,

@@ -20,6 +20,8 @@ export interface SnappedSeam {
 interface End {
   point: Point
   attachment: EndAttachment
+  /** Ends snapped together share a cluster number (the index of one of them). */
+  cluster: number
   /** For an end snapped onto another seam's middle: that seam's index, to re-project. */
   target: number
 }
@@ -95,7 +97,7 @@ function snapToOutline(point: Point, other: Point, outline: Polygon, corners: re
       cornerDistance = d
     }
   }
-  if (nearestCorner) return { point: nearestCorner, attachment: 'outline', target: -1 }
+  if (nearestCorner) return { point: nearestCorner, attachment: 'outline', target: -1, cluster: -1 }
   // Keeping the seam's direction beats being nearest: an end near a chord corner is also near
   // the neighbouring chord, whose nearest point would turn the seam slightly.
   let nearest: Point | null = null
@@ -112,7 +114,7 @@ function snapToOutline(point: Point, other: Point, outline: Polygon, corners: re
       nearestRank = rank
     }
   }
-  return nearest ? { point: nearest, attachment: 'outline', target: -1 } : { point, attachment: 'free', target: -1 }
+  return nearest ? { point: nearest, attachment: 'outline', target: -1, cluster: -1 } : { point, attachment: 'free', target: -1, cluster: -1 }
 }
 
 /** Ends within the snap distance of each other become one point: an outline end if any, else the lowest. */
@@ -136,8 +138,9 @@ function clusterEnds(ends: End[]): void {
     }
   }
   const clusters = new Map<number, number[]>()
-  ends.forEach((_, index) => {
+  ends.forEach((end, index) => {
     const root = find(index)
+    end.cluster = root
     const members = clusters.get(root) ?? []
     members.push(index)
     clusters.set(root, members)
@@ -176,24 +179,24 @@ function crossing(a: readonly [Point, Point], b: readonly [Point, Point]): Point
  * drawn just off a seam lands on it whole.
  */
 function snapToSeams(ends: End[], seamCount: number): void {
-  const groups = new Map<string, number[]>()
+  const groups = new Map<number, number[]>()
   ends.forEach((end, index) => {
     if (end.attachment !== 'free' && end.attachment !== 'seam-end') return
-    const key = `${end.point[0]},${end.point[1]}`
-    const members = groups.get(key) ?? []
+    const members = groups.get(end.cluster) ?? []
     members.push(index)
-    groups.set(key, members)
+    groups.set(end.cluster, members)
   })
   if (groups.size === 0) return
   const frozen = ends.map((end) => end.point)
   const frozenSegment = (seam: number): readonly [Point, Point] => [frozen[2 * seam] as Point, frozen[2 * seam + 1] as Point]
   for (const members of groups.values()) {
     const point = (ends[members[0] as number] as End).point
-    const own = new Set(members.map((index) => Math.floor(index / 2)))
+    const own = members.map((index) => index >> 1)
     const near: number[] = []
     for (let seam = 0; seam < seamCount; seam += 1) {
-      if (own.has(seam)) continue
-      const [a, b] = frozenSegment(seam)
+      if (own.includes(seam)) continue
+      const a = frozen[2 * seam] as Point
+      const b = frozen[2 * seam + 1] as Point
       if (isOutsideBox(point, a, b)) continue
       if (distance(point, nearestOnSegment(point, a, b).point) <= SNAP_DISTANCE_INCHES) near.push(seam)
     }
@@ -235,10 +238,10 @@ function snapToSeams(ends: End[], seamCount: number): void {
   // from the previous positions) so each lies on its target seam as it finally stands.
   const targeted = ends.map((end, index) => index).filter((index) => (ends[index] as End).target >= 0)
   if (targeted.length === 0) return
-  const pointKey = (end: End): string => `${end.target}:${end.point[0]},${end.point[1]}`
-  const sharing = new Map<string, number>()
-  for (const index of targeted) sharing.set(pointKey(ends[index] as End), (sharing.get(pointKey(ends[index] as End)) ?? 0) + 1)
-  const junction = new Set(targeted.filter((index) => (sharing.get(pointKey(ends[index] as End)) ?? 0) > 1))
+  // Ends of one cluster moved together onto one seam are a junction: they project as one point.
+  const sharing = new Map<number, number>()
+  for (const index of targeted) sharing.set((ends[index] as End).cluster, (sharing.get((ends[index] as End).cluster) ?? 0) + 1)
+  const junction = new Set(targeted.filter((index) => (sharing.get((ends[index] as End).cluster) ?? 0) > 1))
   for (let round = 0; round < 4; round += 1) {
     const previous = ends.map((end) => end.point)
     for (const index of targeted) {
