@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest'
 import { buildBooklet, writeBooklet } from './booklet'
 import { pageFrame } from './paper'
 import { allText, openPdf, pagePaths, pageRectangles, pageSizes, pageText } from './test-support/read-pdf'
-import { asymmetricFile, designFrom, wreathFile } from './test-support/designs'
+import { asymmetricFile, designFrom, medallionFile, wreathFile } from './test-support/designs'
 
 const wreath = designFrom(wreathFile())
 
@@ -83,8 +83,8 @@ describe('booklet pages read back with pdfjs-dist', () => {
 })
 
 describe('tiling a foundation', () => {
-  it('covers the whole trim outline with tiles that overlap by the promised 0.5 in (polygon-clipping)', () => {
-    const written = writeBooklet(wreath, { paper: 'letter', finishedDiameterInches: 24, parts: ['foundations'], overlapInches: 0.5 })
+  it.each([['wreath', wreathFile()], ['medallion', medallionFile()]])('covers the whole trim outline of the %s with tiles that overlap by the promised 0.5 in (polygon-clipping)', (_, file) => {
+    const written = writeBooklet(designFrom(file), { paper: 'letter', finishedDiameterInches: 24, parts: ['foundations'], overlapInches: 0.5 })
     expect(written.foundations.length).toBeGreaterThan(0)
     let tiled = 0
     for (const { sheet, layout } of written.foundations) {

@@ -3,5 +3,4 @@
  * finished alongside). Imported from their own modules here, in one place, so the day the index
  * exports them this file shrinks to re-exports from '@/geometry'.
  */
-export { sectionTrimLine } from '@/geometry/trim-line'
 export { leafTemplate, placeLeaf, type LeafTemplate, type LeafPlacement } from '@/geometry/leaf-template'

@@ -73,3 +73,27 @@ export function asymmetricFile(): DesignFile {
     curls: [],
   })
 }
+
+/** Sixths with a centre opening, alternately mirrored; a seam ends on a chord seam (a T-junction). */
+export function medallionFile(): DesignFile {
+  const cos30 = Math.cos(Math.PI / 6)
+  return wreathFile({
+    name: 'Test Medallion',
+    ring: { innerRadius: 3, outerRadius: 10, repeats: 6, repeatMode: 'mirror' },
+    seams: [
+      { id: 'inner-band', from: [6, 0], to: polar(6, 60) },
+      { id: 'outer-band', from: [8.5, 0], to: polar(8.5, 60) },
+      { id: 'divide', from: polar(8.5 * cos30, 30), to: polar(10, 30) },
+    ],
+    fills: [
+      { at: polar(4.5, 30), fabric: 'background' },
+      { at: polar(7, 30), fabric: 'band' },
+      { at: polar(9.2, 12), fabric: 'sky' },
+      { at: polar(9.2, 48), fabric: 'sky' },
+    ],
+    leaves: [],
+    stems: [],
+    berries: [],
+    curls: [],
+  })
+}
