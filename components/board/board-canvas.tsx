@@ -54,7 +54,6 @@ export function BoardCanvas({
       }}
       width={width}
       height={height}
-      data-testid="board-canvas"
       onPointerDown={(event) => {
         const stage = event.target.getStage()
         const native = event.evt

@@ -8,7 +8,7 @@ const FABRIC_NAME = /^[a-z0-9][a-z0-9 -]{0,39}$/i
 
 /**
  * The colourways and their fabrics. Fabric roles (background, leaf-dark …) are shared by every
- * colourway; each colourway gives them its own colours. Choosing a swatch picks it for filling.
+ * colourway; each colourway gives them its own colours. Choosing a swatch picks it and the Fill tool.
  */
 export function FabricPanel({ store }: { store: BoardStore }) {
   const design = useBoard(store, designOf)
@@ -69,9 +69,9 @@ export function FabricPanel({ store }: { store: BoardStore }) {
             <button
               type="button"
               aria-pressed={activeFabric === fabric}
-              onClick={() => store.update({ activeFabric: fabric, tool: store.getState().tool === 'select' ? 'fill' : store.getState().tool })}
+              onClick={() => store.update({ activeFabric: fabric, tool: 'fill', handOrderDraft: null })}
               className="flex min-w-0 flex-1 items-center gap-1.5 rounded border border-stone-300 bg-white px-1.5 py-1 text-left text-xs aria-pressed:border-thread-700 aria-pressed:ring-2 aria-pressed:ring-thread-600"
-              title={`Fill with ${fabric}`}
+              aria-label={`Fill with ${fabric}`}
             >
               <span className="h-4 w-4 shrink-0 rounded-sm border border-stone-400" style={{ backgroundColor: colour }} aria-hidden />
               <span className="truncate">{fabric}</span>

@@ -1,0 +1,109 @@
+import type { Browser, Page } from 'playwright-core'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { DEMO_PASSWORD } from '@/scripts/demo-data'
+import { boardDesign, clickAt, createPatternFromPage, dragSeam } from '../support/board'
+import { baseUrl, launchBrowser, signInThroughPage } from '../support/browser'
+
+let browser: Browser
+let page: Page
+const pageErrors: string[] = []
+
+beforeAll(async () => {
+  browser = await launchBrowser()
+  const context = await browser.newContext({ viewport: { width: 1280, height: 800 } })
+  page = await context.newPage()
+  page.on('pageerror', (error) => pageErrors.push(String(error)))
+  await signInThroughPage(page, 'marguerite@bramblelane.example', DEMO_PASSWORD)
+})
+afterAll(async () => {
+  await browser?.close()
+})
+
+const cos60 = Math.cos(Math.PI / 3)
+const sin60 = Math.sin(Math.PI / 3)
+
+async function setNumber(label: string, value: number) {
+  const input = page.getByLabel(label, { exact: true })
+  await input.fill(String(value))
+  await input.press('Enter')
+}
+
+const planStatus = () => page.getByTestId('plan-status').innerText()
+const stepsList = () => page.getByRole('list', { name: 'Steps by section' }).innerText()
+
+describe('a designer drafts a ring on the board', () => {
+  it('sets the ring, draws seams with the mouse, meets a set-in seam, places a leaf and fills, and finds it all after a reload', async () => {
+    const id = await createPatternFromPage(page, `Lantern board ${Date.now()}`)
+    await page.goto(`${baseUrl()}/patterns/${id}/board`)
+    await page.getByTestId('plan-panel').waitFor()
+
+    // A 20 in ring of sixths meeting at the centre.
+    await setNumber('Outer radius', 10)
+    await setNumber('Repeats', 6)
+    await expect.poll(() => page.getByTestId('finished-diameter').innerText()).toBe('20 in')
+    await page.getByRole('button', { name: 'Fit' }).click()
+
+    // Three seams: two chords across the sixth, and a radial seam from the outer chord's middle to the arc.
+    await page.keyboard.press('s')
+    await dragSeam(page, [5, 0], [5 * cos60, 5 * sin60])
+    await dragSeam(page, [8, 0], [8 * cos60, 8 * sin60])
+    await dragSeam(page, [6, 8 * sin60 / 2], [10 * Math.cos(Math.PI / 6), 10 * Math.sin(Math.PI / 6)])
+    expect((await boardDesign(page)).seams).toHaveLength(3)
+    await expect.poll(planStatus).toBe('Sewable: 4 areas in 1 section.')
+    for (const label of ['A1', 'A2', 'A3', 'A4']) expect(await stepsList()).toContain(label)
+
+    // Three seams meeting at one point inside the centre area, none continuing another: a Y.
+    const y: [number, number] = [2, 1.2]
+    await dragSeam(page, [3, 0], y)
+    await dragSeam(page, y, [1.6 * cos60, 1.6 * sin60])
+    await dragSeam(page, y, [3.75, 2.5 * sin60])
+    await expect.poll(() => page.getByTestId('problems').innerText()).toContain('set-in (Y) seam')
+    await expect.poll(() => page.getByTestId('plan-status').getAttribute('data-sewable')).toBe('false')
+
+    // Undo the three seams of the Y.
+    for (let i = 0; i < 3; i += 1) await page.keyboard.press('Control+z')
+    await expect.poll(planStatus).toBe('Sewable: 4 areas in 1 section.')
+    expect((await boardDesign(page)).seams).toHaveLength(3)
+
+    // A leaf on the outer chord, lying over the outer area (so the outer areas are sewn first).
+    await page.keyboard.press('l')
+    await clickAt(page, [7.2, 1.5])
+    await page.getByTestId('leaf-editor').waitFor()
+    const leaves = (await boardDesign(page)).leaves
+    expect(leaves).toHaveLength(1)
+    expect(leaves[0]).toMatchObject({ seam: 's2', side: 'right' })
+    await expect.poll(planStatus).toBe('Sewable: 4 areas in 1 section.')
+
+    // Fill two areas: the centre with the background, the band with a new fabric.
+    await page.getByRole('button', { name: 'Fill with background' }).click()
+    await clickAt(page, [2, 1])
+    await page.getByLabel('New fabric name').fill('band')
+    await page.getByRole('button', { name: 'Add', exact: true }).click()
+    await page.keyboard.press('f')
+    await clickAt(page, [5.5, 2])
+    expect((await boardDesign(page)).fills).toEqual([
+      { at: expect.any(Array), fabric: 'background' },
+      { at: expect.any(Array), fabric: 'band' },
+    ])
+
+    // The printed side: the mirror image as it goes on the paper.
+    await page.getByRole('button', { name: 'Printed side' }).click()
+    expect(await page.getByRole('button', { name: 'Printed side' }).getAttribute('aria-pressed')).toBe('true')
+
+    // Saved by itself; after a reload everything is as it was.
+    await expect.poll(() => page.getByTestId('save-status').getAttribute('data-state'), { timeout: 15_000 }).toBe('saved')
+    const before = await boardDesign(page)
+    await page.reload()
+    await page.getByTestId('plan-panel').waitFor()
+    const after = await boardDesign(page)
+    expect(after.ring).toEqual({ innerRadius: 0, outerRadius: 10, repeats: 6, repeatMode: 'rotate' })
+    expect(after.seams).toEqual(before.seams)
+    expect(after.leaves).toEqual(before.leaves)
+    expect(after.fills).toEqual(before.fills)
+    await expect.poll(planStatus).toBe('Sewable: 4 areas in 1 section.')
+  })
+
+  it('threw no errors in the page', () => {
+    expect(pageErrors).toEqual([])
+  })
+})

@@ -1,0 +1,48 @@
+import type { Page } from 'playwright-core'
+
+type Point = readonly [number, number]
+
+/**
+ * Where a point of the ring's frame (design units, fabric side) appears on the page: the board
+ * canvas's box plus the store's view (centre in pixels, zoom in pixels per unit, y up).
+ */
+export async function screenPointOf(page: Page, point: Point): Promise<[number, number]> {
+  const box = await page.getByTestId('board-canvas').boundingBox()
+  if (!box) throw new Error('the board canvas is not on the page')
+  const view = await page.evaluate(() => window.wreathwrightBoard!.getState().view)
+  return [box.x + view.centre[0] + point[0] * view.zoom, box.y + view.centre[1] - point[1] * view.zoom]
+}
+
+/** Draws a seam with the mouse: press at one end, drag in a few steps, release at the other. */
+export async function dragSeam(page: Page, from: Point, to: Point): Promise<void> {
+  const [x0, y0] = await screenPointOf(page, from)
+  const [x1, y1] = await screenPointOf(page, to)
+  await page.mouse.move(x0, y0)
+  await page.mouse.down()
+  await page.mouse.move((x0 + x1) / 2, (y0 + y1) / 2, { steps: 4 })
+  await page.mouse.move(x1, y1, { steps: 4 })
+  await page.mouse.up()
+}
+
+export async function clickAt(page: Page, point: Point): Promise<void> {
+  const [x, y] = await screenPointOf(page, point)
+  await page.mouse.click(x, y)
+}
+
+/** The design on the board, as the store holds it. */
+export function boardDesign(page: Page) {
+  return page.evaluate(() => window.wreathwrightBoard!.getState().history.present)
+}
+
+/** Creates a pattern through the API, from the signed-in page, and returns its id. */
+export async function createPatternFromPage(page: Page, name: string): Promise<string> {
+  return page.evaluate(async (patternName) => {
+    const response = await fetch('/api/patterns', {
+      method: 'POST',
+      headers: { 'content-type': 'application/json' },
+      body: JSON.stringify({ name: patternName }),
+    })
+    const body = (await response.json()) as { pattern: { id: string } }
+    return body.pattern.id
+  }, name)
+}
