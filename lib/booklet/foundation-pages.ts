@@ -71,14 +71,18 @@ function foundationSheet(model: BookletModel, kind: FoundationKind): FoundationS
       const fabricWidth = doc.getTextWidth(fabric)
       if (!fitsIn(window, at, Math.max(fabricWidth, 20) / 2 + 2, 12)) continue
       font(doc, 10, 'bold')
+      // A white ground keeps the label legible over a seam or an alignment target.
+      const groundWidth = Math.max(fabricWidth, doc.getTextWidth(area.label ?? '')) + 4
+      doc.setFillColor(255, 255, 255)
+      doc.rect(at[0] - groundWidth / 2, at[1] - 9, groundWidth, 19.5, 'F')
       doc.text(area.label ?? '', at[0], at[1], { align: 'center' })
       font(doc, 6.5, 'normal', 50)
       doc.text(fabric, at[0], at[1] + 8, { align: 'center' })
     }
   }
   const note = kind.mirroredRepeat
-    ? 'Printed side of the mirrored repeats. Solid: seam lines; dashed: trim line 1/4 in outside.'
-    : 'Printed side (the mirror image of the finished quilt). Solid: seam lines; dashed: trim line 1/4 in outside.'
+    ? 'Printed side of the mirrored repeats. Solid: seams; dashed: trim line.'
+    : 'Printed side (mirror image of the quilt). Solid: seams; dashed: trim line.'
   return {
     kind,
     title: `${design.name} - ${title}`,

@@ -78,8 +78,9 @@ export function writeTiledDrawing(context: BookletContext, drawing: TiledDrawing
     doc.rect(window.x, window.y, window.width, window.height, null)
     doc.clip()
     doc.discardPath()
+    // Targets first, so a label's white ground can cover one it happens to sit on.
+    drawAlignment(doc, layout, tile, view)
     drawing.draw(doc, view, window)
-    drawAlignment(doc, layout, tile, view, drawing.box)
     doc.restoreGraphicsState()
     // The window's frame: the line to trim one page along before laying it over its neighbour.
     if (layout.tiles.length > 1) {
@@ -102,8 +103,7 @@ const sheetToPage = (view: View, x: number, y: number): [number, number] => [vie
  * Targets in each overlap strip (the same sheet positions on both pages, so they land on each
  * other when the pages are laid together) and a dotted line where the neighbour's window ends.
  */
-function drawAlignment(doc: jsPDF, layout: TileLayout, tile: Tile, view: View, box: readonly [number, number, number, number]): void {
-  void box
+function drawAlignment(doc: jsPDF, layout: TileLayout, tile: Tile, view: View): void {
   const spacing = 2 * POINTS_PER_INCH
   for (const strip of overlapStrips(layout, tile)) {
     const { rect } = strip
