@@ -66,3 +66,14 @@ describe('booklet text', () => {
     expect(joinSentences([])).toEqual([])
   })
 })
+
+describe('every geometry fixture', () => {
+  const names = ['centimetre-annulus-one-section', 'dangling-seam-end', 'ends-near-outline-snapped', 'grid-3x4-three-sections', 'hand-set-order-two-lines', 'leaf-basted-before-its-seam', 'odd-wedge-ring-warns-at-centre', 'pinwheel-no-plan', 'straight-seam-two-rays-one-section', 'x-crossing-two-sections', 'y-junction-set-in']
+  it.each(names)('gets a booklet on every paper: %s', (name) => {
+    const design = fixture(name)
+    for (const paper of ['letter', 'a3'] as const) {
+      const bytes = buildBooklet(design, { paper, orientation: paper === 'a3' ? 'landscape' : 'portrait' })
+      expect(new TextDecoder().decode(bytes.subarray(0, 5))).toBe('%PDF-')
+    }
+  })
+})
