@@ -405,3 +405,26 @@ describe('recovering a draft after a crash', () => {
     expect(seen).toEqual(['unsaved', 'saving', 'saved'])
   })
 })
+
+describe('two tabs of one pattern in the same browser', () => {
+  it('never clears a draft another tab wrote after its own', async () => {
+    const storage = memoryStorage()
+    const saved = design()
+    const { server, fetch } = fakeServer({ revision: 1, design: saved })
+    const firstStore = createBoardStore(saved)
+    const secondStore = createBoardStore(saved)
+    createAutosaver({ patternId: PATTERN_ID, revision: 1, store: firstStore, fetch, storage }).start()
+    const second = createAutosaver({ patternId: PATTERN_ID, revision: 1, store: secondStore, fetch, storage })
+    second.start()
+    firstStore.run('setRing', { repeats: 6 })
+    await vi.advanceTimersByTimeAsync(500)
+    secondStore.run('setRing', { repeats: 8 })
+    // The first tab's save lands; the second tab's draft must survive it.
+    await vi.advanceTimersByTimeAsync(500)
+    expect(server.revision).toBe(2)
+    expect(storage.items.get(draftKey(PATTERN_ID))).toContain('"repeats":8')
+    await vi.advanceTimersByTimeAsync(500)
+    expect(second.getState().status).toBe('conflict')
+    expect(storage.items.get(draftKey(PATTERN_ID))).toContain('"repeats":8')
+  })
+})

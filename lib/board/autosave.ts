@@ -92,6 +92,8 @@ export interface LocalDraft {
   /** When the draft was written (ISO time). */
   readonly savedAt: string
   readonly design: DesignFile
+  /** Which board wrote it (a random id per autosaver), so one tab never clears another's draft. */
+  readonly writer?: string
 }
 
 /** The localStorage key of a pattern's draft, e.g. `wreathwright:draft:4f0c…`. */
@@ -115,7 +117,8 @@ export function readLocalDraft(storage: DraftStorage | null, patternId: string):
     const value = JSON.parse(text) as Partial<LocalDraft>
     const design = designFileSchema.safeParse(value.design)
     if (!design.success || typeof value.baseRevision !== 'number' || typeof value.savedAt !== 'string') return null
-    return { patternId, baseRevision: value.baseRevision, savedAt: value.savedAt, design: design.data }
+    const writer = typeof value.writer === 'string' ? { writer: value.writer } : {}
+    return { patternId, baseRevision: value.baseRevision, savedAt: value.savedAt, design: design.data, ...writer }
   } catch {
     return null
   }
@@ -137,8 +140,17 @@ export function writeLocalDraft(storage: DraftStorage | null, draft: LocalDraft)
   }
 }
 
-/** Removes a pattern's draft, e.g. `clearLocalDraft(localStorage, pattern.id)`. */
-export function clearLocalDraft(storage: DraftStorage | null, patternId: string): void {
+/**
+ * Removes a pattern's draft; with `writer`, only a draft that board wrote (another tab of the same
+ * pattern may hold changes of its own there).
+ *
+ * @example clearLocalDraft(localStorage, pattern.id)
+ */
+export function clearLocalDraft(storage: DraftStorage | null, patternId: string, writer?: string): void {
+  if (writer !== undefined) {
+    const stored = readLocalDraft(storage, patternId)
+    if (stored && stored.writer !== writer) return
+  }
   try {
     storage?.removeItem(draftKey(patternId))
   } catch {
@@ -238,6 +250,8 @@ export function createAutosaver(options: AutosaverOptions): Autosaver {
   const storage = options.storage ?? null
   const debounceMs = options.debounceMs ?? SAVE_DELAY_MS
   const url = `/api/patterns/${encodeURIComponent(patternId)}`
+  // Not crypto.randomUUID: that exists only on secure origins, and a board may be opened over plain http on a LAN.
+  const writer = Math.random().toString(36).slice(2, 12)
 
   let revision = options.revision
   /** The design the server holds at `revision` (by reference: the store never mutates designs). */
@@ -280,10 +294,10 @@ export function createAutosaver(options: AutosaverOptions): Autosaver {
   // work is on its way to the server anyway, and the old one must survive another crash.
   function keepDraft(design: DesignFile) {
     if (recoverableDraft) return
-    writeLocalDraft(storage, { patternId, baseRevision: revision, savedAt: new Date().toISOString(), design })
+    writeLocalDraft(storage, { patternId, baseRevision: revision, savedAt: new Date().toISOString(), design, writer })
   }
   function dropDraft() {
-    if (!recoverableDraft) clearLocalDraft(storage, patternId)
+    if (!recoverableDraft) clearLocalDraft(storage, patternId, writer)
   }
 
   function cancelTimer() {
@@ -523,7 +537,9 @@ export function createAutosaver(options: AutosaverOptions): Autosaver {
       if (!recoverableDraft) return
       recoverableDraft = null
       const present = store.getState().history.present
-      if (present === savedDesign) dropDraft()
+      // The stored draft is still the one offered (nothing was written over it meanwhile), so it
+      // goes whoever wrote it.
+      if (present === savedDesign) clearLocalDraft(storage, patternId)
       else keepDraft(present)
       publish()
     },
