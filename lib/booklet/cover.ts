@@ -3,13 +3,12 @@
  * its size, and the fabric and cutting list that follows it.
  */
 import type { jsPDF } from 'jspdf'
-import { applyToPolygon, applyTransform, outlineFromPolygon, repeatTransforms, type AffineTransform, type Point } from '@/geometry'
+import { applyToPolygon, applyTransform, outlineFromPolygon, placeLeaf, repeatTransforms, type AffineTransform, type Point } from '@/geometry'
 import { formatInches, inchesToCentimetres } from '@/lib/units'
 import { font } from './chrome'
 import { startPage, type BookletContext } from './context'
 import { fitView, rgb, solidPen, toPage, tracePath, tracePolygon, type View } from './draw'
 import { bindingLengthInches, cuttingList } from './fabric-list'
-import { placeLeaf } from './geometry-gaps'
 import { fabricColour, type BookletModel } from './model'
 import { PAPERS } from './paper'
 import { startFlow } from './flow'

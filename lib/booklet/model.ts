@@ -4,9 +4,8 @@
  */
 import {
   IDENTITY, isPointInPolygon, planDesign, printedSideTransform, scaleDesign,
-  type AffineTransform, type Colorway, type Design, type Leaf, type Plan, type PlanArea, type Point,
+  placeLeaf, type AffineTransform, type Colorway, type Design, type Leaf, type LeafPlacement, type Plan, type PlanArea, type Point,
 } from '@/geometry'
-import { placeLeaf, type LeafPlacement } from './geometry-gaps'
 import type { BookletOptions } from '@/lib/schemas/booklet'
 
 /** One foundation to print: a section of a kind of repeat, how many to make and how it is mirrored. */

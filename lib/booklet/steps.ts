@@ -96,6 +96,9 @@ export function writeSteps(context: BookletContext): void {
   const { doc, model } = context
   const flow = startFlow(context, 'Sewing steps', 'Diagrams show the printed side; the red dashed frame is where the rough-cut piece lies before it is flipped.')
   flow.heading('Before you start')
+  if (model.design.ring.repeatMode === 'mirror') {
+    flow.paragraph('The mirrored repeats have their own foundations, printed the other way round; sew them in the same order, area by area. The diagrams show the plain repeats.', { style: 'italic' })
+  }
   flow.paragraph('Set a short stitch (about 1.5 mm, 16 to 18 stitches per inch) so the paper tears away cleanly. Sew on the printed lines with the fabric on the unprinted side; fabric pieces are right side down until they are flipped. Press after each seam.')
   const kind = model.foundations[0]
   for (const section of model.plan.sections) {

@@ -3,13 +3,12 @@
  * the curls and the berries. Templates are symmetric, so they read the same on either side.
  */
 import type { jsPDF } from 'jspdf'
-import { outlineFromPolygon, pathToPolygon, repeatOutlinePath } from '@/geometry'
+import { leafTemplate, outlineFromPolygon, pathToPolygon, placeLeaf, repeatOutlinePath } from '@/geometry'
 import { formatInches, POINTS_PER_INCH } from '@/lib/units'
 import { drawHeader, drawTestSquares, font, HEADER_HEIGHT_PT, TEST_BAND_HEIGHT_PT } from './chrome'
 import { startPage, type BookletContext } from './context'
 import { dashedPen, solidPen, toPage, tracePath, tracePolygon, trueScaleView, type View } from './draw'
 import { BERRY_EXTRA_INCHES } from './fabric-list'
-import { leafTemplate, placeLeaf } from './geometry-gaps'
 import { writeTiledDrawing } from './tiled-drawing'
 
 interface Template {
@@ -56,6 +55,10 @@ function leafTemplates(context: BookletContext): Template[] {
         dashedPen(doc, 0.5, [1, 1.5], [60, 60, 60])
         doc.line(...toPage(view, template.seamLine[0]), ...toPage(view, template.seamLine[1]))
         doc.setLineDashPattern([], 0)
+        // The open end is caught in the seam: say so where it lies.
+        const [rawX, rawY] = toPage(view, [0, template.rawEdge[0][1]])
+        font(doc, 5.5, 'italic', 60)
+        doc.text('raw edge (open)', rawX, rawY - 2, { align: 'center' })
       },
     })
   }
