@@ -5,7 +5,11 @@
 
 export type AreaSet = Uint32Array
 
-/** The empty set for `count` areas. */
+/**
+ * The empty set for `count` areas.
+ *
+ * @example areaCount(emptyAreaSet(40)) // 0
+ */
 export function emptyAreaSet(count: number): AreaSet {
   return new Uint32Array(Math.max(1, Math.ceil(count / 32)))
 }
@@ -21,18 +25,31 @@ export function areaSetOf(count: number, areas: Iterable<number>): AreaSet {
   return set
 }
 
+/**
+ * Whether the set holds the area.
+ *
+ * @example hasArea(areaSetOf(8, [2]), 2) // true
+ */
 export function hasArea(set: AreaSet, area: number): boolean {
   return (((set[area >>> 5] ?? 0) >>> (area & 31)) & 1) === 1
 }
 
-/** A copy of `set` without `area`. */
+/**
+ * A copy of `set` without `area`.
+ *
+ * @example areaMembers(withoutArea(areaSetOf(8, [1, 2]), 1)) // [2]
+ */
 export function withoutArea(set: AreaSet, area: number): AreaSet {
   const copy = set.slice()
   copy[area >>> 5] = (copy[area >>> 5] as number) & ~(1 << (area & 31))
   return copy
 }
 
-/** The members in increasing order. */
+/**
+ * The members in increasing order.
+ *
+ * @example areaMembers(areaSetOf(40, [33, 1])) // [1, 33]
+ */
 export function areaMembers(set: AreaSet): number[] {
   const members: number[] = []
   for (let word = 0; word < set.length; word += 1) {
@@ -46,6 +63,11 @@ export function areaMembers(set: AreaSet): number[] {
   return members
 }
 
+/**
+ * How many areas the set holds.
+ *
+ * @example areaCount(areaSetOf(40, [0, 39])) // 2
+ */
 export function areaCount(set: AreaSet): number {
   let count = 0
   for (let word = 0; word < set.length; word += 1) {
@@ -58,7 +80,11 @@ export function areaCount(set: AreaSet): number {
   return count
 }
 
-/** A string key for memo tables. */
+/**
+ * A string key for memo tables.
+ *
+ * @example areaSetKey(areaSetOf(40, [0, 33])) // '1,2'
+ */
 export function areaSetKey(set: AreaSet): string {
   return set.join(',')
 }

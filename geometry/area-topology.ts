@@ -198,14 +198,22 @@ export function boundaryOfEdges(topology: Topology, edges: readonly number[]): B
   return { kind: 'segment', segment: [from, to], line: first.line }
 }
 
-/** The seam edges between one area and a set of areas. */
+/**
+ * The seam edges between one area and a set of areas.
+ *
+ * @example boundaryOfEdges(topology, edgesBetweenAreaAndSet(topology, 3, sewn)).kind // 'segment' when 3 can be sewn next
+ */
 export function edgesBetweenAreaAndSet(topology: Topology, area: number, set: AreaSet): number[] {
   const edges: number[] = []
   for (const neighbour of topology.neighbours[area] ?? []) if (hasArea(set, neighbour.area)) edges.push(...neighbour.edges)
   return edges
 }
 
-/** The seam edges between two disjoint sets of areas. */
+/**
+ * The seam edges between two disjoint sets of areas.
+ *
+ * @example boundaryOfEdges(topology, edgesBetweenSets(topology, [0, 1], second)).kind // 'segment' when the groups can be joined
+ */
 export function edgesBetweenSets(topology: Topology, first: readonly number[], second: AreaSet): number[] {
   const edges: number[] = []
   for (const area of first) edges.push(...edgesBetweenAreaAndSet(topology, area, second))

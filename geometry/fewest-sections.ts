@@ -305,7 +305,11 @@ export function fewestSections(topology: Topology, constraints: readonly InsertC
   return { tree: solved?.tree ?? null, sectionCount: solved?.count ?? 0, gaveUp: state.gaveUp || state.peel.gaveUp }
 }
 
-/** Whether the segment a join is sewn along is one straight segment (used by checks in tests). */
+/**
+ * Whether the segment a join is sewn along is one straight segment (used by checks in tests).
+ *
+ * @example isStraightJoin(topology, [4, 5]) // true when edges 4 and 5 continue each other
+ */
 export function isStraightJoin(topology: Topology, edges: readonly number[]): boolean {
   return boundaryOfEdges(topology, edges).kind === 'segment'
 }

@@ -66,7 +66,11 @@ export function isPointInPolygon(point: Point, polygon: Polygon): boolean {
   return inside
 }
 
-/** The point of segment a–b nearest to p, and its parameter t in [0, 1] from a. */
+/**
+ * The point of segment a–b nearest to p, and its parameter t in [0, 1] from a.
+ *
+ * @example nearestOnSegment([1, 1], [0, 0], [2, 0]) // { point: [1, 0], t: 0.5 }
+ */
 export function nearestOnSegment(p: Point, a: Point, b: Point): { readonly point: Point; readonly t: number } {
   const dx = b[0] - a[0]
   const dy = b[1] - a[1]
@@ -76,17 +80,29 @@ export function nearestOnSegment(p: Point, a: Point, b: Point): { readonly point
   return { point: [a[0] + t * dx, a[1] + t * dy], t }
 }
 
-/** Distance between two points. */
+/**
+ * Distance between two points.
+ *
+ * @example distance([0, 0], [3, 4]) // 5
+ */
 export function distance(a: Point, b: Point): number {
   return Math.hypot(a[0] - b[0], a[1] - b[1])
 }
 
-/** Distance from p to the segment a–b. */
+/**
+ * Distance from p to the segment a–b.
+ *
+ * @example distanceToSegment([1, 1], [0, 0], [2, 0]) // 1
+ */
 export function distanceToSegment(p: Point, a: Point, b: Point): number {
   return distance(p, nearestOnSegment(p, a, b).point)
 }
 
-/** Distance from p to the polygon's boundary. */
+/**
+ * Distance from p to the polygon's boundary.
+ *
+ * @example distanceToBoundary([1, 1], [[0, 0], [2, 0], [2, 2], [0, 2]]) // 1
+ */
 export function distanceToBoundary(p: Point, polygon: Polygon): number {
   let best = Infinity
   for (let i = 0; i < polygon.length; i += 1) {
@@ -96,7 +112,11 @@ export function distanceToBoundary(p: Point, polygon: Polygon): number {
   return best
 }
 
-/** Lexicographic comparison of points (x, then y): the tie-break that keeps results deterministic. */
+/**
+ * Lexicographic comparison of points (x, then y): the tie-break that keeps results deterministic.
+ *
+ * @example [[1, 2], [0, 5]].sort(comparePoints) // [[0, 5], [1, 2]]
+ */
 export function comparePoints(a: Point, b: Point): number {
   return a[0] - b[0] || a[1] - b[1]
 }

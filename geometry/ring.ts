@@ -15,7 +15,11 @@ export interface RepeatOutline {
   readonly parts: readonly OutlinePart[]
 }
 
-/** The angle a repeat spans, in radians: 2π/N. */
+/**
+ * The angle a repeat spans, in radians: 2π/N.
+ *
+ * @example repeatSpan({ innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' }) // π/2
+ */
 export function repeatSpan(ring: Ring): number {
   return (2 * Math.PI) / ring.repeats
 }

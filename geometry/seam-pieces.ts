@@ -12,7 +12,11 @@ export type Piece = { from: number; to: number; seamIds: string[]; onOutline: bo
 
 const at = (p: Point): string => `(${p[0].toFixed(2)}, ${p[1].toFixed(2)})`
 
-/** Drops seam pieces outside the outline, reporting each seam once where it leaves. */
+/**
+ * Drops seam pieces outside the outline, reporting each seam once where it leaves.
+ *
+ * @example dropOutside(pieces, vertices, onOutline, outline.polygon, problems) // pieces inside the repeat
+ */
 export function dropOutside(pieces: Piece[], vertices: readonly Point[], onOutline: readonly boolean[], polygon: Polygon, problems: Problem[]): Piece[] {
   const reported = new Set<string>()
   return pieces.filter((piece) => {
@@ -40,7 +44,11 @@ function degrees(pieces: readonly Piece[], vertexCount: number): number[] {
   return degree
 }
 
-/** Drops pieces with an end touching nothing, repeatedly, reporting the first loose ends. */
+/**
+ * Drops pieces with an end touching nothing, repeatedly, reporting the first loose ends.
+ *
+ * @example dropDangling(pieces, vertices, onOutline, problems) // no piece left with a loose end
+ */
 export function dropDangling(pieces: Piece[], vertices: readonly Point[], onOutline: readonly boolean[], problems: Problem[]): Piece[] {
   let kept = pieces
   let first = true
@@ -67,7 +75,11 @@ export function dropDangling(pieces: Piece[], vertices: readonly Point[], onOutl
   }
 }
 
-/** Drops pieces not connected to the outline, reporting them as one closed shape. */
+/**
+ * Drops pieces not connected to the outline, reporting them as one closed shape.
+ *
+ * @example dropFloating(pieces, vertices, onOutline, problems) // only pieces connected to the outline
+ */
 export function dropFloating(pieces: Piece[], vertices: readonly Point[], onOutline: readonly boolean[], problems: Problem[]): Piece[] {
   const neighbours = vertices.map((): number[] => [])
   for (const piece of pieces) {

@@ -38,7 +38,11 @@ export interface StepFailure {
   readonly message: string
 }
 
-/** Plain words for a boundary that is not one straight segment. */
+/**
+ * Plain words for a boundary that is not one straight segment.
+ *
+ * @example describeBoundary({ kind: 'two-lines', lineCount: 2 }, 'A3', 'the sewn areas') // 'A3 meets the sewn areas along two lines'
+ */
 export function describeBoundary(verdict: BoundaryVerdict, subject: string, others: string): string {
   switch (verdict.kind) {
     case 'none':
@@ -122,7 +126,11 @@ export function createPeelSearch(topology: Topology, constraints: readonly Inser
   return { topology, mustPrecede, memo: new Map(), states: 0, gaveUp: false }
 }
 
-/** Whether `area` can be the last area sewn of `set`: one straight segment with the rest, no insert broken. */
+/**
+ * Whether `area` can be the last area sewn of `set`: one straight segment with the rest, no insert broken.
+ *
+ * @example canPeel(search, areaSetOf(3, [0, 1, 2]), 2) // true when area 2 can be sewn last
+ */
 export function canPeel(search: PeelSearch, set: AreaSet, area: number): boolean {
   for (const later of search.mustPrecede[area] ?? []) if (later !== area && hasArea(set, later)) return false
   // The same test as boundaryOfEdges, without building the edge list: this is the inner loop.
@@ -144,7 +152,11 @@ export function canPeel(search: PeelSearch, set: AreaSet, area: number): boolean
   return count > 0 && high - low + 1 === count
 }
 
-/** Whether the areas of a set are connected through seam edges (a section must be). */
+/**
+ * Whether the areas of a set are connected through seam edges (a section must be).
+ *
+ * @example isConnected(topology, areaSetOf(4, [0, 3])) // false when areas 0 and 3 only touch at a corner
+ */
 export function isConnected(topology: Topology, set: AreaSet): boolean {
   const members = areaMembers(set)
   if (members.length <= 1) return true

@@ -145,7 +145,11 @@ export function parseDesign(json: unknown): ParseDesignResult {
   return { ok: true, design: toInchesDesign(parsed.data), file: parsed.data }
 }
 
-/** Formats an issue as one line: `ring.outerRadius: Too small: expected number to be >0`. */
+/**
+ * Formats an issue as one line: `ring.outerRadius: Too small: expected number to be >0`.
+ *
+ * @example formatDesignIssue({ path: 'ring.repeats', message: 'Too big' }) // 'ring.repeats: Too big'
+ */
 export function formatDesignIssue(issue: DesignIssue): string {
   return `${issue.path}: ${issue.message}`
 }
