@@ -242,14 +242,39 @@ interface SearchState {
   readonly exact: Map<string, Solved | null>
   readonly atLeast: Map<string, number>
   readonly cuts: Map<string, Cut[]>
+  /** Crossing lower bounds by unit key (see crossingBound). */
+  readonly floor: Map<string, number>
   units: number
   gaveUp: boolean
 }
 
-function lowerBound(state: SearchState, key: string): number {
+/**
+ * A lower bound from the vertices no area runs straight through (X crossings): every such vertex
+ * inside the unit must lie on some join's cut, each cut lies on one seam line, so vertices that
+ * share no seam line need a cut each. The unit needs at least one section more than a greedy
+ * set of such vertices. For a grid of w × h cells this is min(w, h): exact.
+ */
+function crossingBound(state: SearchState, unit: AreaSet, key: string): number {
+  const known = state.floor.get(key)
+  if (known !== undefined) return known
+  const { topology } = state
+  const used = new Set<number>()
+  let count = 0
+  for (const { vertex, areas } of topology.blockedVertices) {
+    if (!areas.every((area) => hasArea(unit, area))) continue
+    const lines = (topology.edgesAtVertex[vertex] ?? []).map((edge) => topology.seamEdges[edge]!.line)
+    if (lines.some((line) => used.has(line))) continue
+    for (const line of lines) used.add(line)
+    count += 1
+  }
+  state.floor.set(key, 1 + count)
+  return 1 + count
+}
+
+function lowerBound(state: SearchState, unit: AreaSet, key: string): number {
   const exact = state.exact.get(key)
   if (exact) return exact.count
-  return state.atLeast.get(key) ?? 1
+  return Math.max(state.atLeast.get(key) ?? 1, crossingBound(state, unit, key))
 }
 
 /** The best plan of `unit` using fewer than `limit` sections, or null when none exists below it. */
@@ -257,8 +282,10 @@ function solve(state: SearchState, unit: AreaSet, limit: number, key = areaSetKe
   if (limit <= 1) return null
   const exact = state.exact.get(key)
   if (exact !== undefined) return exact && exact.count < limit ? exact : null
-  if ((state.atLeast.get(key) ?? 1) >= limit) return null
-  const order = findSectionOrder(state.peel, unit)
+  const floor = lowerBound(state, unit, key)
+  if (floor >= limit) return null
+  // A unit holding a crossing is never one section: skip the peel search for it.
+  const order = floor > 1 ? null : findSectionOrder(state.peel, unit)
   if (order) {
     const solved: Solved = { tree: { kind: 'section', order }, count: 1 }
     state.exact.set(key, solved)
@@ -278,9 +305,10 @@ function solve(state: SearchState, unit: AreaSet, limit: number, key = areaSetKe
     state.cuts.set(key, cuts)
   }
   for (const cut of cuts) {
-    if (bound <= 2) break
-    // Each part needs at least what the memo already proved; skip cuts that cannot beat the bound.
-    if (lowerBound(state, cut.firstKey) + lowerBound(state, cut.secondKey) >= bound) continue
+    // Not one section, so at least two; and never fewer than the crossing bound: stop on reaching it.
+    if (bound <= Math.max(2, floor)) break
+    // Each part needs at least its lower bound; skip cuts that cannot beat the best plan.
+    if (lowerBound(state, cut.first, cut.firstKey) + lowerBound(state, cut.second, cut.secondKey) >= bound) continue
     const first = solve(state, cut.first, bound - 1, cut.firstKey)
     if (!first) continue
     const second = solve(state, cut.second, bound - first.count, cut.secondKey)
@@ -300,7 +328,7 @@ function solve(state: SearchState, unit: AreaSet, limit: number, key = areaSetKe
  */
 export function fewestSections(topology: Topology, constraints: readonly InsertConstraint[]): FewestSectionsResult {
   const all = areaSetOf(topology.areaCount, Array.from({ length: topology.areaCount }, (_, index) => index))
-  const state: SearchState = { topology, peel: createPeelSearch(topology, constraints), exact: new Map(), atLeast: new Map(), cuts: new Map(), units: 0, gaveUp: false }
+  const state: SearchState = { topology, peel: createPeelSearch(topology, constraints), exact: new Map(), atLeast: new Map(), cuts: new Map(), floor: new Map(), units: 0, gaveUp: false }
   const solved = topology.areaCount === 0 ? null : solve(state, all, Infinity)
   return { tree: solved?.tree ?? null, sectionCount: solved?.count ?? 0, gaveUp: state.gaveUp || state.peel.gaveUp }
 }
