@@ -1,7 +1,7 @@
 'use client'
 
 import type Konva from 'konva'
-import { useEffect, useMemo, useRef, type MutableRefObject } from 'react'
+import { useDeferredValue, useEffect, useMemo, useRef, type MutableRefObject } from 'react'
 import { Layer, Stage } from 'react-konva'
 import { boardPlan } from '@/lib/board/board-plan'
 import type { PointerController } from '@/lib/board/pointer'
@@ -30,7 +30,10 @@ export function BoardCanvas({
 }) {
   const design = useBoard(store, designOf)
   const view = useBoard(store, (state) => state.view)
-  const plan = useMemo(() => boardPlan(design), [design])
+  // Planning a large repeat takes longer than a frame: the seams follow the pointer at once and
+  // the areas, labels and problems catch up as soon as the plan of the latest design is ready.
+  const plannedDesign = useDeferredValue(design)
+  const plan = useMemo(() => boardPlan(plannedDesign), [plannedDesign])
   const panning = useRef<{ from: [number, number] } | null>(null)
   const localStage = useRef<Konva.Stage | null>(null)
 

@@ -28,6 +28,8 @@ declare global {
   interface Window {
     /** The board's store, for end-to-end tests and the speed benchmark to read and drive. */
     wreathwrightBoard?: BoardStore
+    /** The board's Konva stage, for the speed benchmark to time its draws. */
+    wreathwrightStage?: Konva.Stage | null
   }
 }
 
@@ -58,6 +60,7 @@ export function DraftingBoard({ patternId, patternName, revision, design }: { pa
 
   useEffect(() => {
     window.wreathwrightBoard = store
+    window.wreathwrightStage = stageRef.current
     return () => {
       if (window.wreathwrightBoard === store) delete window.wreathwrightBoard
     }

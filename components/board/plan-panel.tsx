@@ -1,6 +1,6 @@
 'use client'
 
-import { useMemo } from 'react'
+import { useDeferredValue, useMemo } from 'react'
 import { boardPlan, fabricOfArea, sewingSteps } from '@/lib/board/board-plan'
 import { formatSize } from '@/lib/board/format'
 import { design as designOf, type BoardStore } from '@/lib/board/store'
@@ -26,13 +26,20 @@ export function PlanPanel({ store }: { store: BoardStore }) {
   const step = useBoard(store, (state) => state.step)
   const tool = useBoard(store, (state) => state.tool)
   const handOrder = useBoard(store, (state) => state.handOrderDraft)
-  const result = useMemo(() => boardPlan(design), [design])
+  const plannedDesign = useDeferredValue(design)
+  const result = useMemo(() => boardPlan(plannedDesign), [plannedDesign])
   const plan = result.plan
   const steps = useMemo(() => (plan ? sewingSteps(plan) : []), [plan])
   const current = step !== null && steps.length > 0 ? steps[Math.min(step, steps.length - 1)] : undefined
   const errors = plan?.problems.filter((p) => p.severity === 'error') ?? []
   const warnings = plan?.problems.filter((p) => p.severity === 'warning') ?? []
   const units = design.units
+
+  /** A leaf with its stacked fabrics, bottom first, as the maker reads it while sewing. */
+  function describeLeaf(leafId: string): string {
+    const leaf = design.leaves.find((l) => l.id === leafId)
+    return leaf ? `leaf ${leaf.id} (${leaf.layers.join(' under ')})` : `leaf ${leafId}`
+  }
 
   function checkHandOrder() {
     const sections = (handOrder ?? []).filter((section) => section.length > 0)
@@ -102,7 +109,7 @@ export function PlanPanel({ store }: { store: BoardStore }) {
           {current && (
             <p className="text-xs" data-testid="current-step" aria-live="polite">
               <strong>Step {(step ?? 0) + 1} of {steps.length}: {current.label}</strong> — {fabricOfArea(design, result, current.id) ?? 'no fabric yet'}.{' '}
-              {current.leavesBefore.length > 0 && <>First baste leaf {current.leavesBefore.join(', ')} in place. </>}
+              {current.leavesBefore.length > 0 && <>First baste {current.leavesBefore.map(describeLeaf).join('; ')} in place. </>}
               {current.sewnAlong ? 'Lay the piece right side down over the sewn areas, sew on the marked line, flip and press.' : 'Place the piece wrong side to the unprinted side of the paper.'}{' '}
               Cut {formatSize(current.roughCut.widthIn, current.roughCut.heightIn, units)}.
             </p>

@@ -27,6 +27,9 @@ export default async function PatternPage({ params }: { params: Promise<{ id: st
         <Link href={`/patterns/${pattern.id}/board`} className="rounded bg-thread-700 px-4 py-2 text-white hover:bg-thread-800">
           Open the drafting board
         </Link>
+        <Link href={`/patterns/${pattern.id}/print`} className="rounded border border-stone-300 px-4 py-2 hover:bg-linen-100">
+          Print the booklet
+        </Link>
       </div>
       <dl className="grid max-w-xl grid-cols-2 gap-x-6 gap-y-2 text-sm">
         <dt className="text-stone-500">State</dt>
