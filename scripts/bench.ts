@@ -12,20 +12,32 @@ import { planDesign } from '../geometry/plan'
 import { repeatOutline } from '../geometry/ring'
 import type { Design } from '../geometry/types'
 
-const RUNS = 31
+const RUNS = 61
 /** Half-width of the sliver each seam cuts out for polygon-clipping, inches: far below any area. */
 const SLIVER_HALF_WIDTH = 1e-4
 
-function median(task: () => unknown): number {
-  for (let i = 0; i < 5; i += 1) task()
-  const times: number[] = []
-  for (let i = 0; i < RUNS; i += 1) {
-    const start = performance.now()
-    task()
-    times.push(performance.now() - start)
+/**
+ * Medians of two tasks timed in alternation, so both see the same load: the development machine
+ * is shared, and a ratio of two medians taken minutes apart would mostly measure the neighbours.
+ */
+function medians(first: () => unknown, second: () => unknown): [number, number] {
+  for (let i = 0; i < 5; i += 1) {
+    first()
+    second()
   }
-  times.sort((a, b) => a - b)
-  return times[RUNS >> 1] as number
+  const a: number[] = []
+  const b: number[] = []
+  for (let i = 0; i < RUNS; i += 1) {
+    let start = performance.now()
+    first()
+    a.push(performance.now() - start)
+    start = performance.now()
+    second()
+    b.push(performance.now() - start)
+  }
+  a.sort((x, y) => x - y)
+  b.sort((x, y) => x - y)
+  return [a[RUNS >> 1] as number, b[RUNS >> 1] as number]
 }
 
 function fullPlan(design: Design): number {
@@ -56,12 +68,11 @@ for (const size of [10, 20, 40, 80]) {
     [`${m} x ${n} grid`, gridDesign(m, n, 12)],
   ] as const) {
     const sections = fullPlan(design)
-    const plan = median(() => fullPlan(design))
-    const split = median(() => bareSplit(design))
+    const [plan, split] = medians(() => fullPlan(design), () => bareSplit(design))
     rows.push(
       `${String(planDesign(design).areas.length).padStart(5)}  ${kind.padEnd(16)}  ${String(sections).padStart(5)}  ${plan.toFixed(2).padStart(16)}  ${split.toFixed(2).padStart(25)}  ${(plan / split).toFixed(2).padStart(5)}×`,
     )
   }
 }
 console.log(rows.join('\n'))
-console.log(`\n${RUNS} runs each after 5 warm-up runs; goal: 40 areas under 10 ms median, ratio under 3×.`)
+console.log(`\n${RUNS} runs each, plan and split alternating, after 5 warm-up runs; goal: 40 areas under 10 ms median, ratio under 3×.`)
