@@ -28,6 +28,7 @@ describe('buildArrangement', () => {
   })
 
   it('snaps a seam end that stops within 0.01 in of the outline onto it', () => {
+    // geometry.md fixes the snap distance at 0.01 in; 0.008 and 0.009 in are inside it (arithmetic)
     const arrangement = buildArrangement(ring, [{ id: 's1', from: [3, 0.008], to: [0.009, 3] }])
     expect(arrangement.problems).toEqual([])
     expect(arrangement.areas).toHaveLength(2)
@@ -55,6 +56,7 @@ describe('buildArrangement', () => {
   })
 
   it('reports overlapping seams', () => {
+    // s2 runs along s1 from x = 1 to x = 5 on y = 2 (arithmetic): two seams on one line
     const arrangement = buildArrangement(ring, [
       { id: 's1', from: [0, 2], to: [arc(2), 2] },
       { id: 's2', from: [1, 2], to: [5, 2] },

@@ -38,6 +38,7 @@ const leaf = (id: string, seam: string, side: 'left' | 'right') => ({ id, seam, 
 
 describe('planDesign', () => {
   it('labels sections A, B, … Z, AA', () => {
+    // spreadsheet-style letters after Z (from memory: common in pattern publishing for many sections)
     expect([0, 1, 25, 26, 27].map(sectionLetter)).toEqual(['A', 'B', 'Z', 'AA', 'AB'])
   })
 
@@ -106,6 +107,8 @@ describe('planDesign', () => {
   })
 
   it('bastes a leaf on the area it lies over before the next one is sewn', () => {
+    // common practice (references.md): an insert's raw edge is caught in the seam sewn over it, so
+    // it is basted to the area it lies over first
     // seam "low" runs from the y axis to the arc (left to right), so its left side is above it
     const plan = planDesign(strips([leaf('l1', 'low', 'left')]))
     const middle = plan.areas.find((a) => a.point[1] > 2 && a.point[1] < 4)!
@@ -152,6 +155,8 @@ describe('planDesign', () => {
   })
 
   it('warns at the centre of an odd wedge ring and joins even wedges in halves', () => {
+    // derivable: a straight seam through the centre continues a radial edge only if the opposite
+    // direction is also a radial edge, i.e. 180° is a multiple of 360°/N, which needs N even
     const odd = planDesign(design({ ring: { ...quarterWedge, repeats: 5 }, seams: [{ id: 's1', from: [3, 0], to: [2 * Math.cos((2 * Math.PI) / 5), 2 * Math.sin((2 * Math.PI) / 5)] }] }))
     expect(odd.ringAssembly.kind).toBe('none')
     expect(odd.sewable).toBe(true)

@@ -24,6 +24,7 @@ function strips() {
 
 describe('checkSectionOrder', () => {
   it('accepts strips sewn bottom to top and gives each step its sewing line', () => {
+    // published criterion: Leake et al., ACM TOG 40(4) 2021 (each strip meets the sewn ones along one line)
     const { topology, bottom, middle, top } = strips()
     const { steps, failures } = checkSectionOrder(topology, [bottom, middle, top], [], 'A')
     expect(failures).toEqual([])
@@ -64,6 +65,7 @@ describe('checkSectionOrder', () => {
 
 describe('findSectionOrder', () => {
   it('finds no one-section order for a 2 × 2 grid', () => {
+    // published: Leake et al. 2021; the last of four cells round a crossing meets two lines
     const grid = gridDesign(2, 2)
     const topology = buildTopology(buildArrangement(grid.ring, grid.seams))
     expect(findSectionOrder(createPeelSearch(topology, []), areaSetOf(4, [0, 1, 2, 3]))).toBeNull()
