@@ -123,33 +123,49 @@ function roundedSpan(min: number, max: number, shareAtMin: number, slack: number
 }
 
 /**
- * The smallest rectangle at any rotation around the points: a minimum rectangle has a side on a
- * hull edge (the rotating-calipers theorem), so each hull edge is tried as a caliper direction.
- * Hulls have tens of corners, so trying each (O(n²)) is simpler than walking the calipers.
+ * Every rectangle that can be the smallest around the points: a minimum rectangle has a side on
+ * a hull edge (the rotating-calipers theorem), so each hull edge gives one candidate. Hulls have
+ * tens of corners, so trying each (O(n²)) is simpler than walking the calipers.
  */
-function smallestRectangle(points: readonly Point[]): FramedRectangle {
+function caliperRectangles(points: readonly Point[]): FramedRectangle[] {
   const hull = convexHull(points)
-  let best: FramedRectangle | null = null
-  let bestArea = Infinity
+  const candidates: FramedRectangle[] = []
   for (let i = 0; i < hull.length; i += 1) {
     const edge = subtract(hull[(i + 1) % hull.length]!, hull[i]!)
     const edgeLength = Math.hypot(edge[0], edge[1])
     if (edgeLength <= DUPLICATE_POINT_INCHES) continue
     const along: Point = [edge[0] / edgeLength, edge[1] / edgeLength]
-    const box = bounds(hull, hull[i]!, along)
-    const area = (box.maxAlong - box.minAlong) * (box.maxAcross - box.minAcross)
-    if (area < bestArea - RECTANGLE_AREA_TIE_SQ_IN) {
-      best = { origin: hull[i]!, along, ...box }
-      bestArea = area
-    }
+    candidates.push({ origin: hull[i]!, along, ...bounds(hull, hull[i]!, along) })
   }
-  if (best === null) throw new RangeError('a rough cut needs an area with a positive size')
+  if (candidates.length === 0) throw new RangeError('a rough cut needs an area with a positive size')
+  return candidates
+}
+
+/**
+ * A section's first piece: of the caliper rectangles grown by the margin and rounded up, the one
+ * whose cut piece is smallest. Choosing by the rounded size (what the maker actually cuts), with
+ * the shorter long side as the tie-break, keeps the answer the same however the area is turned;
+ * choosing by the unrounded area flipped between two near-equal rectangles of different sizes.
+ */
+function firstPieceRectangle(shape: readonly Point[], margin: number, slack: number): FramedRectangle {
+  let best: { rectangle: FramedRectangle; area: number; longSide: number } | null = null
+  for (const candidate of caliperRectangles(shape)) {
+    const [minAlong, maxAlong] = roundedSpan(candidate.minAlong - margin, candidate.maxAlong + margin, 0.5, slack)
+    const [minAcross, maxAcross] = roundedSpan(candidate.minAcross - margin, candidate.maxAcross + margin, 0.5, slack)
+    const width = roundUpToEighthInch(maxAlong - minAlong)
+    const height = roundUpToEighthInch(maxAcross - minAcross)
+    const area = width * height
+    const longSide = Math.max(width, height)
+    const better =
+      !best || area < best.area - RECTANGLE_AREA_TIE_SQ_IN || (Math.abs(area - best.area) <= RECTANGLE_AREA_TIE_SQ_IN && longSide < best.longSide - RECTANGLE_AREA_TIE_SQ_IN)
+    if (better) best = { rectangle: { ...candidate, minAlong, maxAlong, minAcross, maxAcross }, area, longSide }
+  }
+  const chosen = best!.rectangle
   // The first edge is a long side, so `widthIn ≥ heightIn` for first areas.
-  const width = best.maxAlong - best.minAlong
-  const height = best.maxAcross - best.minAcross
-  if (height <= width) return best
-  const along = leftOf(best.along)
-  return { origin: best.origin, along, ...bounds(hull, best.origin, along) }
+  if (chosen.maxAcross - chosen.minAcross <= chosen.maxAlong - chosen.minAlong) return chosen
+  const along = leftOf(chosen.along)
+  const corners = cornersOf(chosen)
+  return { origin: chosen.origin, along, ...bounds(corners, chosen.origin, along) }
 }
 
 /**
@@ -173,10 +189,7 @@ export function roughCutPiece(area: Polygon, sewnAlong: Segment | null, options:
   const slack = Math.min(MARGIN_ROUNDING_SLACK_INCHES, margin)
 
   if (sewnAlong === null) {
-    const smallest = smallestRectangle(shape)
-    const [minAlong, maxAlong] = roundedSpan(smallest.minAlong - margin, smallest.maxAlong + margin, 0.5, slack)
-    const [minAcross, maxAcross] = roundedSpan(smallest.minAcross - margin, smallest.maxAcross + margin, 0.5, slack)
-    return toRoughCut({ ...smallest, minAlong, maxAlong, minAcross, maxAcross })
+    return toRoughCut(firstPieceRectangle(shape, margin, slack))
   }
 
   const [from, to] = sewnAlong
