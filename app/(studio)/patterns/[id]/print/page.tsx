@@ -17,7 +17,7 @@ export default async function PrintPage({ params }: { params: Promise<{ id: stri
     throw error
   })
   return (
-    <article className="space-y-6">
+    <article className="mx-auto max-w-6xl space-y-6">
       <Link href={`/patterns/${pattern.id}`} className="text-sm text-thread-700 hover:underline">
         ← {pattern.name}
       </Link>
