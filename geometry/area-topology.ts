@@ -152,10 +152,10 @@ export function buildTopology(arrangement: Arrangement): Topology {
     const around = areasAtVertex[vertex] ?? []
     if (arrangement.vertexOnOutline[vertex] || around.length < 3 || around.includes(-1)) return
     // An area runs straight through the vertex when its two sides there lie on one seam line.
-    const straight = around.some((area) => {
-      const sides = edges.filter((edge) => seamEdges[edge]?.left === area || seamEdges[edge]?.right === area)
-      return sides.length === 2 && seamEdges[sides[0] as number]?.line === seamEdges[sides[1] as number]?.line
-    })
+    const sidesOf = around.map((area) => edges.filter((edge) => seamEdges[edge]?.left === area || seamEdges[edge]?.right === area))
+    // An area meeting the vertex more than once (a pinched face) breaks the argument: skip it.
+    if (sidesOf.some((sides) => sides.length !== 2)) return
+    const straight = sidesOf.some((sides) => seamEdges[sides[0] as number]?.line === seamEdges[sides[1] as number]?.line)
     if (!straight) blockedVertices.push({ vertex, areas: [...around].sort((p, q) => p - q) })
   })
   return {
