@@ -1,14 +1,17 @@
 'use client'
 
 import { Fragment, useMemo } from 'react'
-import { Circle, Shape, Text } from 'react-konva'
-import type { BoardPlan } from '@/lib/board/board-plan'
+import { Circle, Line, Shape, Text } from 'react-konva'
+import { sectionOutlines, type BoardPlan } from '@/lib/board/board-plan'
 import type { BoardDesign } from '@/lib/board/commands'
 import type { BoardStore, View } from '@/lib/board/store'
 import { toScreen } from '@/lib/board/view'
 import { areaShapes, type Point } from './board-geometry'
 import { drawRingScene, ringScene } from './ring-scene'
 import { useBoard } from './use-board'
+
+/** Section outlines take turns in these colours so neighbouring papers are told apart. */
+const SECTION_COLOURS = ['#2f5540', '#1d4e89', '#87291d', '#7a5a00', '#5b2a86']
 
 /** Flattens points to Konva's [x0, y0, x1, y1, …] in screen pixels. */
 export function screenPoints(points: readonly Point[], view: View, repeats: number): number[] {
@@ -27,12 +30,28 @@ export function RingShapes({ store, design, plan, view }: { store: BoardStore; d
   )
   const scene = useMemo(() => ringScene(design, plan, colours), [design, plan, colours])
   const labels = useMemo(() => areaShapes(design, plan).filter((area) => area.label), [design, plan])
+  const sections = sectionOutlines(plan)
   const repeats = design.ring.repeats
   const labelSize = Math.max(9, Math.min(16, view.zoom * (design.units === 'cm' ? 0.35 : 0.9)))
 
   return (
     <>
       <Shape sceneFunc={(context) => drawRingScene(context._context, scene, view, repeats)} listening={false} perfectDrawEnabled={false} />
+      {sections.length > 1 &&
+        sections.flatMap((section, index) =>
+          section.rings.map((ring, r) => (
+            <Line
+              key={`section-${section.label}-${r}`}
+              points={screenPoints(ring, view, repeats)}
+              closed
+              stroke={SECTION_COLOURS[index % SECTION_COLOURS.length]}
+              strokeWidth={3.5}
+              opacity={0.8}
+              dash={[12, 5]}
+              listening={false}
+            />
+          )),
+        )}
       {labels.map((area) => {
         const [x, y] = toScreen(area.labelAt, view, repeats)
         return (

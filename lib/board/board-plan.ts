@@ -2,7 +2,8 @@
  * The sewing plan of the design on the board, in the design's own units for drawing. Computed by
  * the geometry core from the design; it is never a state of its own and never undone.
  */
-import { planDesign, type Plan } from '@/geometry'
+import { planDesign, unitePieces, type Plan } from '@/geometry'
+import { weldTJunctions } from '@/lib/booklet/section-outline'
 import { parseDesign, type DesignIssue } from '@/lib/schemas/design'
 import type { BoardDesign } from './commands'
 
@@ -62,4 +63,36 @@ export function fabricOfArea(design: BoardDesign, result: BoardPlan, areaId: str
   let fabric: string | null = null
   for (const fill of design.fills) if (areaAt(result, fill.at)?.id === areaId) fabric = fill.fabric
   return fabric
+}
+
+export interface SectionOutline {
+  readonly label: string
+  /** Outer rings of the section's areas united, in design units. */
+  readonly rings: readonly (readonly Point[])[]
+}
+
+const outlineCache = new WeakMap<BoardPlan, readonly SectionOutline[]>()
+
+/**
+ * Each section's outline (the edge of its foundation paper before the trim allowance), for the
+ * board to draw around the areas sewn on one paper.
+ */
+export function sectionOutlines(result: BoardPlan): readonly SectionOutline[] {
+  const cached = outlineCache.get(result)
+  if (cached) return cached
+  const plan = result.plan
+  const byId = new Map(plan?.areas.map((area) => [area.id, area]) ?? [])
+  const outlines = (plan?.sections ?? []).map((section) => {
+    const polygons = section.order.map((id) => byId.get(id)!.polygon)
+    let rings: Point[][]
+    try {
+      // The plan rounds its corners, so T-junctions are welded first or the union cracks apart.
+      rings = unitePieces(weldTJunctions(polygons)).map((ring) => ring.map((p) => toDesignUnits(p, result.unitsPerInch)))
+    } catch {
+      rings = []
+    }
+    return { label: section.label, rings }
+  })
+  outlineCache.set(result, outlines)
+  return outlines
 }

@@ -101,3 +101,27 @@ describe('the board store', () => {
     expect(calls).toBe(2)
   })
 })
+
+describe('section outlines', () => {
+  it('draws one outline per section: an X crossing makes two papers, each half of the repeat', async () => {
+    const { sectionOutlines } = await import('./board-plan')
+    // A square-ish repeat is not needed: two seams crossing as an X inside a quarter ring.
+    const store = createBoardStore(
+      emptyQuarterRing({
+        seams: [
+          { id: 'a', from: [6, 0], to: [0, 6] },
+          { id: 'b', from: [0, 0], to: [6.363961, 6.363961] },
+        ],
+      }),
+    )
+    const result = boardPlan(design(store.getState()))
+    expect(result.plan!.sections).toHaveLength(2)
+    const outlines = sectionOutlines(result)
+    expect(outlines.map((outline) => outline.rings.length)).toEqual([1, 1])
+    // The two outlines together cover the repeat: a quarter of a 9 in disc, π · 81 / 4 ≈ 63.6 sq in.
+    const area = (ring: readonly (readonly [number, number])[]) =>
+      Math.abs(ring.reduce((sum, p, i) => { const q = ring[(i + 1) % ring.length]!; return sum + p[0] * q[1] - q[0] * p[1] }, 0)) / 2
+    const total = outlines.reduce((sum, outline) => sum + area(outline.rings[0]!), 0)
+    expect(total).toBeCloseTo((Math.PI * 81) / 4, 0)
+  })
+})
