@@ -19,8 +19,11 @@ function labelsOf(tree: JoinTree): string[] {
   return typeof tree === 'string' ? [tree] : [...labelsOf(tree[0]), ...labelsOf(tree[1])]
 }
 
-function describeTree(tree: JoinTree): string {
-  return typeof tree === 'string' ? tree : `${describeTree(tree[0])}${describeTree(tree[1])}`
+/** A group of sections in words: `A`, `A+B`, `(A+B)+C`. */
+function describeTree(tree: JoinTree, top = true): string {
+  if (typeof tree === 'string') return tree
+  const inner = `${describeTree(tree[0], false)}+${describeTree(tree[1], false)}`
+  return top ? inner : `(${inner})`
 }
 
 /**
