@@ -2,6 +2,7 @@ import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { design, gridDesign, peelDesign, quarterWedge, xInLastRegionDesign } from './fixtures/generators'
 import { independentJoinProblem, independentOrderProblem } from './fixtures/independent-checker'
+import { parseDesign } from '../lib/schemas/design'
 import { planDesign, sectionLetter, type Plan } from './plan'
 import type { Design, HandSetOrder, JoinTree, Polygon, Seam } from './types'
 
@@ -69,6 +70,43 @@ describe('planDesign', () => {
       }),
       { numRuns: 40 },
     )
+  })
+
+  it('snaps hand-drawn ends the same way whatever order the seams are listed in', () => {
+    // ends moved up to 0.004 in off the lines they belong on: inside the 0.01 in snap (geometry.md)
+    fc.assert(
+      fc.property(anyDesign, fc.integer({ min: 1, max: 1_000_000 }), (d, jitterSeed) => {
+        let state = jitterSeed
+        const next = (): number => (state = (state * 48271) % 2147483647) / 2147483647
+        const jitter = (p: readonly [number, number]): [number, number] => [p[0] + (next() - 0.5) * 0.008, p[1] + (next() - 0.5) * 0.008]
+        const drawn = { ...d, seams: d.seams.map((s) => ({ ...s, from: jitter(s.from), to: jitter(s.to) })) }
+        const plan = planDesign(drawn)
+        expect(plan.sewable).toBe(true)
+        const reversed = planDesign({ ...drawn, seams: [...drawn.seams].reverse().map((s) => ({ id: s.id, from: s.to, to: s.from })) })
+        expect(labels(reversed)).toEqual(labels(plan))
+      }),
+      { numRuns: 30 },
+    )
+  })
+
+  it('plans a centimetre design exactly as its inch twin', () => {
+    // 1 in = 2.54 cm exactly (standard: international yard and pound agreement, 1959)
+    const inches = gridDesign(2, 3)
+    const file = (units: 'in' | 'cm', scale: number) => ({
+      format: 'wreathwright-design',
+      version: 1,
+      name: 'twin',
+      units,
+      ring: { ...inches.ring, outerRadius: inches.ring.outerRadius * scale },
+      seams: inches.seams.map((s) => ({ id: s.id, from: [s.from[0] * scale, s.from[1] * scale], to: [s.to[0] * scale, s.to[1] * scale] })),
+    })
+    const plans = [file('in', 1), file('cm', 2.54)].map((json) => {
+      const parsed = parseDesign(json)
+      if (!parsed.ok) throw new Error(parsed.issues[0]?.message)
+      return planDesign(parsed.design)
+    })
+    expect(labels(plans[1]!)).toEqual(labels(plans[0]!))
+    expect(plans[1]!.areas.map((a) => a.areaSqIn)).toEqual(plans[0]!.areas.map((a) => a.areaSqIn))
   })
 
   it('proposes sections and joins that an independent checker accepts', () => {
