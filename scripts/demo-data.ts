@@ -6,6 +6,7 @@
  */
 import { hashPassword } from '../lib/auth/password'
 import { database } from '../lib/db'
+import { emptyDesign } from '../lib/new-design'
 import type { Role } from '../lib/roles'
 import type { DesignFile } from '../lib/schemas/design'
 import { designFileSchema } from '../lib/schemas/design'
@@ -126,28 +127,10 @@ const compassRing: DesignFile = {
   order: null,
 }
 
-function emptyRing(name: string, repeats: number, outerRadius: number): DesignFile {
-  return {
-    format: 'wreathwright-design',
-    version: 1,
-    name,
-    units: 'in',
-    ring: { innerRadius: 0, outerRadius, repeats, repeatMode: 'rotate' },
-    seams: [],
-    fills: [],
-    leaves: [],
-    stems: [],
-    berries: [],
-    curls: [],
-    colorways: [{ name: 'Main', fabrics: { background: '#f4ecd8' } }],
-    order: null,
-  }
-}
-
 export const DEMO_PATTERNS: readonly { owner: string; state: PatternState; design: DesignFile }[] = [
   { owner: 'marguerite@bramblelane.example', state: 'published', design: hollyberryWreath },
   { owner: 'marguerite@bramblelane.example', state: 'testing', design: lanternMedallion },
-  { owner: 'marguerite@bramblelane.example', state: 'draft', design: emptyRing('Winter Star (sketch)', 6, 10) },
+  { owner: 'marguerite@bramblelane.example', state: 'draft', design: emptyDesign('Winter Star (sketch)', { innerRadius: 0, outerRadius: 10, repeats: 6, repeatMode: 'rotate' }) },
   { owner: 'tomasz@juniperthread.example', state: 'draft', design: compassRing },
   {
     owner: 'tomasz@juniperthread.example',

@@ -11,6 +11,7 @@
  *   crash or a closed tab loses nothing; the next visit offers the draft back.
  */
 import { designFileSchema, type DesignFile } from '@/lib/schemas/design'
+import { normalizeDesign } from './commands'
 
 /** The part of the board store (lib/board/store.ts) the autosaver needs. */
 export interface AutosaveStore {
@@ -165,7 +166,7 @@ export function clearLocalDraft(storage: DraftStorage | null, patternId: string,
  * @example isSameDesign(serverDesign, draft.design) // false → offer the draft back
  */
 export function isSameDesign(a: DesignFile, b: DesignFile): boolean {
-  return a === b || canonicalJson(withListsPresent(a)) === canonicalJson(withListsPresent(b))
+  return a === b || canonicalJson(normalizeDesign(a)) === canonicalJson(normalizeDesign(b))
 }
 
 /**
@@ -179,20 +180,6 @@ export function isSameDesign(a: DesignFile, b: DesignFile): boolean {
 export function findRecoverableDraft(storage: DraftStorage | null, patternId: string, savedDesign: DesignFile): LocalDraft | null {
   const draft = readLocalDraft(storage, patternId)
   return draft && !isSameDesign(draft.design, savedDesign) ? draft : null
-}
-
-// Mirrors normalizeDesign in commands.ts, kept here so comparing needs no board code.
-function withListsPresent(design: DesignFile): DesignFile {
-  return {
-    ...design,
-    fills: design.fills ?? [],
-    leaves: design.leaves ?? [],
-    stems: design.stems ?? [],
-    berries: design.berries ?? [],
-    curls: design.curls ?? [],
-    colorways: design.colorways && design.colorways.length > 0 ? design.colorways : [{ name: 'Main', fabrics: {} }],
-    order: design.order ?? null,
-  }
 }
 
 function canonicalJson(value: unknown): string {

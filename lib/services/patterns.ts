@@ -3,6 +3,7 @@ import { Transaction } from 'sequelize'
 import { authorize, type Actor } from '@/lib/authorization'
 import { database } from '@/lib/db'
 import { ConflictError, NotFoundError, ValidationError } from '@/lib/errors'
+import { emptyDesign } from '@/lib/new-design'
 import type { DesignFile } from '@/lib/schemas/design'
 import {
   PATTERN_STATE_CHANGES,
@@ -41,25 +42,6 @@ function toSummary(pattern: Pattern): PatternSummary {
 
 function toView(pattern: Pattern): PatternView {
   return { ...toSummary(pattern), ownerId: pattern.ownerId, design: pattern.design as DesignFile }
-}
-
-/** A new pattern's design: an empty ring of quarters, 18 in across, ready to draw on. */
-export function emptyDesign(name: string): DesignFile {
-  return {
-    format: 'wreathwright-design',
-    version: 1,
-    name,
-    units: 'in',
-    ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
-    seams: [],
-    fills: [],
-    leaves: [],
-    stems: [],
-    berries: [],
-    curls: [],
-    colorways: [{ name: 'Main', fabrics: { background: '#f4ecd8' } }],
-    order: null,
-  } as DesignFile
 }
 
 /** The designer's own patterns, most recently changed first. */

@@ -4,7 +4,7 @@ import { hashPassword } from '@/lib/auth/password'
 import { database } from '@/lib/db'
 import type { Role } from '@/lib/roles'
 import type { DesignFile } from '@/lib/schemas/design'
-import { emptyDesign } from '@/lib/services/patterns'
+import { emptyDesign } from '@/lib/new-design'
 import { Pattern, PatternRevision, User } from '@/models'
 
 export const TEST_PASSWORD = 'a-long-test-password'
