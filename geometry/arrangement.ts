@@ -213,17 +213,17 @@ function traceFaces(outline: RepeatOutline, seams: readonly Seam[], vertices: re
   const origin = (h: number): number => ((h & 1) === 0 ? (pieces[h >> 1] as Piece).from : (pieces[h >> 1] as Piece).to)
   const target = (h: number): number => origin(h ^ 1)
   const position = new Array<number>(pieces.length * 2).fill(0)
+  // Each half-edge's direction, computed once rather than inside the sort's comparisons.
+  const angle = new Float64Array(pieces.length * 2)
+  for (let h = 0; h < pieces.length * 2; h += 1) {
+    const p = vertices[origin(h)] as Point
+    const q = vertices[target(h)] as Point
+    angle[h] = Math.atan2(q[1] - p[1], q[0] - p[0])
+  }
   for (let v = 0; v < vertices.length; v += 1) {
     const list = outgoing[v] as number[]
-    const angleOf = (h: number): number => {
-      const p = vertices[v] as Point
-      const q = vertices[target(h)] as Point
-      return Math.atan2(q[1] - p[1], q[0] - p[0])
-    }
-    list.sort((p, q) => angleOf(p) - angleOf(q))
-    list.forEach((h, index) => {
-      position[h] = index
-    })
+    if (list.length > 1) list.sort((p, q) => (angle[p] as number) - (angle[q] as number))
+    for (let index = 0; index < list.length; index += 1) position[list[index] as number] = index
   }
   const faceOf = new Array<number>(pieces.length * 2).fill(-2)
   const cycles: number[][] = []
