@@ -16,7 +16,8 @@
  * pattern or the store changes.
  */
 import { useEffect, useMemo, useSyncExternalStore } from 'react'
-import { createAutosaver, type AutosaveState, type AutosaveStore, type DraftStorage } from '@/lib/board/autosave'
+import { createAutosaver, type AutosaveState, type AutosaveStore } from '@/lib/board/autosave'
+import type { DraftStorage } from '@/lib/board/local-draft'
 
 export interface UseAutosave {
   readonly state: AutosaveState

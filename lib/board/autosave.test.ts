@@ -1,14 +1,7 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
 import type { DesignFile } from '@/lib/schemas/design'
-import {
-  createAutosaver,
-  draftKey,
-  findRecoverableDraft,
-  isSameDesign,
-  RETRY_DELAYS_MS,
-  type Autosaver,
-  type DraftStorage,
-} from './autosave'
+import { createAutosaver, RETRY_DELAYS_MS, type Autosaver } from './autosave'
+import { draftKey, findRecoverableDraft, isSameDesign, type DraftStorage } from './local-draft'
 import { createBoardStore, type BoardStore } from './store'
 
 const PATTERN_ID = '00000000-0000-4000-8000-000000000001'
