@@ -1,37 +1,22 @@
 'use client'
 
 import { useRouter } from 'next/navigation'
-import { useState, type FormEvent } from 'react'
+import type { FormEvent } from 'react'
 import { Field } from '@/components/ui/field'
-import { ApiError, apiFetch } from '@/lib/api-client'
-import { errorsByField } from '@/lib/form-errors'
 import { signInSchema } from '@/lib/schemas/account'
+import { useApiForm } from './use-api-form'
 
 export function SignInForm({ next }: { next: string }) {
   const router = useRouter()
-  const [errors, setErrors] = useState<Record<string, string>>({})
-  const [message, setMessage] = useState<string | null>(null)
-  const [busy, setBusy] = useState(false)
+  const { errors, message, busy, submit } = useApiForm(signInSchema, '/api/auth/sign-in', () => {
+    router.push(next)
+    router.refresh()
+  })
 
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
+  function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault()
     const form = new FormData(event.currentTarget)
-    const parsed = signInSchema.safeParse({ email: form.get('email'), password: form.get('password') })
-    if (!parsed.success) return setErrors(errorsByField(parsed.error.issues))
-    setErrors({})
-    setMessage(null)
-    setBusy(true)
-    try {
-      await apiFetch('/api/auth/sign-in', { method: 'POST', json: parsed.data })
-      router.push(next)
-      router.refresh()
-    } catch (error) {
-      setBusy(false)
-      if (error instanceof ApiError) {
-        setErrors(errorsByField(error.issues))
-        setMessage(error.message)
-      } else setMessage('Could not reach Wreathwright. Check your connection and try again.')
-    }
+    void submit({ email: form.get('email'), password: form.get('password') })
   }
 
   return (

@@ -1,42 +1,27 @@
 'use client'
 
 import { useRouter } from 'next/navigation'
-import { useState, type FormEvent } from 'react'
+import type { FormEvent } from 'react'
 import { Field } from '@/components/ui/field'
-import { ApiError, apiFetch } from '@/lib/api-client'
-import { errorsByField } from '@/lib/form-errors'
 import { signUpSchema } from '@/lib/schemas/account'
+import { useApiForm } from './use-api-form'
 
 export function SignUpForm() {
   const router = useRouter()
-  const [errors, setErrors] = useState<Record<string, string>>({})
-  const [message, setMessage] = useState<string | null>(null)
-  const [busy, setBusy] = useState(false)
+  const { errors, message, busy, submit } = useApiForm(signUpSchema, '/api/auth/sign-up', (account) => {
+    router.push(account.wantsDesignerAccount ? '/patterns' : '/')
+    router.refresh()
+  })
 
-  async function onSubmit(event: FormEvent<HTMLFormElement>) {
+  function onSubmit(event: FormEvent<HTMLFormElement>) {
     event.preventDefault()
     const form = new FormData(event.currentTarget)
-    const parsed = signUpSchema.safeParse({
+    void submit({
       displayName: form.get('displayName'),
       email: form.get('email'),
       password: form.get('password'),
       wantsDesignerAccount: form.get('wantsDesignerAccount') === 'on',
     })
-    if (!parsed.success) return setErrors(errorsByField(parsed.error.issues))
-    setErrors({})
-    setMessage(null)
-    setBusy(true)
-    try {
-      await apiFetch('/api/auth/sign-up', { method: 'POST', json: parsed.data })
-      router.push(parsed.data.wantsDesignerAccount ? '/patterns' : '/')
-      router.refresh()
-    } catch (error) {
-      setBusy(false)
-      if (error instanceof ApiError) {
-        setErrors(errorsByField(error.issues))
-        setMessage(error.message)
-      } else setMessage('Could not reach Wreathwright. Check your connection and try again.')
-    }
   }
 
   return (
