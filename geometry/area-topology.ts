@@ -75,6 +75,8 @@ export function buildTopology(arrangement: Arrangement): Topology {
     return e ? (e.from === vertex ? e.to : e.from) : -1
   }
   edgesAtVertex.forEach((list, vertex) => {
+    const slot = (edge: number): 0 | 1 => ((interior[edge] as { from: number }).from === vertex ? 0 : 1)
+    const candidates: { e1: number; e2: number; deviation: number }[] = []
     for (let i = 0; i < list.length; i += 1) {
       for (let j = i + 1; j < list.length; j += 1) {
         const e1 = list[i] as number
@@ -83,11 +85,17 @@ export function buildTopology(arrangement: Arrangement): Topology {
         const b = vertices[far(e2, vertex)] as Point
         const v = vertices[vertex] as Point
         const behind = (a[0] - v[0]) * (b[0] - v[0]) + (a[1] - v[1]) * (b[1] - v[1]) < 0
-        if (!behind || distanceToSegment(v, a, b) > STRAIGHT_LINE_INCHES) continue
-        const slot = (edge: number): 0 | 1 => ((interior[edge] as { from: number }).from === vertex ? 0 : 1)
-        partner[e1]![slot(e1)] = e2
-        partner[e2]![slot(e2)] = e1
+        const deviation = distanceToSegment(v, a, b)
+        if (behind && deviation <= STRAIGHT_LINE_INCHES) candidates.push({ e1, e2, deviation })
       }
+    }
+    // One partner per edge end, straightest pairs first: three nearly straight edges at a vertex
+    // (seams drawn within the tolerance of each other) must still make simple chains.
+    candidates.sort((p, q) => p.deviation - q.deviation || p.e1 - q.e1 || p.e2 - q.e2)
+    for (const { e1, e2 } of candidates) {
+      if (partner[e1]![slot(e1)] !== -1 || partner[e2]![slot(e2)] !== -1) continue
+      partner[e1]![slot(e1)] = e2
+      partner[e2]![slot(e2)] = e1
     }
   })
   const slotAt = (edge: number, vertex: number): 0 | 1 => ((interior[edge] as { from: number }).from === vertex ? 0 : 1)

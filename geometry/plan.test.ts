@@ -205,6 +205,54 @@ describe('planDesign', () => {
     expect(planDesign(design({ ring: { ...quarterWedge, innerRadius: 2, repeats: 5 } })).ringAssembly.kind).toBe('chain')
   })
 
+  it('never throws on random seams drawn between the outline and other seams', () => {
+    // geometry.md: an unsewable design is a result, never an exception
+    const design01 = fc.record({
+      repeats: fc.integer({ min: 2, max: 36 }),
+      outer: fc.constantFrom(0.5, 3, 9, 20),
+      hole: fc.constantFrom(0, 0, 0.3),
+      picks: fc.array(fc.record({ side: fc.integer({ min: 0, max: 3 }), t: fc.double({ min: 0, max: 1, noNaN: true }), u: fc.double({ min: 0, max: 1, noNaN: true }), onSeam: fc.boolean() }), { maxLength: 8 }),
+    })
+    fc.assert(
+      fc.property(design01, ({ repeats, outer, hole, picks }) => {
+        const inner = outer * hole
+        const span = (2 * Math.PI) / repeats
+        const onOutline = (side: number, t: number): [number, number] => {
+          const radius = inner + t * (outer - inner)
+          if (side === 0) return [radius, 0]
+          if (side === 1) return [radius * Math.cos(span), radius * Math.sin(span)]
+          const r = side === 2 ? outer : inner
+          return [r * Math.cos(t * span), r * Math.sin(t * span)]
+        }
+        const seams: Seam[] = []
+        picks.forEach(({ side, t, u, onSeam }, index) => {
+          const host = seams[index - 1]
+          const from: [number, number] = onSeam && host ? [host.from[0] + u * (host.to[0] - host.from[0]), host.from[1] + u * (host.to[1] - host.from[1])] : onOutline((side + 1) % 4, u)
+          seams.push({ id: `s${index}`, from, to: onOutline(side, t) })
+        })
+        const plan = planDesign(design({ ring: { innerRadius: inner, outerRadius: outer, repeats, repeatMode: 'rotate' }, seams }))
+        expect(plan.areas.length).toBeGreaterThan(0)
+      }),
+      { numRuns: 300 },
+    )
+  })
+
+  it('does not throw when several seams run nearly straight through one point (found by fuzzing)', () => {
+    // seven seams in a 0.5 in wedge, some within the 0.001 in straightness tolerance of each
+    // other at shared points: seam lines must still be simple chains (geometry.md: never a crash)
+    const seams: Seam[] = [
+      { id: 's0', from: [0.49798929845700973, 0.04479574335018092], to: [0.2537418674910441, 0] },
+      { id: 's1', from: [0.4999807183789352, 0.004391041936016934], to: [2.932720439557672e-18, 0.04789495945442468] },
+      { id: 's2', from: [0.1964382991220145, 0.4597956009337736], to: [1.8761913511146972e-17, 0.3064053002744913] },
+      { id: 's3', from: [0.11059208765215628, 0.03827221025120135], to: [0.45509455911815166, 0] },
+      { id: 's4', from: [0.11322077532803215, 0.038043485007148464], to: [2.7063711958177786e-17, 0.44198395777493715] },
+      { id: 's5', from: [0.06515124634269306, 0.35727913348063867], to: [0, 0] },
+      { id: 's6', from: [0.4301428882599195, 0.2549060526535501], to: [1.2207701812659071e-17, 0.19936690025497228] },
+    ]
+    const plan = planDesign(design({ ring: { innerRadius: 0, outerRadius: 0.5, repeats: 4, repeatMode: 'mirror' }, seams }))
+    expect(plan.areas.length).toBeGreaterThan(1)
+  })
+
   it('places a set-in seam at its point', () => {
     const plan = planDesign(
       design({
