@@ -3,8 +3,10 @@ import { describe, expect, it } from 'vitest'
 import { buildArrangement } from './arrangement'
 import { buildTopology } from './area-topology'
 import { fewestSections } from './fewest-sections'
-import { design, gridDesign, peelDesign, yJunctionDesign } from './fixtures/generators'
+import { design, gridDesign, peelDesign, xInLastRegionDesign, yJunctionDesign } from './fixtures/generators'
+import { independentJoinProblem, independentOrderProblem } from './fixtures/independent-checker'
 import { planDesign } from './plan'
+import type { Polygon } from './types'
 
 const arc = (x: number): number => Math.sqrt(81 - x * x)
 
@@ -13,7 +15,60 @@ function sectionCount(seams: Parameters<typeof buildArrangement>[1]): number {
   return fewestSections(buildTopology(arrangement), []).sectionCount
 }
 
+/** Exhaustive search, sharing no code with the core: every partition, every order, every join tree. */
+function permutations<T>(items: readonly T[]): T[][] {
+  if (items.length <= 1) return [[...items]]
+  return items.flatMap((item, i) => permutations([...items.slice(0, i), ...items.slice(i + 1)]).map((rest) => [item, ...rest]))
+}
+
+function isOneSection(polygons: readonly Polygon[]): boolean {
+  return permutations(polygons).some((order) => independentOrderProblem(order) === null)
+}
+
+function isJoinable(groups: readonly Polygon[][]): boolean {
+  if (groups.length === 1) return true
+  for (let mask = 1; mask < (1 << groups.length) - 1; mask += 2) {
+    const first = groups.filter((_, i) => mask & (1 << i))
+    const second = groups.filter((_, i) => !(mask & (1 << i)))
+    if (independentJoinProblem(first.flat(), second.flat()) === null && isJoinable(first) && isJoinable(second)) return true
+  }
+  return false
+}
+
+function* partitions(items: readonly number[]): Generator<number[][]> {
+  const [first, ...rest] = items
+  if (first === undefined) {
+    yield []
+    return
+  }
+  for (const partition of partitions(rest)) {
+    yield [[first], ...partition]
+    for (let i = 0; i < partition.length; i += 1) yield [...partition.slice(0, i), [first, ...(partition[i] ?? [])], ...partition.slice(i + 1)]
+  }
+}
+
+function bruteForceSections(polygons: readonly Polygon[]): number {
+  let best = Infinity
+  for (const partition of partitions(polygons.map((_, i) => i))) {
+    if (partition.length >= best) continue
+    const groups = partition.map((block) => block.map((i) => polygons[i] as Polygon))
+    if (groups.every(isOneSection) && isJoinable(groups)) best = partition.length
+  }
+  return best
+}
+
 describe('fewestSections', () => {
+  it('agrees with an exhaustive search over all partitions on small designs', () => {
+    // the published criterion (Leake et al., ACM TOG 40(4) 2021) checked by brute force: every
+    // partition of up to 7 areas, every order of each part, every binary join tree
+    const designs = [gridDesign(2, 2), gridDesign(2, 3), gridDesign(3, 2), ...[1, 2, 3, 4, 5, 6].flatMap((seed) => [xInLastRegionDesign(2, seed), xInLastRegionDesign(3, seed)])]
+    for (const d of designs) {
+      const plan = planDesign(d)
+      expect(plan.areas.length).toBeLessThanOrEqual(7)
+      expect(plan.sections.length).toBe(bruteForceSections(plan.areas.map((area) => area.polygon)))
+    }
+  })
+
   it('needs two sections for a straight X crossing', () => {
     // geometry.md consequence; published: Leake et al., ACM TOG 40(4) 2021 (an X is not
     // pieceable on one foundation, each half is)
