@@ -29,7 +29,7 @@ const valid = {
 }
 
 /** The CLI contract of geometry.md: exit 0 with a JSON plan, or exit 2 with one line and no stack. */
-function expectContract(result: ReturnType<typeof runCli>): void {
+function expectContract(result: Awaited<ReturnType<typeof runCli>>): void {
   expect([0, 2]).toContain(result.code)
   if (result.code === 0) {
     expect(result.stderr).toBe('')
@@ -44,63 +44,66 @@ function expectContract(result: ReturnType<typeof runCli>): void {
 describe('cli plan', () => {
   afterAll(() => rmSync(folder, { recursive: true, force: true }))
 
-  it('prints a plan for a valid design and exits 0', () => {
-    const result = runCli(['plan', file(JSON.stringify(valid))])
+  it('prints a plan for a valid design and exits 0', async () => {
+    const result = await runCli(['plan', file(JSON.stringify(valid))])
     expect(result.code).toBe(0)
     const plan = JSON.parse(result.stdout)
     expect(plan.sections).toHaveLength(2)
   })
 
-  it('exits 0 with a plan that says why when the design cannot be sewn', () => {
+  it('exits 0 with a plan that says why when the design cannot be sewn', async () => {
     const dangling = { ...valid, seams: [{ id: 's1', from: [3, 0], to: [3, 2] }], leaves: [] }
-    const result = runCli(['plan', file(JSON.stringify(dangling))])
+    const result = await runCli(['plan', file(JSON.stringify(dangling))])
     expect(result.code).toBe(0)
     expect(JSON.parse(result.stdout).sewable).toBe(false)
   })
 
-  it('exits 2 with one line for malformed JSON, a wrong version, a negative radius and NaN', () => {
+  it('exits 2 with one line for malformed JSON, a wrong version, a negative radius and NaN', async () => {
     const cases = ['{"format": ', JSON.stringify({ ...valid, version: 2 }), JSON.stringify({ ...valid, ring: { ...valid.ring, outerRadius: -3 } }), JSON.stringify(valid).replace('"to":[3,', '"to":[NaN,')]
     for (const text of cases) {
-      const result = runCli(['plan', file(text)])
+      const result = await runCli(['plan', file(text)])
       expect(result.code, text).toBe(2)
       expectContract(result)
     }
-    expect(runCli(['plan', file(JSON.stringify({ ...valid, version: 2 }))]).stderr).toMatch(/version/)
+    expect((await runCli(['plan', file(JSON.stringify({ ...valid, version: 2 }))])).stderr).toMatch(/version/)
   })
 
-  it('says pdf is not available yet', () => {
-    expect(runCli(['pdf', 'x.json'])).toEqual({ code: 2, stdout: '', stderr: 'pdf: not available yet\n' })
+  it('hands pdf to the booklet command, which names a missing design file in one line', async () => {
+    const result = await runCli(['pdf', 'no-such-design.json', '--paper', 'letter', '--out', 'x.pdf'])
+    expect(result.code).toBe(2)
+    expectContract(result)
+    expect(result.stderr).toMatch(/no-such-design\.json/)
   })
 
-  it('never crashes on fuzzed JSON', () => {
-    fc.assert(
-      fc.property(fc.jsonValue(), (json) => {
-        expectContract(runCli(['plan', file(JSON.stringify(json))]))
+  it('never crashes on fuzzed JSON', async () => {
+    await fc.assert(
+      fc.asyncProperty(fc.jsonValue(), async (json) => {
+        expectContract(await runCli(['plan', file(JSON.stringify(json))]))
       }),
       { numRuns: 150 },
     )
   })
 
-  it('never crashes on valid designs with one field fuzzed', () => {
+  it('never crashes on valid designs with one field fuzzed', async () => {
     const paths = [['name'], ['units'], ['ring', 'innerRadius'], ['ring', 'outerRadius'], ['ring', 'repeats'], ['ring', 'repeatMode'], ['seams', 0, 'from'], ['seams', 0, 'to', 1], ['seams', 1], ['leaves', 0, 'seam'], ['leaves', 0, 'at'], ['order'], ['extra']] as const
-    fc.assert(
-      fc.property(fc.constantFrom(...paths), fc.jsonValue(), (path, value) => {
+    await fc.assert(
+      fc.asyncProperty(fc.constantFrom(...paths), fc.jsonValue(), async (path, value) => {
         const copy = structuredClone(valid) as Record<string, unknown>
         let node = copy as Record<string | number, unknown>
         for (const key of path.slice(0, -1)) node = node[key] as Record<string | number, unknown>
         node[path[path.length - 1] as string | number] = value
-        expectContract(runCli(['plan', file(JSON.stringify(copy))]))
+        expectContract(await runCli(['plan', file(JSON.stringify(copy))]))
       }),
       { numRuns: 300 },
     )
   })
 
-  it('never crashes on random seams in a valid file', () => {
+  it('never crashes on random seams in a valid file', async () => {
     const point = fc.tuple(fc.double({ min: -20, max: 20, noNaN: true }), fc.double({ min: -20, max: 20, noNaN: true }))
-    fc.assert(
-      fc.property(fc.array(fc.tuple(point, point), { maxLength: 6 }), fc.integer({ min: 2, max: 36 }), (pairs, repeats) => {
+    await fc.assert(
+      fc.asyncProperty(fc.array(fc.tuple(point, point), { maxLength: 6 }), fc.integer({ min: 2, max: 36 }), async (pairs, repeats) => {
         const design = { ...valid, ring: { ...valid.ring, repeats }, leaves: [], seams: pairs.map(([from, to], i) => ({ id: `s${i}`, from, to })) }
-        const result = runCli(['plan', file(JSON.stringify(design))])
+        const result = await runCli(['plan', file(JSON.stringify(design))])
         expect(result.code).toBe(0)
         expectContract(result)
       }),
@@ -108,7 +111,7 @@ describe('cli plan', () => {
     )
   })
 
-  it('as a real process: exit code 2 and one line on stderr, no stack trace', () => {
+  it('as a real process: exit code 2 and one line on stderr, no stack trace', async () => {
     const run = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/cli.ts', 'plan', file('[1, 2')], { encoding: 'utf8', cwd: join(import.meta.dirname, '..') })
     expect(run.status).toBe(2)
     expect(run.stdout).toBe('')

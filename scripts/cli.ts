@@ -53,25 +53,28 @@ function plan(args: readonly string[]): CliResult {
   return { code: 0, stdout: `${JSON.stringify(planDesign(design), null, 2)}\n`, stderr: '' }
 }
 
-/** Added by a later issue: the PDF booklet (`pdf <design.json> --paper … --out <file.pdf>`). */
-function pdf(): CliResult {
-  throw new UsageError('pdf: not available yet')
+/** The PDF booklet (`pdf <design.json> --paper … --out <file.pdf>`), see scripts/pdf-command.ts. */
+async function pdf(args: readonly string[]): Promise<CliResult> {
+  let stdout = ''
+  let stderr = ''
+  const code = await runPdfCommand([...args], { stdout: (text) => (stdout += text), stderr: (text) => (stderr += text) })
+  return { code, stdout, stderr }
 }
 
-const commands: Record<string, (args: readonly string[]) => CliResult> = { plan, pdf }
+const commands: Record<string, (args: readonly string[]) => CliResult | Promise<CliResult>> = { plan, pdf }
 
 /**
  * Runs one command line (without `node` and the script) and returns its exit code and output.
  * Never throws: invalid input and unexpected failures alike become one line on stderr, exit 2.
  *
- * @example runCli(['plan', 'design.json']).code // 0, or 2 for an invalid design
+ * @example (await runCli(['plan', 'design.json'])).code // 0, or 2 for an invalid design
  */
-export function runCli(argv: readonly string[]): CliResult {
+export async function runCli(argv: readonly string[]): Promise<CliResult> {
   try {
     const [name, ...args] = argv
     const command = name ? commands[name] : undefined
     if (!command) throw new UsageError(`usage: cli <${Object.keys(commands).join('|')}> <design.json> …`)
-    return command(args)
+    return await command(args)
   } catch (error) {
     // Anything unexpected is still one line: a stack trace is no message for a designer.
     const message = error instanceof UsageError ? error.message : `internal error: ${error instanceof Error ? error.message : String(error)}`
@@ -80,14 +83,8 @@ export function runCli(argv: readonly string[]): CliResult {
 }
 
 if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
-  const argv = process.argv.slice(2)
-  if (argv[0] === 'pdf') {
-    // The booklet is written asynchronously (scripts/pdf-command.ts); runCli stays synchronous.
-    process.exitCode = await runPdfCommand(argv.slice(1), { stdout: (text) => process.stdout.write(text), stderr: (text) => process.stderr.write(text) })
-  } else {
-    const result = runCli(argv)
-    process.stdout.write(result.stdout)
-    process.stderr.write(result.stderr)
-    process.exitCode = result.code
-  }
+  const result = await runCli(process.argv.slice(2))
+  process.stdout.write(result.stdout)
+  process.stderr.write(result.stderr)
+  process.exitCode = result.code
 }
