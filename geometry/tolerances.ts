@@ -62,3 +62,11 @@ export const MAX_PEEL_STATES = 20_000
  * stops refining and keeps the best plan found so far. Count.
  */
 export const MAX_SECTION_UNITS = 50_000
+
+/**
+ * Area corners closer than this to another area's edge are welded into that edge before areas are
+ * united into a section's outline, inches. The plan rounds corners (OUTPUT_DECIMALS), so where a
+ * seam ends on another the corner sits a few millionths off the neighbour's edge; far above that
+ * rounding, far below any real seam.
+ */
+export const WELD_DISTANCE_INCHES = 1e-4

@@ -20,8 +20,9 @@
  */
 import { ON_CIRCLE_INCHES, STRAIGHT_TURN_SINE } from './allowance-tolerances'
 import {
-  cuttingShape, DEFAULT_MITRE_LIMIT, DEFAULT_SEAM_ALLOWANCE_INCHES, isSimpleRing, normalizeRing, polygonArea, unitePieces,
+  cuttingShape, DEFAULT_MITRE_LIMIT, DEFAULT_SEAM_ALLOWANCE_INCHES, isSimpleRing, polygonArea,
 } from './offset'
+import { sectionOutline } from './section-outline'
 import { ARC_CHORD_TOLERANCE_INCHES } from './tolerances'
 import type { Point, Polygon, Ring } from './types'
 
@@ -356,16 +357,11 @@ export function outlineFromPolygon(polygon: Polygon, ring: Ring): OutlinePath {
 
 /**
  * The trim line of a section given its areas as the plan gives them (counter-clockwise
- * polygons, arcs as chords): their union's outer boundary, read back into lines and arcs, moved
- * out by the allowance. A section is one connected piece of paper; were its areas ever to enclose
- * a hole, the trim line follows the outside only.
+ * polygons, arcs as chords): its outline (see section-outline.ts), read back into lines and arcs,
+ * moved out by the allowance.
  *
  * @example sectionTrimLine(plan.areas.filter((a) => a.section === 'A').map((a) => a.polygon), design.ring)
  */
 export function sectionTrimLine(areas: readonly Polygon[], ring: Ring, options: TrimLineOptions = {}): TrimLine {
-  if (areas.length === 0) throw new RangeError('a section needs at least one area')
-  const outline = unitePieces(areas.map(normalizeRing))
-    .map(normalizeRing)
-    .reduce((best, ring) => (polygonArea(ring) > polygonArea(best) ? ring : best))
-  return trimLine(outlineFromPolygon(outline, ring), options)
+  return trimLine(outlineFromPolygon(sectionOutline(areas), ring), options)
 }

@@ -2,8 +2,7 @@
  * The sewing plan of the design on the board, in the design's own units for drawing. Computed by
  * the geometry core from the design; it is never a state of its own and never undone.
  */
-import { planDesign, unitePieces, type Plan } from '@/geometry'
-import { weldTJunctions } from '@/lib/booklet/section-outline'
+import { planDesign, sectionOutline, type Plan } from '@/geometry'
 import { parseDesign, type DesignIssue } from '@/lib/schemas/design'
 import type { BoardDesign } from './commands'
 
@@ -86,8 +85,7 @@ export function sectionOutlines(result: BoardPlan): readonly SectionOutline[] {
     const polygons = section.order.map((id) => byId.get(id)!.polygon)
     let rings: Point[][]
     try {
-      // The plan rounds its corners, so T-junctions are welded first or the union cracks apart.
-      rings = unitePieces(weldTJunctions(polygons)).map((ring) => ring.map((p) => toDesignUnits(p, result.unitsPerInch)))
+      rings = [sectionOutline(polygons).map((p) => toDesignUnits(p, result.unitsPerInch))]
     } catch {
       rings = []
     }

@@ -8,13 +8,12 @@
  * written, upright, at the transformed places.
  */
 import type { jsPDF } from 'jspdf'
-import { applyToPolygon, applyTransform, outlineFromPolygon, type Point, type Polygon } from '@/geometry'
+import { applyToPolygon, applyTransform, outlineFromPolygon, sectionTrimLine, type Point, type Polygon } from '@/geometry'
 import { font } from './chrome'
 import type { BookletContext } from './context'
 import { dashedPen, solidPen, toPage, tracePath, tracePolygon, type View } from './draw'
 import { leavesInBooklet, sectionAreas, type BookletModel, type FoundationKind } from './model'
 import type { PageRect } from './paper'
-import { weldedSectionTrimLine } from './section-outline'
 import { writeTiledDrawing, type TiledDrawing } from './tiled-drawing'
 import type { TileLayout } from './tiling'
 
@@ -45,7 +44,7 @@ function foundationSheet(model: BookletModel, kind: FoundationKind): FoundationS
   const { design } = model
   const areas = sectionAreas(model, kind.section)
   const printed = areas.map((area) => ({ area, polygon: applyToPolygon(kind.printedSide, area.polygon) }))
-  const trim = weldedSectionTrimLine(printed.map((p) => p.polygon), design.ring)
+  const trim = sectionTrimLine(printed.map((p) => p.polygon), design.ring)
   const xs = trim.polygon.map((p) => p[0])
   const ys = trim.polygon.map((p) => p[1])
   const box = [

@@ -3,18 +3,12 @@ import { describe, expect, it } from 'vitest'
 import { bookletOptionsSchema } from '@/lib/schemas/booklet'
 import { foundationSheets } from './foundation-pages'
 import { bookletModel, sectionAreas } from './model'
-import { weldTJunctions } from './section-outline'
 import { designFrom, medallionFile, wreathFile } from './test-support/designs'
 import { applyToPolygon, polygonArea, type Polygon } from '@/geometry'
 
 const ring = (polygon: Polygon): [number, number][][] => [polygon.map((p) => [p[0], p[1]] as [number, number])]
 
 describe('section trim lines', () => {
-  it('welds a vertex lying a rounding error off a neighbour edge into that edge', () => {
-    const [square] = weldTJunctions([[[0, 0], [2, 0], [2, 1], [0, 1]], [[1, 1.0000004], [2, 1], [2, 2]]])
-    expect(square).toEqual([[0, 0], [2, 0], [2, 1], [1, 1.0000004], [0, 1]])
-  })
-
   it.each([['medallion (a seam ending on a chord seam)', medallionFile()], ['wreath', wreathFile()]])('encloses every area of its section: %s (polygon-clipping)', (_, file) => {
     const model = bookletModel(designFrom(file), bookletOptionsSchema.parse({ paper: 'letter', finishedDiameterInches: 24 }))
     for (const sheet of foundationSheets(model)) {
