@@ -6,10 +6,13 @@ import { Layer, Stage } from 'react-konva'
 import { boardPlan } from '@/lib/board/board-plan'
 import type { PointerController } from '@/lib/board/pointer'
 import { design as designOf, type BoardStore } from '@/lib/board/store'
-import { toWorld, zoomAt } from '@/lib/board/view'
+import { toScreen, toWorld, zoomAt } from '@/lib/board/view'
 import { OverlayShapes } from './overlay-shapes'
 import { RingShapes } from './ring-shapes'
 import { useBoard } from './use-board'
+
+/** How near, in pixels, the pointer must come to a problem marker to show its message. */
+const PROBLEM_MARKER_PIXELS = 12
 
 /**
  * The drafting board's canvas. It draws from the store and forwards pointer events, in design
@@ -41,6 +44,18 @@ export function BoardCanvas({
     const position = stage?.getPointerPosition()
     if (!position) return null
     return toWorld([position.x, position.y], store.getState().view, design.ring.repeats)
+  }
+
+  /** Shows the message of a problem marker when the pointer comes within a few pixels of it. */
+  const showProblemNear = (screen: readonly [number, number]) => {
+    const state = store.getState()
+    const problems = plan.plan?.problems ?? []
+    let found: number | null = null
+    problems.forEach((problem, index) => {
+      const [x, y] = toScreen([problem.at[0] * plan.unitsPerInch, problem.at[1] * plan.unitsPerInch], state.view, design.ring.repeats)
+      if (Math.hypot(x - screen[0], y - screen[1]) <= PROBLEM_MARKER_PIXELS) found = index
+    })
+    if (found !== state.shownProblem) store.update({ shownProblem: found })
   }
 
   // Redraw at most once per animation frame however many store changes a pointer move causes.
@@ -76,8 +91,11 @@ export function BoardCanvas({
           panning.current = { from: [native.clientX, native.clientY] }
           return
         }
-        const world = worldOf(event.target.getStage())
+        const stage = event.target.getStage()
+        const world = worldOf(stage)
         if (world) pointer.move(world, { alt: native.altKey })
+        const position = stage?.getPointerPosition()
+        if (position) showProblemNear([position.x, position.y])
       }}
       onPointerUp={(event) => {
         if (panning.current) {
@@ -101,7 +119,7 @@ export function BoardCanvas({
         <RingShapes store={store} design={design} plan={plan} view={view} />
       </Layer>
       <Layer listening={false}>
-        <OverlayShapes store={store} design={design} plan={plan} view={view} />
+        <OverlayShapes store={store} design={design} plan={plan} view={view} width={width} />
       </Layer>
     </Stage>
   )

@@ -1,7 +1,7 @@
 'use client'
 
 import { useMemo } from 'react'
-import { Circle, Line, Rect, Text } from 'react-konva'
+import { Circle, Label, Line, Rect, Tag, Text } from 'react-konva'
 import { roughCutBeforeFlip } from '@/geometry'
 import { sewingSteps, type BoardPlan } from '@/lib/board/board-plan'
 import type { BoardDesign } from '@/lib/board/commands'
@@ -13,14 +13,16 @@ import { screenPoints } from './ring-shapes'
 import { useBoard } from './use-board'
 
 const HIGHLIGHT = '#2f5540'
+const TOOLTIP_WIDTH = 280
 
 /** What is selected, being drawn, or highlighted by the step-through, over the ring. */
-export function OverlayShapes({ store, design, plan, view }: { store: BoardStore; design: BoardDesign; plan: BoardPlan; view: View }) {
+export function OverlayShapes({ store, design, plan, view, width }: { store: BoardStore; design: BoardDesign; plan: BoardPlan; view: View; width: number }) {
   const selection = useBoard(store, (state) => state.selection)
   const tool = useBoard(store, (state) => state.tool)
   const draft = useBoard(store, (state) => state.draft)
   const step = useBoard(store, (state) => state.step)
   const handOrder = useBoard(store, (state) => state.handOrderDraft)
+  const shownProblem = useBoard(store, (state) => state.shownProblem)
   const repeats = design.ring.repeats
   const pixels = (points: readonly Point[]) => screenPoints(points, view, repeats)
   const steps = useMemo(() => (plan.plan ? sewingSteps(plan.plan) : []), [plan])
@@ -84,6 +86,18 @@ export function OverlayShapes({ store, design, plan, view }: { store: BoardStore
         return <Circle x={x} y={y} radius={5} stroke="#a3392b" strokeWidth={2} />
       })()}
       {draft.curl && <Line points={pixels(draft.curl)} stroke="#4a3a2a" strokeWidth={2} tension={0.5} dash={[4, 3]} />}
+      {shownProblem !== null && plan.plan?.problems[shownProblem] && (() => {
+        const problem = plan.plan.problems[shownProblem]!
+        const [x, y] = toScreen(inDesignUnits(problem.at), view, repeats)
+        const error = problem.severity === 'error'
+        return (
+          // The message box opens to the left when it would run off the board's right edge.
+          <Label x={x + 12 + TOOLTIP_WIDTH > width ? x - 12 - TOOLTIP_WIDTH : x + 12} y={y + 12}>
+            <Tag fill="#ffffff" stroke={error ? '#a3392b' : '#d79b1f'} strokeWidth={1.5} cornerRadius={4} shadowColor="#000000" shadowOpacity={0.15} shadowBlur={6} />
+            <Text text={problem.message} width={TOOLTIP_WIDTH} padding={8} fontSize={12} lineHeight={1.3} fill="#1c1917" />
+          </Label>
+        )
+      })()}
       {handOrder?.flatMap((section, s) =>
         section.map((point, index) => {
           const [x, y] = toScreen(point, view, repeats)

@@ -74,18 +74,25 @@ export function PlanPanel({ store }: { store: BoardStore }) {
       )}
       {(errors.length > 0 || warnings.length > 0) && (
         <ul className="space-y-1 text-xs" data-testid="problems">
-          {errors.map((problem, index) => (
-            <li key={`e${index}`} data-severity="error" className="rounded border-l-4 border-madder-600 bg-white px-2 py-1">
-              <strong className="text-madder-700">Problem: </strong>
-              {problem.message}
-            </li>
-          ))}
-          {warnings.map((problem, index) => (
-            <li key={`w${index}`} data-severity="warning" className="rounded border-l-4 border-amber-500 bg-white px-2 py-1">
-              <strong className="text-amber-700">Note: </strong>
-              {problem.message}
-            </li>
-          ))}
+          {[...plan!.problems.entries()]
+            .sort(([, a], [, b]) => (a.severity === b.severity ? 0 : a.severity === 'error' ? -1 : 1))
+            .map(([index, problem]) => {
+            const error = problem.severity === 'error'
+            return (
+              <li key={index} data-severity={problem.severity}>
+                <button
+                  type="button"
+                  onClick={() => store.update({ shownProblem: index })}
+                  onFocus={() => store.update({ shownProblem: index })}
+                  className={`w-full rounded border-l-4 bg-white px-2 py-1 text-left ${error ? 'border-madder-600' : 'border-amber-500'}`}
+                  title="Show it on the board"
+                >
+                  <strong className={error ? 'text-madder-700' : 'text-amber-700'}>{error ? 'Problem: ' : 'Note: '}</strong>
+                  {problem.message}
+                </button>
+              </li>
+            )
+            })}
         </ul>
       )}
       {plan && plan.ringAssembly.message && <p className="text-xs text-stone-600">Repeats: {plan.ringAssembly.message}</p>}

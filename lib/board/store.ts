@@ -70,6 +70,8 @@ export interface BoardState {
   /** Areas clicked so far while setting an order by hand, as sections of points. */
   readonly handOrderDraft: readonly (readonly (readonly [number, number])[])[] | null
   readonly draft: BoardDraft
+  /** The plan problem under the pointer (or picked in the panel), shown with its message. */
+  readonly shownProblem: number | null
 }
 
 export interface BoardStore {
@@ -108,6 +110,7 @@ export function initialBoardState(file: DesignFile, overrides: Partial<Omit<Boar
     step: null,
     handOrderDraft: null,
     draft: EMPTY_DRAFT,
+    shownProblem: null,
     ...overrides,
   }
 }

@@ -1,7 +1,7 @@
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DEMO_PASSWORD } from '@/scripts/demo-data'
-import { boardDesign, clickAt, createPatternFromPage, dragSeam } from '../support/board'
+import { boardDesign, clickAt, createPatternFromPage, dragSeam, screenPointOf } from '../support/board'
 import { baseUrl, launchBrowser, signInThroughPage } from '../support/browser'
 
 let browser: Browser
@@ -59,6 +59,9 @@ describe('a designer drafts a ring on the board', () => {
     await dragSeam(page, y, [3.75, 2.5 * sin60])
     await expect.poll(() => page.getByTestId('problems').innerText()).toContain('set-in (Y) seam')
     await expect.poll(() => page.getByTestId('plan-status').getAttribute('data-sewable')).toBe('false')
+    // Pointing at the marker on the board shows that problem's message there.
+    await page.mouse.move(...(await screenPointOf(page, y)))
+    await expect.poll(() => page.evaluate(() => window.wreathwrightBoard!.getState().shownProblem)).not.toBeNull()
 
     // Undo the three seams of the Y.
     for (let i = 0; i < 3; i += 1) await page.keyboard.press('Control+z')
