@@ -7,6 +7,7 @@ import { actionForKey, boardActions, keyOf, type ActionContext } from '@/lib/boa
 import { createPointerController } from '@/lib/board/pointer'
 import { createBoardStore, type BoardStore } from '@/lib/board/store'
 import { fitView } from '@/lib/board/view'
+import { readViewPreferences, writeViewPreferences } from '@/lib/board/view-preferences'
 import type { DesignFile } from '@/lib/schemas/design'
 import { BoardCanvas } from './board-canvas'
 import { ConflictDialog } from './conflict-dialog'
@@ -33,13 +34,28 @@ declare global {
   }
 }
 
+/** localStorage, or null where the browser refuses it (some private modes throw on access). */
+function browserStorage(): Storage | null {
+  try {
+    return window.localStorage
+  } catch {
+    return null
+  }
+}
+
 function isTyping(target: EventTarget | null): boolean {
   return target instanceof HTMLElement && (target.isContentEditable || ['INPUT', 'SELECT', 'TEXTAREA'].includes(target.tagName))
 }
 
 /** The drafting board: panels around a canvas, all drawing from one store. */
 export function DraftingBoard({ patternId, patternName, revision, design }: { patternId: string; patternName: string; revision: number; design: DesignFile }) {
-  const store = useMemo(() => createBoardStore(design), [design])
+  const store = useMemo(() => {
+    const saved = readViewPreferences(browserStorage(), patternId)
+    const colorway = saved?.colorway && design.colorways?.some((c) => c.name === saved.colorway) ? saved.colorway : undefined
+    const created = createBoardStore(design, colorway ? { activeColorway: colorway } : {})
+    if (saved) created.update({ view: { ...created.getState().view, side: saved.side } })
+    return created
+  }, [design, patternId])
   const autosave = useAutosave({ patternId, revision, store })
   const canvasBox = useRef<HTMLDivElement>(null)
   const stageRef = useRef<Konva.Stage | null>(null)
@@ -56,6 +72,22 @@ export function DraftingBoard({ patternId, patternName, revision, design }: { pa
   const context: ActionContext = useMemo(
     () => ({ store, fit, toggleHelp: () => setHelpOpen((open) => !open), canvasCentre: () => [size.width / 2, size.height / 2] }),
     [store, fit, size],
+  )
+
+  const lastSide = useRef(store.getState().view.side)
+  const lastColorway = useRef(store.getState().activeColorway)
+  // The side shown and the colourway outlive a reload (never the design: that is saved).
+  useEffect(
+    () =>
+      store.subscribe(() => {
+        const state = store.getState()
+        if (state.view.side !== lastSide.current || state.activeColorway !== lastColorway.current) {
+          lastSide.current = state.view.side
+          lastColorway.current = state.activeColorway
+          writeViewPreferences(browserStorage(), patternId, state)
+        }
+      }),
+    [store, patternId],
   )
 
   useEffect(() => {
@@ -78,7 +110,7 @@ export function DraftingBoard({ patternId, patternName, revision, design }: { pa
       setSize({ width, height })
       if (firstFit.current) {
         firstFit.current = false
-        store.update({ view: fitView(store.getState().history.present.ring.outerRadius, width, height, 'fabric') })
+        store.update({ view: fitView(store.getState().history.present.ring.outerRadius, width, height, store.getState().view.side) })
       }
     })
     observer.observe(box)

@@ -104,6 +104,8 @@ describe('a designer drafts a ring on the board', () => {
     expect(after.leaves).toEqual(before.leaves)
     expect(after.fills).toEqual(before.fills)
     await expect.poll(planStatus).toBe('Sewable: 4 areas in 1 section.')
+    // The board opens on the side it was left on.
+    expect(await page.getByRole('button', { name: 'Printed side' }).getAttribute('aria-pressed')).toBe('true')
   })
 
   it('threw no errors in the page', () => {
