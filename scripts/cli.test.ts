@@ -68,6 +68,12 @@ describe('cli plan', () => {
     expect((await runCli(['plan', file(JSON.stringify({ ...valid, version: 2 }))])).stderr).toMatch(/version/)
   })
 
+  it('refuses arguments plan does not take, in one line', async () => {
+    const result = await runCli(['plan', file(JSON.stringify(valid)), '--paper', 'a4'])
+    expect(result.code).toBe(2)
+    expectContract(result)
+  })
+
   it('hands pdf to the booklet command, which names a missing design file in one line', async () => {
     const result = await runCli(['pdf', 'no-such-design.json', '--paper', 'letter', '--out', 'x.pdf'])
     expect(result.code).toBe(2)

@@ -49,6 +49,7 @@ export interface CliResult {
 }
 
 function plan(args: readonly string[]): CliResult {
+  if (args.length > 1) throw new UsageError(`plan takes one design file, got: ${args.join(' ')}; usage: cli plan <design.json>`)
   const { design } = readDesign(args[0])
   return { code: 0, stdout: `${JSON.stringify(planDesign(design), null, 2)}\n`, stderr: '' }
 }
