@@ -79,6 +79,9 @@ export function BoardCanvas({
           panning.current = { from: [native.clientX, native.clientY] }
           return
         }
+        // Keep receiving this pointer's moves and its release even when it leaves the canvas,
+        // so a drag let go over a panel still ends (and can be saved).
+        stage?.content.setPointerCapture?.(native.pointerId)
         const world = worldOf(stage)
         if (world) pointer.down(world, { alt: native.altKey })
       }}
@@ -104,6 +107,10 @@ export function BoardCanvas({
         }
         const world = worldOf(event.target.getStage())
         if (world) pointer.up(world, { alt: event.evt.altKey })
+      }}
+      onPointerCancel={() => {
+        panning.current = null
+        pointer.cancel()
       }}
       onDblClick={() => pointer.doubleClick()}
       onContextMenu={(event) => event.evt.preventDefault()}

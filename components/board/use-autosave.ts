@@ -56,7 +56,14 @@ export function useAutosave({ patternId, revision, store, debounceMs }: UseAutos
   // The revision is read once: after that the autosaver knows better than the page's props.
   const autosaver = useMemo(() => createAutosaver({ patternId, revision, store, storage: browserStorage(), debounceMs }), [patternId, store])
 
-  useEffect(() => autosaver.start(), [autosaver])
+  useEffect(() => {
+    const stop = autosaver.start()
+    return () => {
+      // Leaving the board by a link inside the app fires no pagehide: send what is not saved yet.
+      autosaver.flushOnLeave()
+      stop()
+    }
+  }, [autosaver])
 
   useEffect(() => {
     // pagehide is the last event a closing or navigating page reliably gets; a hidden tab may

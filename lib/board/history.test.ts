@@ -49,6 +49,20 @@ describe('history', () => {
     expect(h.past).toEqual(['start'])
   })
 
+  it('keeps older steps and the starting point however long a drag is', () => {
+    let h = createHistory(0)
+    for (let i = 1; i <= 150; i += 1) h = pushHistory(h, i)
+    h = markHistory(h)
+    for (let move = 0; move < 1000; move += 1) h = pushHistory(h, 1000 + move)
+    expect(bailToMark(h).present).toBe(150)
+    h = squashToMark(h)
+    expect(h.present).toBe(1999)
+    h = undoHistory(h)
+    expect(h.present).toBe(150)
+    for (let i = 0; i < 100; i += 1) h = undoHistory(h)
+    expect(h.present).toBe(50)
+  })
+
   it('does not undo in the middle of a drag', () => {
     const h = pushHistory(markHistory(pushHistory(createHistory(1), 2)), 3)
     expect(undoHistory(h)).toBe(h)

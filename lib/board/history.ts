@@ -18,9 +18,14 @@ export function createHistory<T>(present: T): History<T> {
   return { past: [], present, future: [], mark: null }
 }
 
-/** Records a change. Pushing the value that is already present records nothing. */
+/**
+ * Records a change. Pushing the value that is already present records nothing. During a drag
+ * only the state before the drag is kept: later moves replace the present, so a long drag can
+ * never push older undo steps (or its own starting point) out of the history.
+ */
 export function pushHistory<T>(history: History<T>, next: T, limit = HISTORY_LIMIT): History<T> {
   if (Object.is(next, history.present)) return history
+  if (history.mark !== null && history.past.length > history.mark) return { ...history, present: next, future: [] }
   const past = [...history.past, history.present]
   const overflow = Math.max(0, past.length - limit)
   return {
