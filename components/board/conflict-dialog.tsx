@@ -1,9 +1,7 @@
 'use client'
 
-import { useEffect, useRef, type KeyboardEvent } from 'react'
+import { ModalDialog } from '@/components/ui/modal-dialog'
 import type { UseAutosave } from './use-autosave'
-
-const FOCUSABLE = 'button:not([disabled]), [href], input:not([disabled]), [tabindex]:not([tabindex="-1"])'
 
 /**
  * Asks the designer what to do when the pattern was saved elsewhere since this board loaded it.
@@ -13,94 +11,53 @@ const FOCUSABLE = 'button:not([disabled]), [href], input:not([disabled]), [tabin
  */
 export function ConflictDialog({ autosave }: { autosave: UseAutosave }) {
   const { status, resolving, conflictRevision, problem } = autosave.state
-  const open = status === 'conflict'
-  const panel = useRef<HTMLDivElement>(null)
-
-  useEffect(() => {
-    if (!open) return
-    const before = document.activeElement instanceof HTMLElement ? document.activeElement : null
-    panel.current?.querySelector<HTMLElement>(FOCUSABLE)?.focus()
-    // Back to where the designer was, once they have chosen.
-    return () => {
-      if (before?.isConnected) before.focus()
-    }
-  }, [open])
-
-  if (!open) return null
-
-  // Tab and Shift+Tab go round the dialog's own buttons, never to the board behind it.
-  function keepFocusInside(event: KeyboardEvent<HTMLDivElement>) {
-    if (event.key !== 'Tab' || !panel.current) return
-    const focusable = [...panel.current.querySelectorAll<HTMLElement>(FOCUSABLE)]
-    const first = focusable[0]
-    const last = focusable.at(-1)
-    if (!first || !last) return event.preventDefault()
-    const active = document.activeElement
-    if (event.shiftKey && (active === first || !panel.current.contains(active))) {
-      event.preventDefault()
-      last.focus()
-    } else if (!event.shiftKey && (active === last || !panel.current.contains(active))) {
-      event.preventDefault()
-      first.focus()
-    }
-  }
-
+  if (status !== 'conflict') return null
   const where = conflictRevision ? ` (it is now at revision ${conflictRevision})` : ''
   return (
-    <div className="fixed inset-0 z-50 flex items-center justify-center bg-stone-900/40 p-4">
-      <div
-        ref={panel}
-        role="dialog"
-        aria-modal="true"
-        aria-labelledby="conflict-title"
-        aria-describedby="conflict-explanation"
-        onKeyDown={keepFocusInside}
-        className="w-full max-w-lg space-y-4 rounded-lg bg-white p-6 shadow-xl"
-      >
-        <h2 id="conflict-title" className="text-lg font-semibold text-thread-800">
-          This pattern was changed somewhere else
-        </h2>
-        <div id="conflict-explanation" className="space-y-2 text-sm text-stone-700">
-          <p>
-            Since this board opened the pattern, it was saved from another tab or by someone else{where}. Your
-            latest changes here are not saved yet, and nothing has been overwritten on either side.
-          </p>
-          <p>Choose which version to carry on with:</p>
-          <ul className="list-disc space-y-1 pl-5">
-            <li>
-              <strong>Load the saved version</strong> shows the other version on this board. Your changes are set
-              aside: Undo brings them back.
-            </li>
-            <li>
-              <strong>Keep my version</strong> saves what you see here as a new revision. The other version stays in
-              the pattern’s saved revisions.
-            </li>
-          </ul>
-        </div>
-        {problem && (
-          <p role="alert" className="text-sm text-madder-700">
-            {problem} Try again.
-          </p>
-        )}
-        <div className="flex flex-wrap justify-end gap-3">
-          <button
-            type="button"
-            disabled={resolving}
-            onClick={() => void autosave.reloadTheirs()}
-            className="rounded border border-thread-700 px-4 py-2 text-thread-700 hover:bg-linen-100 disabled:opacity-60"
-          >
-            Load the saved version
-          </button>
-          <button
-            type="button"
-            disabled={resolving}
-            onClick={() => void autosave.keepMine()}
-            className="rounded bg-thread-700 px-4 py-2 text-white hover:bg-thread-800 disabled:opacity-60"
-          >
-            Keep my version as a new revision
-          </button>
-        </div>
+    <ModalDialog titleId="conflict-title" describedById="conflict-explanation">
+      <h2 id="conflict-title" className="text-lg font-semibold text-thread-800">
+        This pattern was changed somewhere else
+      </h2>
+      <div id="conflict-explanation" className="space-y-2 text-sm text-stone-700">
+        <p>
+          Since this board opened the pattern, it was saved from another tab or by someone else{where}. Your
+          latest changes here are not saved yet, and nothing has been overwritten on either side.
+        </p>
+        <p>Choose which version to carry on with:</p>
+        <ul className="list-disc space-y-1 pl-5">
+          <li>
+            <strong>Load the saved version</strong> shows the other version on this board. Your changes are set
+            aside: Undo brings them back.
+          </li>
+          <li>
+            <strong>Keep my version</strong> saves what you see here as a new revision. The other version stays in
+            the pattern’s saved revisions.
+          </li>
+        </ul>
       </div>
-    </div>
+      {problem && (
+        <p role="alert" className="text-sm text-madder-700">
+          {problem} Try again.
+        </p>
+      )}
+      <div className="flex flex-wrap justify-end gap-3">
+        <button
+          type="button"
+          disabled={resolving}
+          onClick={() => void autosave.reloadTheirs()}
+          className="rounded border border-thread-700 px-4 py-2 text-thread-700 hover:bg-linen-100 disabled:opacity-60"
+        >
+          Load the saved version
+        </button>
+        <button
+          type="button"
+          disabled={resolving}
+          onClick={() => void autosave.keepMine()}
+          className="rounded bg-thread-700 px-4 py-2 text-white hover:bg-thread-800 disabled:opacity-60"
+        >
+          Keep my version as a new revision
+        </button>
+      </div>
+    </ModalDialog>
   )
 }
