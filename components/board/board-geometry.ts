@@ -4,8 +4,8 @@
  */
 import { applyTransform, repeatTransforms, type AffineTransform } from '@/geometry'
 import { placeLeaf } from '@/geometry/leaf-template'
-import type { BoardPlan } from '@/lib/board/board-plan'
-import { areaAt } from '@/lib/board/board-plan'
+import { fabricsOfAreas } from '@/geometry'
+import { inchFills, type BoardPlan } from '@/lib/board/board-plan'
 import type { BoardDesign } from '@/lib/board/commands'
 
 export type Point = readonly [number, number]
@@ -29,11 +29,7 @@ const scalePoint = (p: Point, factor: number): Point => [p[0] * factor, p[1] * f
 /** The plan's areas in design units, each with the fabric of the last fill that falls in it. */
 export function areaShapes(design: BoardDesign, plan: BoardPlan): AreaShape[] {
   if (!plan.plan) return []
-  const fabricByArea = new Map<string, string>()
-  for (const fill of design.fills) {
-    const area = areaAt(plan, fill.at)
-    if (area) fabricByArea.set(area.id, fill.fabric)
-  }
+  const fabricByArea = fabricsOfAreas(inchFills(design, plan), plan.plan.areas)
   return plan.plan.areas.map((area) => ({
     id: area.id,
     label: area.label,

@@ -2,7 +2,7 @@
  * The sewing plan of the design on the board, in the design's own units for drawing. Computed by
  * the geometry core from the design; it is never a state of its own and never undone.
  */
-import { planDesign, sectionOutline, type Plan } from '@/geometry'
+import { fabricsOfAreas, planDesign, sectionOutline, type Plan } from '@/geometry'
 import { parseDesign, type DesignIssue } from '@/lib/schemas/design'
 import type { BoardDesign } from './commands'
 
@@ -57,11 +57,14 @@ export function sewingSteps(plan: Plan) {
   return plan.sections.flatMap((section) => section.order.map((id) => byId.get(id)!).filter(Boolean))
 }
 
-/** The fabric of an area: the last fill whose point lies in it. */
+/** The design's fills with their points in inches, as the plan's areas are. */
+export function inchFills(design: BoardDesign, result: BoardPlan) {
+  return design.fills.map((fill) => ({ ...fill, at: [fill.at[0] / result.unitsPerInch, fill.at[1] / result.unitsPerInch] as const }))
+}
+
+/** The fabric of an area (the core's rule: the last fill inside it). */
 export function fabricOfArea(design: BoardDesign, result: BoardPlan, areaId: string): string | null {
-  let fabric: string | null = null
-  for (const fill of design.fills) if (areaAt(result, fill.at)?.id === areaId) fabric = fill.fabric
-  return fabric
+  return result.plan ? fabricsOfAreas(inchFills(design, result), result.plan.areas).get(areaId) ?? null : null
 }
 
 export interface SectionOutline {

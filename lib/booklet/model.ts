@@ -3,7 +3,7 @@
  * each area's fabric, the foundations to print and the fabric each repeat needs. Pure data.
  */
 import {
-  IDENTITY, isPointInPolygon, planDesign, printedSideTransform, scaleDesign,
+  fabricsOfAreas, IDENTITY, isPointInPolygon, planDesign, printedSideTransform, scaleDesign,
   placeLeaf, type AffineTransform, type Colorway, type Design, type Leaf, type LeafPlacement, type Plan, type PlanArea, type Point,
 } from '@/geometry'
 import type { BookletOptions } from '@/lib/schemas/booklet'
@@ -51,11 +51,8 @@ export function bookletModel(original: Design, options: BookletOptions): Booklet
   const design = Math.abs(diameter - 2 * original.ring.outerRadius) < 1e-9 ? original : scaleDesign(original, diameter)
   const plan = planDesign(design)
   const colorway = (options.colorway ? design.colorways.find((c) => c.name === options.colorway) : design.colorways[0]) ?? null
-  const fabricOf = new Map<string, string>()
-  for (const area of plan.areas) {
-    const fill = design.fills.find((f) => isPointInPolygon(f.at, area.polygon))
-    fabricOf.set(area.id, fill?.fabric ?? UNASSIGNED_FABRIC)
-  }
+  const filled = fabricsOfAreas(design.fills, plan.areas)
+  const fabricOf = new Map(plan.areas.map((area) => [area.id, filled.get(area.id) ?? UNASSIGNED_FABRIC]))
   const labelledAreas = plan.areas.filter((area) => area.label !== null)
   const n = design.ring.repeats
   const printed = printedSideTransform(design.ring)
