@@ -202,4 +202,17 @@ describe('pattern revisions', () => {
       database().query(`UPDATE pattern_revisions SET name = 'rewritten' WHERE pattern_id = '${pattern.id}'`),
     ).rejects.toThrow(/immutable/)
   })
+
+  it('outlive the deletion of a person who saved one, forgetting only who it was', async () => {
+    const { user: owner } = await personWith(['designer'])
+    const { user: admin, cookie } = await personWith(['admin'])
+    const pattern = await createPatternRow(owner)
+    await call(updatePattern, { method: 'PATCH', cookie, params: { id: pattern.id }, body: { revision: 1, name: 'Fixed by the admin' } })
+    await admin.destroy()
+    const revisions = await PatternRevision.findAll({ where: { patternId: pattern.id }, order: [['revision', 'ASC']] })
+    expect(revisions.map((r) => [r.revision, r.name, r.savedById])).toEqual([
+      [1, 'Test ring', owner.id],
+      [2, 'Fixed by the admin', null],
+    ])
+  })
 })
