@@ -16,7 +16,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare passwordHash: string
   declare emailVerifiedAt: Date | null
   declare roles: Role[]
-  /** Set when the person asked for a designer account at sign-up, until an admin decides. */
+  /** When the person asked for a designer account at sign-up (granted then; kept for the admin's records). */
   declare designerRequestedAt: Date | null
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>

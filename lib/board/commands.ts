@@ -59,7 +59,11 @@ const round = (value: number) => Math.round(value * 10_000) / 10_000
 const roundPoint = (p: readonly [number, number]): Point => [round(p[0]), round(p[1])]
 const samePoint = (a: readonly number[], b: readonly number[]) => a[0] === b[0] && a[1] === b[1]
 
-/** Changing the drawing invalidates an order set by hand only when areas may have changed. */
+/**
+ * Adding or removing a seam changes how many areas there are, so an order set by hand cannot
+ * carry over and is dropped. Moving a seam keeps it: its areas are named by points, and the plan
+ * checks the order again and says which step fails if an area has moved away from its point.
+ */
 const withoutHandOrder = (design: BoardDesign): BoardDesign => (design.order ? { ...design, order: null } : design)
 
 export const setRing = defineCommand({

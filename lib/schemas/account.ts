@@ -17,7 +17,7 @@ export const signUpSchema = z
     email: emailSchema,
     password: newPasswordSchema,
     displayName: z.string({ error: 'Tell us your name.' }).trim().min(1, 'Tell us your name.').max(80),
-    /** Ask for a designer account; an admin grants it. */
+    /** Ask for a designer account as well: granted at once (an admin can also grant it later). */
     wantsDesignerAccount: z.boolean().default(false),
   })
   .strict()
