@@ -204,6 +204,18 @@ describe('a conflict with a save made elsewhere', () => {
     expect(draft).toMatchObject({ baseRevision: 1, design: { ring: { repeats: 8 } } })
   })
 
+  it('saves on top without asking when only the pattern was renamed elsewhere', async () => {
+    const { store, autosaver, server, patches } = setup()
+    // A rename on the shelf makes a new revision with the same design.
+    server.saveElsewhere(server.design)
+    store.run('setRing', { repeats: 8 })
+    await vi.advanceTimersByTimeAsync(1_000)
+    await vi.advanceTimersByTimeAsync(10)
+    expect(autosaver.getState()).toMatchObject({ status: 'saved', revision: 3, conflictRevision: null })
+    expect(patches().map((request) => request.body!.revision)).toEqual([1, 2])
+    expect(server.design.ring.repeats).toBe(8)
+  })
+
   it('reloads theirs as one undo step and adopts their revision', async () => {
     const { store, autosaver, server, storage, patches } = await conflicted()
     await autosaver.reloadTheirs()

@@ -6,7 +6,8 @@
  *   made while a request is out are coalesced into the next one.
  * - Every save names the revision the board last saw. A 409 means the pattern was saved elsewhere
  *   meanwhile: saving stops (nothing is overwritten on either side) until the designer chooses
- *   `reloadTheirs()` or `keepMine()`.
+ *   `reloadTheirs()` or `keepMine()` — unless the design there is still the one this board last
+ *   saved (the pattern was only renamed or changed state), when the save simply goes on top.
  * - Every change is also written to localStorage as a draft, cleared once the server has it, so a
  *   crash or a closed tab loses nothing; the next visit offers the draft back.
  */
@@ -263,6 +264,21 @@ export function createAutosaver(options: AutosaverOptions): Autosaver {
     return { revision: pattern.revision, design: design.data }
   }
 
+  /**
+   * After a 409: whether the newer revision on the server has the very design this board last
+   * saved (only the pattern's name or state changed). If so its revision is adopted.
+   */
+  async function isOnlyDetailsChangedElsewhere(): Promise<boolean> {
+    try {
+      const saved = await fetchSaved()
+      if (!isSameDesign(saved.design, savedDesign)) return false
+      revision = saved.revision
+      return true
+    } catch {
+      return false
+    }
+  }
+
   async function save({ force = false, keepalive = false } = {}): Promise<void> {
     if (inFlight || inConflict || resolving) return
     const { present, mark } = store.getState().history
@@ -296,6 +312,11 @@ export function createAutosaver(options: AutosaverOptions): Autosaver {
         // Changes made while this request was out: their quiet time may be over already.
         if (timer === null) schedule(0)
       }
+    } else if (outcome.kind === 'conflict' && !force && !keepalive && (await isOnlyDetailsChangedElsewhere())) {
+      // Renamed or moved to another state elsewhere, the design untouched: nothing to choose
+      // between, so the change goes out again on top of the newer revision.
+      failure = null
+      schedule(0)
     } else if (outcome.kind === 'conflict') {
       inConflict = true
       conflictRevision = outcome.currentRevision
