@@ -108,6 +108,46 @@ describe('a designer drafts a ring on the board', () => {
     expect(await page.getByRole('button', { name: 'Printed side' }).getAttribute('aria-pressed')).toBe('true')
   })
 
+  it('checks an order set by hand at once and says which step fails', async () => {
+    const sixth = (degrees: number, radius: number): [number, number] => [radius * Math.cos((degrees * Math.PI) / 180), radius * Math.sin((degrees * Math.PI) / 180)]
+    const design = {
+      format: 'wreathwright-design',
+      version: 1,
+      name: 'Hand order',
+      units: 'in',
+      ring: { innerRadius: 0, outerRadius: 10, repeats: 6, repeatMode: 'rotate' },
+      seams: [
+        { id: 'chord', from: [5, 0], to: sixth(60, 5) },
+        { id: 'band', from: [8, 0], to: sixth(60, 8) },
+        { id: 'divide', from: sixth(30, 8 * Math.cos(Math.PI / 6)), to: sixth(30, 10) },
+      ],
+    }
+    const id = await page.evaluate(async (body) => {
+      const response = await fetch('/api/patterns', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) })
+      return ((await response.json()) as { pattern: { id: string } }).pattern.id
+    }, { name: `Hand order ${Date.now()}`, design })
+    await page.goto(`${baseUrl()}/patterns/${id}/board`)
+    await page.getByTestId('plan-panel').waitFor()
+    const centre: [number, number] = [2, 1]
+    const band: [number, number] = [5.5, 2]
+    const outerLow: [number, number] = [8.5, 1.5]
+    const outerHigh: [number, number] = [5, 7.5]
+
+    // Centre outwards cannot work: the last outer area meets the sewn ones along two seams.
+    await page.getByRole('button', { name: 'Set the order by hand' }).click()
+    for (const point of [centre, band, outerLow, outerHigh]) await clickAt(page, point)
+    await page.getByRole('button', { name: 'Check this order' }).click()
+    await expect.poll(() => page.getByTestId('plan-status').getAttribute('data-sewable')).toBe('false')
+    await expect.poll(() => page.getByTestId('problems').innerText()).toMatch(/A4 meets the sewn areas along two lines/)
+
+    // Outside in, it is one foundation, in the designer's own order.
+    await page.getByRole('button', { name: 'Go back to the proposed order' }).click()
+    await page.getByRole('button', { name: 'Set the order by hand' }).click()
+    for (const point of [outerHigh, outerLow, band, centre]) await clickAt(page, point)
+    await page.getByRole('button', { name: 'Check this order' }).click()
+    await expect.poll(planStatus).toBe('Sewable: 4 areas in 1 section (your order).')
+  })
+
   it('threw no errors in the page', () => {
     expect(pageErrors).toEqual([])
   })
