@@ -8,13 +8,17 @@
  * written, upright, at the transformed places.
  */
 import type { jsPDF } from 'jspdf'
-import { applyToPolygon, applyTransform, outlineFromPolygon, sectionTrimLine, type Point, type Polygon } from '@/geometry'
+import {
+  applyToPolygon, applyTransform, compose, convexHull, outlineFromPolygon, rotationAboutCentre, sectionTrimLine,
+  type AffineTransform, type Point, type Polygon,
+} from '@/geometry'
+import { POINTS_PER_INCH } from '@/lib/units'
 import { font } from './chrome'
 import type { BookletContext } from './context'
 import { dashedPen, solidPen, toPage, tracePath, tracePolygon, type View } from './draw'
 import { leavesInBooklet, sectionAreas, type BookletModel, type FoundationKind } from './model'
-import type { PageRect } from './paper'
-import { writeTiledDrawing, type TiledDrawing } from './tiled-drawing'
+import { pageFrame, type PageRect } from './paper'
+import { tileDrawing, writeTiledDrawing, type TiledDrawing } from './tiled-drawing'
 import type { TileLayout } from './tiling'
 
 /** Room around the trim line on the sheet, inches, so labels and marks near it stay on paper. */
@@ -23,6 +27,11 @@ const SHEET_PADDING_INCHES = 0.2
 /** One foundation as drawn: its kind, areas and trim line on the printed side. */
 export interface FoundationSheet {
   readonly kind: FoundationKind
+  /**
+   * From repeat 0's frame to the sheet: the printed-side mirror, then a turn about the ring's
+   * centre that lays the foundation across the fewest pages.
+   */
+  readonly placement: AffineTransform
   readonly title: string
   /** Design-inch box of the sheet (padding included). */
   readonly box: readonly [number, number, number, number]
@@ -40,19 +49,52 @@ export function foundationSheets(model: BookletModel): FoundationSheet[] {
   return model.foundations.map((kind) => foundationSheet(model, kind))
 }
 
-function foundationSheet(model: BookletModel, kind: FoundationKind): FoundationSheet {
-  const { design } = model
-  const areas = sectionAreas(model, kind.section)
-  const printed = areas.map((area) => ({ area, polygon: applyToPolygon(kind.printedSide, area.polygon) }))
-  const trim = sectionTrimLine(printed.map((p) => p.polygon), design.ring)
-  const xs = trim.polygon.map((p) => p[0])
-  const ys = trim.polygon.map((p) => p[1])
-  const box = [
+/** The sheet's box around a trim outline, padding included, design inches. */
+function sheetBox(outline: readonly Point[]): readonly [number, number, number, number] {
+  const xs = outline.map((p) => p[0])
+  const ys = outline.map((p) => p[1])
+  return [
     Math.min(...xs) - SHEET_PADDING_INCHES, Math.min(...ys) - SHEET_PADDING_INCHES,
     Math.max(...xs) + SHEET_PADDING_INCHES, Math.max(...ys) + SHEET_PADDING_INCHES,
   ] as const
+}
+
+/**
+ * The turn about the ring's centre that puts a foundation on the fewest pages: the smallest
+ * covering rectangle has a side along an edge of the outline's hull, so each hull edge is tried
+ * lying along the page and across it. A turn keeps the printed side's handedness and the arcs'
+ * centre, so nothing else about the foundation changes. Ties keep the outline as it lies in the
+ * ring (no turn), then the smaller sheet.
+ */
+function fewestPagesTurn(model: BookletModel, outline: readonly Point[]): number {
+  const frame = pageFrame(model.options)
+  const overlapPt = model.options.overlapInches * POINTS_PER_INCH
+  const hull = convexHull(outline)
+  const turns = [0, ...hull.flatMap((a, i) => {
+    const b = hull[(i + 1) % hull.length]!
+    const along = -Math.atan2(b[1] - a[1], b[0] - a[0])
+    return [along, along + Math.PI / 2]
+  })]
+  let best = { turn: 0, pages: Infinity, area: Infinity }
+  for (const turn of turns) {
+    const box = sheetBox(applyToPolygon(rotationAboutCentre(turn), outline))
+    const pages = tileDrawing(frame, box, overlapPt).tiles.length
+    const area = (box[2] - box[0]) * (box[3] - box[1])
+    if (pages < best.pages || (pages === best.pages && area < best.area - 1e-6 && best.turn !== 0)) best = { turn, pages, area }
+  }
+  return best.turn
+}
+
+function foundationSheet(model: BookletModel, kind: FoundationKind): FoundationSheet {
+  const { design } = model
+  const areas = sectionAreas(model, kind.section)
+  const mirroredOutline = sectionTrimLine(areas.map((area) => applyToPolygon(kind.printedSide, area.polygon)), design.ring).polygon
+  const placement = compose(rotationAboutCentre(fewestPagesTurn(model, mirroredOutline)), kind.printedSide)
+  const printed = areas.map((area) => ({ area, polygon: applyToPolygon(placement, area.polygon) }))
+  const trim = sectionTrimLine(printed.map((p) => p.polygon), design.ring)
+  const box = sheetBox(trim.polygon)
   const title = `Foundation ${kind.section} - ${kind.repeatName}: make ${kind.count}`
-  const leaves = leavesOfSection(model, kind)
+  const leaves = leavesOfSection(model, kind, placement)
   const draw = (doc: jsPDF, view: View, window: PageRect): void => {
     dashedPen(doc, 0.75, [6, 3])
     tracePath(doc, view, trim.path)
@@ -64,7 +106,7 @@ function foundationSheet(model: BookletModel, kind: FoundationKind): FoundationS
     }
     for (const leaf of leaves) drawLeafMarks(doc, view, window, leaf)
     for (const { area } of printed) {
-      const at = toPage(view, applyTransform(kind.printedSide, area.point))
+      const at = toPage(view, applyTransform(placement, area.point))
       const fabric = model.fabricOf.get(area.id) ?? ''
       font(doc, 6.5)
       const fabricWidth = doc.getTextWidth(fabric)
@@ -84,6 +126,7 @@ function foundationSheet(model: BookletModel, kind: FoundationKind): FoundationS
     : 'Printed side (mirror image of the quilt). Solid: seams; dashed: trim line.'
   return {
     kind,
+    placement,
     title: `${design.name} - ${title}`,
     box,
     trimPolygon: trim.polygon,
@@ -100,8 +143,8 @@ interface PrintedLeaf {
   readonly tip: Point
 }
 
-/** The leaves lying over an area of this section, on the printed side. */
-function leavesOfSection(model: BookletModel, kind: FoundationKind): PrintedLeaf[] {
+/** The leaves lying over an area of this section, placed as the sheet is. */
+function leavesOfSection(model: BookletModel, kind: FoundationKind, sheetPlacement: AffineTransform): PrintedLeaf[] {
   return leavesInBooklet(model)
     .filter((entry) => entry.section === kind.section)
     .map(({ leaf, placement }) => {
@@ -110,7 +153,7 @@ function leavesOfSection(model: BookletModel, kind: FoundationKind): PrintedLeaf
       const mid: Point = [(rawEdge[0][0] + rawEdge[1][0]) / 2, (rawEdge[0][1] + rawEdge[1][1]) / 2]
       const toSeam: Point = [base[0] - mid[0], base[1] - mid[1]]
       const ticks = rawEdge.map((end): [Point, Point] => [end, [end[0] + 2 * toSeam[0], end[1] + 2 * toSeam[1]]])
-      const t = kind.printedSide
+      const t = sheetPlacement
       return {
         id: leaf.id,
         layers: leaf.layers,
