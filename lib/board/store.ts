@@ -92,7 +92,6 @@ export interface BoardStore {
 export const EMPTY_DRAFT: BoardDraft = { seam: null, snap: null, curl: null }
 
 export const design = (state: BoardState): BoardDesign => state.history.present
-export const isDragging = (state: BoardState) => state.history.mark !== null
 export const canUndoBoard = (state: BoardState) => canUndo(state.history)
 export const canRedoBoard = (state: BoardState) => canRedo(state.history)
 
