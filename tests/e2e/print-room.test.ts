@@ -25,6 +25,7 @@ describe('the print room', () => {
     await signInThroughPage(page, 'marguerite@bramblelane.example', DEMO_PASSWORD)
     await page.goto(`${baseUrl()}/patterns`)
     await page.getByRole('link', { name: 'Hollyberry Wreath' }).click()
+    // The print dialog sits on the pattern page itself.
     await page.getByRole('link', { name: 'Print the booklet' }).click()
     await page.getByLabel('Paper').selectOption('a4')
 

@@ -1,6 +1,7 @@
 import type { Metadata } from 'next'
 import Link from 'next/link'
 import { notFound } from 'next/navigation'
+import { PrintDialog } from '@/components/print/print-dialog'
 import { requireUser } from '@/lib/auth/current-user'
 import { NotFoundError } from '@/lib/errors'
 import { getPattern, listRevisions } from '@/lib/services/patterns'
@@ -27,7 +28,7 @@ export default async function PatternPage({ params }: { params: Promise<{ id: st
         <Link href={`/patterns/${pattern.id}/board`} className="rounded bg-thread-700 px-4 py-2 text-white hover:bg-thread-800">
           Open the drafting board
         </Link>
-        <Link href={`/patterns/${pattern.id}/print`} className="rounded border border-stone-300 px-4 py-2 hover:bg-linen-100">
+        <Link href="#print" className="rounded border border-stone-300 px-4 py-2 hover:bg-linen-100">
           Print the booklet
         </Link>
       </div>
@@ -52,6 +53,16 @@ export default async function PatternPage({ params }: { params: Promise<{ id: st
         <dt className="text-stone-500">Colourways</dt>
         <dd>{(pattern.design.colorways ?? []).map((colorway) => colorway.name).join(', ') || 'none yet'}</dd>
       </dl>
+      <section id="print" aria-labelledby="print-heading" className="space-y-3 rounded-lg border border-linen-200 bg-white p-6">
+        <h2 id="print-heading" className="text-lg font-semibold">
+          Print the booklet
+        </h2>
+        <p className="max-w-xl text-sm text-stone-600">
+          One PDF: cover, cutting list, sewing steps, the foundations mirrored at exact scale and tiled across your
+          paper, templates and a placement guide, made in your browser from revision {pattern.revision}.
+        </p>
+        <PrintDialog name={pattern.name} design={pattern.design} />
+      </section>
       <section>
         <h2 className="mb-2 text-lg font-semibold">Saved revisions</h2>
         <ol className="space-y-1 text-sm">
