@@ -153,7 +153,7 @@ export function DraftingBoard({ patternId, patternName, revision, design }: { pa
           <RingPanel store={store} />
           <FabricPanel store={store} />
         </aside>
-        <div ref={canvasBox} data-testid="board-canvas" className="relative order-1 min-h-[360px] overflow-hidden bg-stone-100 md:order-2" aria-label="Drafting board canvas" role="application">
+        <div ref={canvasBox} tabIndex={0} data-testid="board-canvas" className="relative order-1 min-h-[360px] overflow-hidden bg-stone-100 md:order-2" aria-label="Drafting board canvas" role="application">
           <BoardCanvas store={store} pointer={pointer} width={size.width} height={size.height} stageRef={stageRef} />
           {helpOpen && <HelpPanel onClose={() => setHelpOpen(false)} />}
         </div>
