@@ -23,6 +23,7 @@
 import { DEFAULT_MITRE_LIMIT } from './offset'
 import { pathToPolygon, type ArcPathSegment, type OutlinePath, type PathSegment } from './trim-line'
 import type { Leaf, Point, Polygon, Seam, Segment } from './types'
+import { add, cross, scale, type Vector } from './vector'
 
 /** Cut line outside the sew line, inches (common practice for small turned pieces; a setting). */
 export const DEFAULT_LEAF_CUT_ALLOWANCE_INCHES = 1 / 8
@@ -147,11 +148,6 @@ export interface LeafPlacement {
   /** The raw edge, `catch` past the seam line on the far side, parallel to the seam, between the sides. */
   readonly rawEdge: Segment
 }
-
-type Vector = readonly [number, number]
-const add = (a: Vector, b: Vector): Point => [a[0] + b[0], a[1] + b[1]]
-const scale = (a: Vector, factor: number): Point => [a[0] * factor, a[1] * factor]
-const cross = (a: Vector, b: Vector): number => a[0] * b[1] - a[1] * b[0]
 
 /** Keeps the part of a polygon on the non-negative side of `side(p)` (one Sutherland–Hodgman pass). */
 function clipToSide(polygon: Polygon, side: (p: Point) => number): Point[] {

@@ -24,6 +24,7 @@ import polygonClipping from 'polygon-clipping'
 import { orientation } from './orientation'
 import { CLIPPER_PRECISION_DIGITS, DUPLICATE_POINT_INCHES, REVERSAL_COSINE, STRAIGHT_TURN_SINE } from './allowance-tolerances'
 import type { Point, Polygon } from './types'
+import { add, cross, dot, scale, subtract, type Vector } from './vector'
 
 /** Quarter-inch seam allowance (common practice, universal in quilt piecing). */
 export const DEFAULT_SEAM_ALLOWANCE_INCHES = 0.25
@@ -40,13 +41,6 @@ export interface CuttingShapeOptions {
   readonly mitreLimit?: number
 }
 
-type Vector = readonly [number, number]
-
-const add = (a: Vector, b: Vector): Point => [a[0] + b[0], a[1] + b[1]]
-const subtract = (a: Vector, b: Vector): Point => [a[0] - b[0], a[1] - b[1]]
-const scale = (a: Vector, factor: number): Point => [a[0] * factor, a[1] * factor]
-const dot = (a: Vector, b: Vector): number => a[0] * b[0] + a[1] * b[1]
-const cross = (a: Vector, b: Vector): number => a[0] * b[1] - a[1] * b[0]
 const length = (a: Vector): number => Math.hypot(a[0], a[1])
 const unit = (a: Vector): Point => scale(a, 1 / length(a))
 

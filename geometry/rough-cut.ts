@@ -25,6 +25,7 @@ import {
 import { cuttingShape, DEFAULT_SEAM_ALLOWANCE_INCHES } from './offset'
 import { orientation } from './orientation'
 import type { Point, Polygon, Segment } from './types'
+import { cross, dot, subtract } from './vector'
 
 /** Default extra fabric around the cutting shape, inches; a designer's setting. */
 export const DEFAULT_ROUGH_CUT_MARGIN_INCHES = 0.25
@@ -49,11 +50,6 @@ export interface RoughCutOptions {
   /** Default 1/4 in. */
   readonly marginInches?: number
 }
-
-type Vector = readonly [number, number]
-const subtract = (a: Vector, b: Vector): Point => [a[0] - b[0], a[1] - b[1]]
-const dot = (a: Vector, b: Vector): number => a[0] * b[0] + a[1] * b[1]
-const cross = (a: Vector, b: Vector): number => a[0] * b[1] - a[1] * b[0]
 
 /**
  * Rounds a length up to the next 1/8 in, ignoring floating-point noise below a millionth.

@@ -25,6 +25,7 @@ import {
 import { sectionOutline } from './section-outline'
 import { ARC_CHORD_TOLERANCE_INCHES } from './tolerances'
 import type { Point, Polygon, Ring } from './types'
+import { add, cross, dot, scale, subtract, type Vector } from './vector'
 
 export interface LinePathSegment {
   readonly kind: 'line'
@@ -66,12 +67,6 @@ export interface TrimLineOptions {
   readonly mitreLimit?: number
 }
 
-type Vector = readonly [number, number]
-const add = (a: Vector, b: Vector): Point => [a[0] + b[0], a[1] + b[1]]
-const subtract = (a: Vector, b: Vector): Point => [a[0] - b[0], a[1] - b[1]]
-const scale = (a: Vector, factor: number): Point => [a[0] * factor, a[1] * factor]
-const dot = (a: Vector, b: Vector): number => a[0] * b[0] + a[1] * b[1]
-const cross = (a: Vector, b: Vector): number => a[0] * b[1] - a[1] * b[0]
 const distance = (a: Vector, b: Vector): number => Math.hypot(a[0] - b[0], a[1] - b[1])
 const unit = (a: Vector): Point => scale(a, 1 / Math.hypot(a[0], a[1]))
 const rightOf = (direction: Vector): Point => [direction[1], -direction[0]]
