@@ -1,14 +1,11 @@
 import { describe, expect, it } from 'vitest'
+import { emptyDesign } from '@/lib/new-design'
 import { actionForKey, boardActions, keyOf } from './actions'
 import { createBoardStore, design } from './store'
 
 const store = () =>
   createBoardStore({
-    format: 'wreathwright-design',
-    version: 1,
-    name: 'Keys',
-    units: 'in',
-    ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
+    ...emptyDesign('Keys'),
     seams: [{ id: 's1', from: [4, 0], to: [0, 4] }],
   })
 

@@ -1,4 +1,5 @@
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
+import { emptyDesign } from '@/lib/new-design'
 import type { DesignFile } from '@/lib/schemas/design'
 import { createAutosaver, RETRY_DELAYS_MS, type Autosaver } from './autosave'
 import { draftKey, findRecoverableDraft, isSameDesign, type DraftStorage } from './local-draft'
@@ -6,24 +7,8 @@ import { createBoardStore, type BoardStore } from './store'
 
 const PATTERN_ID = '00000000-0000-4000-8000-000000000001'
 
-function design(overrides: Partial<DesignFile> = {}): DesignFile {
-  return {
-    format: 'wreathwright-design',
-    version: 1,
-    name: 'Winter Star',
-    units: 'in',
-    ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
-    seams: [],
-    fills: [],
-    leaves: [],
-    stems: [],
-    berries: [],
-    curls: [],
-    colorways: [{ name: 'Main', fabrics: { background: '#f4ecd8' } }],
-    order: null,
-    ...overrides,
-  }
-}
+/** A saved pattern's design: the empty ring every new pattern starts as, with overrides. */
+const design = (overrides: Partial<DesignFile> = {}): DesignFile => ({ ...emptyDesign('Winter Star'), ...overrides })
 
 interface Sent {
   readonly method: string

@@ -1,13 +1,10 @@
 import { describe, expect, it } from 'vitest'
+import { emptyDesign } from '@/lib/new-design'
 import { normalizeDesign } from './commands'
 import { hitTest } from './hit-test'
 
 const design = normalizeDesign({
-  format: 'wreathwright-design',
-  version: 1,
-  name: 'Hits',
-  units: 'in',
-  ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
+  ...emptyDesign('Hits'),
   seams: [{ id: 's1', from: [7, 0], to: [0, 7] }],
   leaves: [{ id: 'l1', seam: 's1', at: 0.5, side: 'left', angle: 0, length: 1.5, width: 0.75, layers: ['leaf'] }],
   berries: [{ at: [6, 4], finishedDiameter: 0.5, fabric: 'berry' }],

@@ -1,15 +1,12 @@
 import { describe, expect, it } from 'vitest'
+import { emptyDesign } from '@/lib/new-design'
 import type { DesignFile } from '@/lib/schemas/design'
 import { boardPlan } from './board-plan'
 import { createPointerController } from './pointer'
 import { createBoardStore, design, type Tool } from './store'
 
 const quarterRing = (overrides: Partial<DesignFile> = {}): DesignFile => ({
-  format: 'wreathwright-design',
-  version: 1,
-  name: 'Pointer test',
-  units: 'in',
-  ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
+  ...emptyDesign('Pointer test'),
   seams: [],
   colorways: [{ name: 'Autumn', fabrics: { background: '#f4ecd8', rust: '#8a3b12' } }],
   ...overrides,

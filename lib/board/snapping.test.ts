@@ -1,13 +1,10 @@
 import { describe, expect, it } from 'vitest'
+import { emptyDesign } from '@/lib/new-design'
 import { normalizeDesign } from './commands'
 import { snapSeamEnd, type SnapContext } from './snapping'
 
 const design = normalizeDesign({
-  format: 'wreathwright-design',
-  version: 1,
-  name: 'Snap test',
-  units: 'in',
-  ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
+  ...emptyDesign('Snap test'),
   seams: [{ id: 's1', from: [4, 0], to: [0, 4] }],
 })
 

@@ -1,14 +1,11 @@
 import { describe, expect, it } from 'vitest'
+import { emptyDesign } from '@/lib/new-design'
 import type { DesignFile } from '@/lib/schemas/design'
 import { boardPlan } from './board-plan'
 import { createBoardStore, design } from './store'
 
 const emptyQuarterRing = (overrides: Partial<DesignFile> = {}): DesignFile => ({
-  format: 'wreathwright-design',
-  version: 1,
-  name: 'Store test',
-  units: 'in',
-  ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
+  ...emptyDesign('Store test'),
   seams: [],
   colorways: [{ name: 'Autumn', fabrics: { background: '#f4ecd8', leaf: '#8a3b12' } }],
   ...overrides,
