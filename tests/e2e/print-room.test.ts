@@ -51,6 +51,14 @@ describe('the print room', () => {
     for (const label of labels) expect(text).toContain(label)
     expect(text).toMatch(/100 ?%/)
     expect(pageErrors).toEqual([])
+
+    // The print page of its own (for direct links) makes the same booklet, here on US Letter.
+    await page.goto(`${baseUrl()}/patterns/${id}/print`)
+    const letterDownload = page.waitForEvent('download')
+    await page.getByRole('button', { name: 'Build and download PDF' }).click()
+    const letter = await openPdf(new Uint8Array(fs.readFileSync(await (await letterDownload).path())))
+    // ANSI Letter: 8.5 × 11 in = 612 × 792 pt.
+    for (const [width, height] of await pageSizes(letter)) expect([width, height]).toEqual([612, 792])
     await context.close()
   })
 })
