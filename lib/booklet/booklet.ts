@@ -11,6 +11,7 @@ import { createContext, type BookletContext } from './context'
 import { writeCover } from './cover'
 import { writeFoundationPages, type FoundationSheet } from './foundation-pages'
 import { bookletModel, type BookletModel } from './model'
+import { describePages, foundationTilings, type BookletPage, type FoundationTiling } from './page-list'
 import { writeSteps } from './steps'
 import { writePlacementGuide, writeTemplates } from './templates'
 import type { TileLayout } from './tiling'
@@ -22,6 +23,10 @@ export interface WrittenBooklet {
   readonly foundations: readonly { sheet: FoundationSheet; layout: TileLayout }[]
   /** First page number of each part written. */
   readonly partPages: Partial<Record<BookletPart, number>>
+  /** What every page shows, in plain words, in page order (for thumbnails and summaries). */
+  readonly pages: readonly BookletPage[]
+  /** How each foundation lies across the pages, in the order printed. */
+  readonly tilings: readonly FoundationTiling[]
 }
 
 /**
@@ -65,15 +70,19 @@ export function writeBooklet(design: Design, input: BookletOptionsInput): Writte
     mark('guide')
     writePlacementGuide(context)
   }
-  ensureOnePage(context)
-  return { doc: context.doc, model, foundations, partPages }
+  const written = ensureOnePage(context)
+  const kinds = foundations.map(({ sheet, layout }) => ({ kind: sheet.kind, layout }))
+  const pages = written ? describePages({ partPages, foundations: kinds, pageCount: context.pages }) : [{ number: 1, part: options.parts[0]!, description: 'no parts were chosen' }]
+  const tilings = foundationTilings(kinds, partPages.foundations ?? 1)
+  return { doc: context.doc, model, foundations, partPages, pages, tilings }
 }
 
-/** A PDF always has a page; a booklet of nothing still says what it is. */
-function ensureOnePage(context: BookletContext): void {
-  if (context.pages > 0) return
+/** A PDF always has a page; a booklet of nothing still says what it is. False when it had to add one. */
+function ensureOnePage(context: BookletContext): boolean {
+  if (context.pages > 0) return true
   context.pages = 1
   context.doc.text(`${context.model.design.name}: no parts were chosen.`, context.frame.printable.x, context.frame.printable.y + 12)
+  return false
 }
 
 /**
@@ -85,4 +94,22 @@ function ensureOnePage(context: BookletContext): void {
  */
 export function buildBooklet(design: Design, options: BookletOptionsInput): Uint8Array {
   return new Uint8Array(writeBooklet(design, options).doc.output('arraybuffer'))
+}
+
+/** A booklet file and what its pages show. */
+export interface BookletFile {
+  readonly bytes: Uint8Array
+  readonly pages: readonly BookletPage[]
+  readonly tilings: readonly FoundationTiling[]
+}
+
+/**
+ * The booklet as PDF bytes with the description of each page beside them (the print room shows
+ * and downloads these same bytes).
+ *
+ * @example buildBookletFile(design, { paper: 'a4' }).pages[0] // { number: 1, part: 'cover', description: 'cover, fabric and cutting list' }
+ */
+export function buildBookletFile(design: Design, options: BookletOptionsInput): BookletFile {
+  const written = writeBooklet(design, options)
+  return { bytes: new Uint8Array(written.doc.output('arraybuffer')), pages: written.pages, tilings: written.tilings }
 }
