@@ -15,6 +15,7 @@ export { interiorPoint, signedArea, polygonCentroid, isPointInPolygon } from './
 export * from './offset'
 export * from './rough-cut'
 export * from './symmetry'
+export { scaleDesignLengths, type DesignLengths } from './design-lengths'
 export { repeatOutline as repeatOutlinePath } from './trim-line'
 export { sectionOutline, weldTJunctions } from './section-outline'
 export { fabricsOfAreas } from './fills'

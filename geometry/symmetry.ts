@@ -3,6 +3,7 @@
  * of the ring, and scaling a design to another finished size.
  */
 import { SIMILARITY_SLACK } from './allowance-tolerances'
+import { scaleDesignLengths } from './design-lengths'
 import type { OutlinePath, PathSegment } from './trim-line'
 import type { Design, Point, Polygon, Ring } from './types'
 
@@ -179,8 +180,7 @@ export function printedSide(points: readonly Point[], ring: Pick<Ring, 'repeats'
 
 /**
  * The design scaled so its finished diameter (twice the outer radius) is `finishedDiameterInches`:
- * every length scales (radii, seam ends, fill points, leaves' length and width, the stem ring's
- * radius and finished width, berries' centres and diameters, curls, hand-set order points);
+ * every length scales, through `scaleDesignLengths` (the one list of a design's lengths);
  * fractions and angles (a leaf's `at` and `angle`) and colourways do not. A new design; the
  * input is never changed.
  *
@@ -190,22 +190,5 @@ export function scaleDesign(design: Design, finishedDiameterInches: number): Des
   if (!(finishedDiameterInches > 0) || !Number.isFinite(finishedDiameterInches)) {
     throw new RangeError(`finished diameter must be a positive length, got ${finishedDiameterInches}`)
   }
-  const factor = finishedDiameterInches / (2 * design.ring.outerRadius)
-  const point = (p: Point): Point => [p[0] * factor, p[1] * factor]
-  return {
-    ...design,
-    ring: { ...design.ring, innerRadius: design.ring.innerRadius * factor, outerRadius: design.ring.outerRadius * factor },
-    seams: design.seams.map((seam) => ({ ...seam, from: point(seam.from), to: point(seam.to) })),
-    fills: design.fills.map((fill) => ({ ...fill, at: point(fill.at) })),
-    leaves: design.leaves.map((leaf) => ({ ...leaf, length: leaf.length * factor, width: leaf.width * factor })),
-    stems: design.stems.map((stem) => ({ ...stem, radius: stem.radius * factor, finishedWidth: stem.finishedWidth * factor })),
-    berries: design.berries.map((berry) => ({
-      ...berry, at: point(berry.at), finishedDiameter: berry.finishedDiameter * factor,
-    })),
-    curls: design.curls.map((curl) => ({ ...curl, points: curl.points.map(point) })),
-    order: design.order === null ? null : {
-      ...design.order,
-      sections: design.order.sections.map((section) => ({ ...section, areas: section.areas.map(point) })),
-    },
-  }
+  return scaleDesignLengths(design, finishedDiameterInches / (2 * design.ring.outerRadius))
 }

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import {
-  centimetresToInches, centimetresToPoints, formatInches, inchesToCentimetres, inchesToPoints, millimetresToPoints, pointsToInches,
+  centimetresToInches, centimetresToPoints, formatInches, formatSize, inchesToCentimetres, inchesToPoints, millimetresToPoints,
+  pointsToInches, unitsPerInch,
 } from './units'
 
 describe('units', () => {
@@ -30,5 +31,32 @@ describe('units', () => {
     expect(formatInches(0.25)).toBe('1/4 in')
     expect(formatInches(3)).toBe('3 in')
     expect(formatInches(0)).toBe('0 in')
+  })
+
+  it('writes negative lengths with their fraction, and nothing as 0 (one formatter for the whole app)', () => {
+    // Ruler reading to 1/8 in (common practice); the old board formatter printed -0.25 as "-1 in".
+    expect(formatInches(-0.25)).toBe('-1/4 in')
+    expect(formatInches(-2.375)).toBe('-2 3/8 in')
+    expect(formatInches(-0.01)).toBe('0 in')
+    expect(formatInches(0.06)).toBe('0 in') // under 1/16 in rounds to nothing
+    expect(formatInches(0.07)).toBe('1/8 in')
+    expect(formatInches(3.25)).toBe('3 1/4 in')
+    expect(formatInches(0.875)).toBe('7/8 in')
+  })
+
+  it('writes centimetres to the millimetre (1 in = 2.54 cm exactly, 1959 agreement)', () => {
+    expect(formatSize(1, 10, 'cm')).toBe('2.5 × 25.4 cm') // 2.54 cm and 10 × 2.54 cm
+    expect(formatSize(-0.25, 0, 'cm')).toBe('-0.6 × 0.0 cm') // -0.635 cm to the millimetre
+    expect(formatSize(-0.01, 0.01, 'cm')).toBe('0.0 × 0.0 cm') // never "-0.0"
+    expect(formatSize(-0.25, 0, 'in')).toBe('-1/4 × 0 in')
+  })
+
+  it('writes a piece size once with its unit', () => {
+    expect(formatSize(3.25, 2.5, 'in')).toBe('3 1/4 × 2 1/2 in')
+  })
+
+  it('counts a design unit per inch: 1 for inches, 2.54 for centimetres (1959 agreement)', () => {
+    expect(unitsPerInch('in')).toBe(1)
+    expect(unitsPerInch('cm')).toBe(2.54)
   })
 })

@@ -69,12 +69,40 @@ export function centimetresToInches(centimetres: number): number {
   return centimetres / CENTIMETRES_PER_INCH
 }
 
+/** The units a design file is written in and a designer reads lengths in. */
+export type LengthUnits = 'in' | 'cm'
+
 /**
- * A length in inches written the way rulers read it, to the nearest 1/8 in: `2 3/8 in`.
+ * How many of a design's units make one inch: 1 for inches, 2.54 for centimetres.
+ *
+ * @example unitsPerInch('cm') // 2.54
+ */
+export function unitsPerInch(units: LengthUnits): number {
+  return units === 'cm' ? CENTIMETRES_PER_INCH : 1
+}
+
+/**
+ * A length in inches written the way rulers read it, to the nearest 1/8 in: `2 3/8 in`, `-1/4 in`.
+ * The one length formatter of the app (the board, the print room and the booklet all use it).
  *
  * @example formatInches(2.375) // '2 3/8 in'
  */
 export function formatInches(inches: number): string {
+  return `${inchesInEighths(inches)} in`
+}
+
+/**
+ * A piece's size (inches in), with the unit written once.
+ *
+ * @example formatSize(3.25, 2.5, 'in') // '3 1/4 × 2 1/2 in'
+ */
+export function formatSize(widthInches: number, heightInches: number, units: LengthUnits): string {
+  if (units === 'cm') return `${centimetresToMillimetre(widthInches)} × ${centimetresToMillimetre(heightInches)} cm`
+  return `${inchesInEighths(widthInches)} × ${inchesInEighths(heightInches)} in`
+}
+
+/** Inches to the nearest eighth, without the unit: `2 3/8`, `-1/4`, `0`. */
+function inchesInEighths(inches: number): string {
   const eighths = Math.round(inches * 8)
   const sign = eighths < 0 ? '-' : ''
   const whole = Math.floor(Math.abs(eighths) / 8)
@@ -86,5 +114,11 @@ export function formatInches(inches: number): string {
   }
   const fraction = numerator > 0 ? `${numerator}/${denominator}` : ''
   const body = whole > 0 && fraction ? `${whole} ${fraction}` : whole > 0 ? `${whole}` : fraction || '0'
-  return `${sign}${body} in`
+  return `${sign}${body}`
+}
+
+/** Inches as centimetres to one decimal, never "-0.0" for a length that rounds to nothing. */
+function centimetresToMillimetre(inches: number): string {
+  const tenths = Math.round(inchesToCentimetres(inches) * 10)
+  return (tenths === 0 ? 0 : tenths / 10).toFixed(1)
 }

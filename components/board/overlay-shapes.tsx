@@ -2,10 +2,10 @@
 
 import { useMemo } from 'react'
 import { Circle, Label, Line, Rect, Tag, Text } from 'react-konva'
-import { roughCutBeforeFlip } from '@/geometry'
+import { roughCutBeforeFlip, smoothCurve } from '@/geometry'
 import { sewingSteps, type BoardPlan } from '@/lib/board/board-plan'
 import type { BoardDesign } from '@/lib/board/commands'
-import { formatSize } from '@/lib/board/format'
+import { formatSize } from '@/lib/units'
 import type { BoardStore, View } from '@/lib/board/store'
 import { toScreen } from '@/lib/board/view'
 import { leafShapes, type Point } from './board-geometry'
@@ -13,6 +13,12 @@ import { screenPoints } from './ring-shapes'
 import { useBoard } from './use-board'
 
 const HIGHLIGHT = '#2f5540'
+
+/** A curl's smooth curve as Konva's bezier points: the start, then three points per piece. */
+function curvePoints(points: readonly Point[]): Point[] {
+  const curve = smoothCurve(points)
+  return [curve.start, ...curve.pieces.flat()]
+}
 const TOOLTIP_WIDTH = 280
 
 /** What is selected, being drawn, or highlighted by the step-through, over the ring. */
@@ -71,7 +77,8 @@ export function OverlayShapes({ store, design, plan, view, width }: { store: Boa
         return <Circle x={x} y={y} radius={(berry.finishedDiameter / 2) * view.zoom + 4} stroke={HIGHLIGHT} strokeWidth={2} />
       })()}
       {selection?.kind === 'curl' && design.curls[selection.index] && (
-        <Line points={pixels(design.curls[selection.index]!.points)} stroke={HIGHLIGHT} strokeWidth={4} tension={0.5} opacity={0.6} />
+        // The curl's own curve: Konva's bezier line reads start, then control, control, end per piece.
+        <Line points={pixels(curvePoints(design.curls[selection.index]!.points))} bezier stroke={HIGHLIGHT} strokeWidth={4} opacity={0.6} />
       )}
       {tool === 'select' &&
         design.seams.flatMap((seam) =>

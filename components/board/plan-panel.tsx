@@ -2,7 +2,7 @@
 
 import { useDeferredValue, useMemo } from 'react'
 import { boardPlan, fabricOfArea, sewingSteps } from '@/lib/board/board-plan'
-import { formatSize } from '@/lib/board/format'
+import { formatSize } from '@/lib/units'
 import { design as designOf, type BoardStore } from '@/lib/board/store'
 import type { JoinTree } from '@/geometry'
 import { useBoard } from './use-board'

@@ -3,7 +3,9 @@
  * command takes the design and its arguments and returns the next design; it never mutates its
  * input. The mouse, the keyboard, the panels and the tests all go through this table.
  */
+import { scaleDesignLengths } from '@/geometry/design-lengths'
 import type { DesignFile } from '@/lib/schemas/design'
+import { unitsPerInch } from '@/lib/units'
 
 type Point = [number, number]
 type Seam = DesignFile['seams'][number]
@@ -240,33 +242,16 @@ export const renameDesign = defineCommand({
   run: (design, { name }: { name: string }) => ({ ...design, name }),
 })
 
-const CENTIMETRES_PER_INCH = 2.54
-
 /**
- * Switches the design between inches and centimetres, converting every length so the ring stays
- * the same size. Angles, fractions along a seam and colours are unitless and stay.
+ * Switches the design between inches and centimetres, converting every length (through the one
+ * scaler, `scaleDesignLengths`) so the ring stays the same size. Angles, fractions along a seam
+ * and colours are unitless and stay.
  */
 export const setUnits = defineCommand({
   name: 'set-units',
   run: (design, { units }: { units: 'in' | 'cm' }) => {
     if (design.units === units) return design
-    const factor = units === 'cm' ? CENTIMETRES_PER_INCH : 1 / CENTIMETRES_PER_INCH
-    const length = (value: number) => round(value * factor)
-    const point = (p: readonly [number, number]): Point => [length(p[0]), length(p[1])]
-    return {
-      ...design,
-      units,
-      ring: { ...design.ring, innerRadius: length(design.ring.innerRadius), outerRadius: length(design.ring.outerRadius) },
-      seams: design.seams.map((seam) => ({ ...seam, from: point(seam.from), to: point(seam.to) })),
-      fills: design.fills.map((fill) => ({ ...fill, at: point(fill.at) })),
-      leaves: design.leaves.map((leaf) => ({ ...leaf, length: length(leaf.length), width: length(leaf.width) })),
-      stems: design.stems.map((stem) => ({ ...stem, radius: length(stem.radius), finishedWidth: length(stem.finishedWidth) })),
-      berries: design.berries.map((berry) => ({ ...berry, at: point(berry.at), finishedDiameter: length(berry.finishedDiameter) })),
-      curls: design.curls.map((curl) => ({ points: curl.points.map(point) })),
-      order: design.order
-        ? { ...design.order, sections: design.order.sections.map((s) => ({ ...s, areas: s.areas.map(point) })) }
-        : null,
-    }
+    return { ...scaleDesignLengths(design, unitsPerInch(units) / unitsPerInch(design.units), round), units }
   },
 })
 

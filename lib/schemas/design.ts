@@ -4,10 +4,9 @@
  * becomes the core's `Design`: centimetres are converted to inches here, once.
  */
 import { z } from 'zod'
+import { scaleDesignLengths } from '@/geometry/design-lengths'
 import type { Design, HandSetOrder, JoinTree, Point } from '@/geometry/types'
-
-/** 1 in = 2.54 cm exactly (international yard and pound agreement, 1959). */
-const CENTIMETRES_PER_INCH = 2.54
+import { CENTIMETRES_PER_INCH } from '@/lib/units'
 
 // zod 4's number() already refuses NaN and ±Infinity, so every coordinate is finite.
 const finite = z.number()
@@ -154,10 +153,10 @@ export function formatDesignIssue(issue: DesignIssue): string {
   return `${issue.path}: ${issue.message}`
 }
 
-function toInchesDesign(file: DesignFile): Design {
-  const scale = file.units === 'cm' ? 1 / CENTIMETRES_PER_INCH : 1
-  const length = (value: number): number => value * scale
-  const at = (p: readonly [number, number]): Point => [p[0] * scale, p[1] * scale]
+function toInchesDesign(original: DesignFile): Design {
+  // Every length goes through the one scaler; below, the file's lists only get their defaults.
+  const file = original.units === 'cm' ? scaleDesignLengths(original, 1 / CENTIMETRES_PER_INCH) : original
+  const at = (p: readonly [number, number]): Point => [p[0], p[1]]
   const order: HandSetOrder | null = file.order
     ? {
         sections: file.order.sections.map((s) => ({ label: s.label, areas: s.areas.map(at) })),
@@ -167,8 +166,8 @@ function toInchesDesign(file: DesignFile): Design {
   return {
     name: file.name,
     ring: {
-      innerRadius: length(file.ring.innerRadius),
-      outerRadius: length(file.ring.outerRadius),
+      innerRadius: file.ring.innerRadius,
+      outerRadius: file.ring.outerRadius,
       repeats: file.ring.repeats,
       repeatMode: file.ring.repeatMode,
     },
@@ -180,12 +179,12 @@ function toInchesDesign(file: DesignFile): Design {
       at: l.at,
       side: l.side,
       angle: l.angle ?? 0,
-      length: length(l.length),
-      width: length(l.width),
+      length: l.length,
+      width: l.width,
       layers: [...l.layers],
     })),
-    stems: (file.stems ?? []).map((s) => ({ radius: length(s.radius), finishedWidth: length(s.finishedWidth), fabric: s.fabric })),
-    berries: (file.berries ?? []).map((b) => ({ at: at(b.at), finishedDiameter: length(b.finishedDiameter), fabric: b.fabric })),
+    stems: (file.stems ?? []).map((s) => ({ radius: s.radius, finishedWidth: s.finishedWidth, fabric: s.fabric })),
+    berries: (file.berries ?? []).map((b) => ({ at: at(b.at), finishedDiameter: b.finishedDiameter, fabric: b.fabric })),
     curls: (file.curls ?? []).map((c) => ({ points: c.points.map(at) })),
     colorways: (file.colorways ?? []).map((c) => ({ name: c.name, fabrics: { ...c.fabrics } })),
     order,
