@@ -4,6 +4,7 @@
  */
 import type { Arrangement } from './arrangement'
 import type { Topology } from './area-topology'
+import { leafShapeProblem } from './leaf-template'
 import type { InsertConstraint } from './sewing-order'
 import { distanceToSegment } from './polygon-measure'
 import { ON_SEGMENT_INCHES } from './tolerances'
@@ -11,7 +12,9 @@ import type { Leaf, Point, Problem } from './types'
 
 /**
  * The constraint of each leaf, and a problem for each leaf whose open end sits on no seam
- * between two areas (its seam was dropped as dangling, or it sits on the outline).
+ * between two areas (its seam was dropped as dangling, or it sits on the outline) and for each
+ * leaf that cannot be drawn as a pointed leaf (`impossible-leaf`, at its open end: the maker
+ * would get no template for it).
  *
  * @example insertConstraints(arrangement, topology, design.leaves).constraints[0]?.over
  */
@@ -26,6 +29,8 @@ export function insertConstraints(
     const seam = arrangement.seams.find((s) => s.id === leaf.seam)
     if (!seam) continue
     const place: Point = [seam.from[0] + leaf.at * (seam.to[0] - seam.from[0]), seam.from[1] + leaf.at * (seam.to[1] - seam.from[1])]
+    const shape = leafShapeProblem(leaf.length, leaf.width)
+    if (shape) problems.push({ code: 'impossible-leaf', severity: 'error', message: `Leaf ${leaf.id} cannot be made as a pointed leaf: ${shape}`, at: place })
     let best = -1
     let bestScore = Infinity
     topology.seamEdges.forEach((edge, id) => {

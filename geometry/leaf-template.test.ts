@@ -1,7 +1,7 @@
 import fc from 'fast-check'
 import polygonClipping from 'polygon-clipping'
 import { describe, expect, it } from 'vitest'
-import { isPointedLeaf, leafTemplate, placeLeaf } from './leaf-template'
+import { isPointedLeaf, leafShapeProblem, leafTemplate, placeLeaf, tryPlaceLeaf } from './leaf-template'
 import { polygonArea } from './offset'
 import { arcSweep, endOf, startOf, type ArcPathSegment, type OutlinePath } from './trim-line'
 import type { Leaf, Point, Polygon, Seam } from './types'
@@ -98,6 +98,35 @@ describe('leaf templates', () => {
   it('refuses a leaf without a point', () => {
     expect(isPointedLeaf(0.3, 0.75)).toBe(false)
     expect(() => leafTemplate(0.3, 0.75)).toThrow(RangeError)
+  })
+})
+
+describe('leaves that cannot be drawn', () => {
+  it('says in plain words why a leaf is too wide for its length and what would fix it', () => {
+    // A pointed leaf needs L > W/2 (the side arcs meet above the open end): 0.5 in < 3 in / 2.
+    expect(leafShapeProblem(0.5, 3)).toBe(
+      'it is 3 in wide but only 0.5 in long, and a pointed leaf must be longer than half its width. Make it longer than 1.5 in or narrower than 1 in.',
+    )
+    // Exactly half is a half disc, not a point.
+    expect(leafShapeProblem(0.375, 0.75)).toContain('longer than 0.375 in')
+    expect(leafShapeProblem(1.5, 0.75)).toBeNull()
+    expect(leafShapeProblem(1, 0)).toContain('must both be positive')
+  })
+
+  it('places a drawable leaf exactly as placeLeaf does, and gives the reason instead of throwing otherwise', () => {
+    const drawable = tryPlaceLeaf(leaf(), seam())
+    expect(drawable).toEqual({ ok: true, placement: placeLeaf(leaf(), seam()) })
+    const stubby = tryPlaceLeaf(leaf({ length: 0.5, width: 3 }), seam())
+    expect(stubby.ok).toBe(false)
+    if (!stubby.ok) expect(stubby.reason).toMatch(/^Leaf l1 cannot be drawn as a pointed leaf: it is 3 in wide but only 0.5 in long/)
+    const pointSeam = tryPlaceLeaf(leaf(), seam({ to: [0, 0] }))
+    expect(pointSeam).toEqual({ ok: false, reason: 'Leaf l1 cannot be placed: its seam s1 has no length.' })
+  })
+
+  it('agrees with isPointedLeaf on every size', () => {
+    fc.assert(fc.property(fc.double({ min: 0.01, max: 10, noNaN: true }), fc.double({ min: 0.01, max: 10, noNaN: true }), (length, width) => {
+      expect(leafShapeProblem(length, width) === null).toBe(isPointedLeaf(length, width))
+    }))
   })
 })
 

@@ -64,6 +64,27 @@ export interface LeafTemplate {
 export const isPointedLeaf = (length: number, width: number): boolean =>
   width > 0 && Number.isFinite(length) && length > width / 2
 
+/** A length for a message: inches to at most three decimals, trailing zeros dropped (0.5 in, 1.125 in). */
+const inchesInWords = (value: number): string => `${Number(value.toFixed(3))} in`
+
+/**
+ * Why a leaf of this length and width cannot be drawn as a pointed leaf, in plain words with what
+ * would fix it, or null when it can. The one test every caller uses instead of catching an
+ * exception: the plan reports the reason as an `impossible-leaf` problem, the board and the
+ * booklet simply leave such a leaf out.
+ *
+ * @example leafShapeProblem(0.5, 3) // 'it is 3 in wide but only 0.5 in long, and … longer than 1.5 in or narrower than 1 in.'
+ * @example leafShapeProblem(1.5, 0.75) // null
+ */
+export function leafShapeProblem(length: number, width: number): string | null {
+  if (!(width > 0) || !Number.isFinite(width) || !(length > 0) || !Number.isFinite(length)) {
+    return `its length (${length}) and width (${width}) must both be positive lengths.`
+  }
+  if (isPointedLeaf(length, width)) return null
+  return `it is ${inchesInWords(width)} wide but only ${inchesInWords(length)} long, and a pointed leaf must be longer than half its width. ` +
+    `Make it longer than ${inchesInWords(width / 2)} or narrower than ${inchesInWords(2 * length)}.`
+}
+
 /** Radius of the side arcs: the circle centred on the seam line through (W/2, 0) and (0, L). */
 const sideRadius = (length: number, width: number): number => (width * width / 4 + length * length) / width
 
@@ -80,7 +101,8 @@ function sideArcs(length: number, width: number, grow: number): [ArcPathSegment,
 
 /**
  * The template of a leaf of finished `length` (seam line to tip) and `width` (at the open end),
- * in the template frame (see the file comment).
+ * in the template frame (see the file comment). Throws when `leafShapeProblem` refuses the size
+ * (a programmer error: callers check first).
  *
  * @example
  * leafTemplate(1.5, 0.75).rawEdge // [[-0.5, -0.25], [0.5, -0.25]]: 0.75 + 2 × 1/8 wide, 1/4 in past the seam
@@ -149,6 +171,29 @@ export interface LeafPlacement {
   readonly rawEdge: Segment
 }
 
+/** A leaf placed on its seam, or the plain-words reason it cannot be drawn. */
+export type LeafPlacementResult =
+  | { readonly ok: true; readonly placement: LeafPlacement }
+  | { readonly ok: false; readonly reason: string }
+
+/**
+ * `placeLeaf` for callers that meet leaves as the designer left them (the board, the booklet):
+ * never throws, and says why a leaf cannot be drawn (too wide for its length, or its seam has
+ * no length). The plan already reports an impossible leaf, so such callers just skip it.
+ *
+ * @example
+ * tryPlaceLeaf({ id: 'l1', seam: 's1', at: 0.5, side: 'left', angle: 0, length: 0.5, width: 3, layers: [] },
+ *   { id: 's1', from: [0, 0], to: [4, 0] }).ok // false
+ */
+export function tryPlaceLeaf(leaf: Leaf, seam: Seam, options: Pick<LeafTemplateOptions, 'catchInches'> = {}): LeafPlacementResult {
+  const shape = leafShapeProblem(leaf.length, leaf.width)
+  if (shape) return { ok: false, reason: `Leaf ${leaf.id} cannot be drawn as a pointed leaf: ${shape}` }
+  if (!(Math.hypot(seam.to[0] - seam.from[0], seam.to[1] - seam.from[1]) > 0)) {
+    return { ok: false, reason: `Leaf ${leaf.id} cannot be placed: its seam ${seam.id} has no length.` }
+  }
+  return { ok: true, placement: placeLeaf(leaf, seam, options) }
+}
+
 /** Keeps the part of a polygon on the non-negative side of `side(p)` (one Sutherland–Hodgman pass). */
 function clipToSide(polygon: Polygon, side: (p: Point) => number): Point[] {
   const kept: Point[] = []
@@ -171,6 +216,9 @@ function clipToSide(polygon: Polygon, side: (p: Point) => number): Point[] {
  * seam's normal on that side. The visible outline stops at the seam line: a tilted leaf's open end
  * still runs along the seam (the maker lays the raw edge along it), so the part of the tilted
  * shape beyond the seam is hidden and the gap on the other side is filled by the straight sides.
+ *
+ * Throws for a leaf `leafShapeProblem` refuses or a seam of no length (a programmer error: check
+ * first, or call `tryPlaceLeaf`).
  *
  * @example
  * placeLeaf({ id: 'l1', seam: 's1', at: 0.5, side: 'left', angle: 0, length: 1.5, width: 0.75, layers: [] },

@@ -165,6 +165,22 @@ describe('planDesign', () => {
     expect(conflict?.at[1]).toBeCloseTo(2, 9)
   })
 
+  it('makes a leaf too wide for its length an error at the leaf, naming it and the fix', () => {
+    // derivable (leaf-template.ts): a pointed leaf needs length > width / 2; 0.5 in < 3 in / 2
+    const stubby = { ...leaf('stubby', 'low', 'left'), at: 0.5, length: 0.5, width: 3 }
+    const plan = planDesign(strips([stubby]))
+    expect(plan.sewable).toBe(false)
+    const problem = plan.problems.find((p) => p.code === 'impossible-leaf')
+    expect(problem?.severity).toBe('error')
+    expect(problem?.message).toBe(
+      'Leaf stubby cannot be made as a pointed leaf: it is 3 in wide but only 0.5 in long, and a pointed leaf must be longer than half its width. Make it longer than 1.5 in or narrower than 1 in.',
+    )
+    // placed at the leaf's open end: halfway along seam "low"
+    const low = strips().seams.find((s) => s.id === 'low')!
+    expect(problem?.at[0]).toBeCloseTo((low.from[0] + low.to[0]) / 2, 2)
+    expect(problem?.at[1]).toBeCloseTo(2, 6)
+  })
+
   it('checks a hand-set order instead of proposing one, naming the failing step', () => {
     const d = strips()
     const plan = planDesign({ ...d, order: { sections: [{ label: 'A', areas: [[1, 1], [1, 5], [1, 3]] }] } })

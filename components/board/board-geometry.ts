@@ -3,7 +3,7 @@
  * repeat 0 and every other repeat of the ring, leaves as they lie, fabric colours per area.
  */
 import { applyTransform, repeatTransforms, type AffineTransform } from '@/geometry'
-import { placeLeaf } from '@/geometry/leaf-template'
+import { tryPlaceLeaf } from '@/geometry/leaf-template'
 import { fabricsOfAreas } from '@/geometry'
 import { inchFills, type BoardPlan } from '@/lib/board/board-plan'
 import type { BoardDesign } from '@/lib/board/commands'
@@ -45,26 +45,25 @@ export function leafShapes(design: BoardDesign): LeafShape[] {
   for (const leaf of design.leaves) {
     const seam = design.seams.find((s) => s.id === leaf.seam)
     if (!seam) continue
-    try {
-      const placed = placeLeaf({ ...leaf, angle: leaf.angle ?? 0 }, seam)
-      const count = leaf.layers.length
-      shapes.push({
-        id: leaf.id,
-        layers: leaf.layers.map((fabric, index) => {
-          // Upper layers are drawn a little shorter, as a stacked pair of folded leaves shows.
-          const shrink = 1 - (0.22 * index) / Math.max(1, count - 1 || 1)
-          return {
-            fabric,
-            outline: placed.finishedOutline.map((p) => [
-              placed.base[0] + (p[0] - placed.base[0]) * shrink,
-              placed.base[1] + (p[1] - placed.base[1]) * shrink,
-            ] as Point),
-          }
-        }),
-      })
-    } catch {
-      // A leaf too wide for its length cannot be pointed; the inspector says so.
-    }
+    // A leaf too wide for its length cannot be pointed: the plan reports it, the board skips it.
+    const placement = tryPlaceLeaf({ ...leaf, angle: leaf.angle ?? 0 }, seam)
+    if (!placement.ok) continue
+    const placed = placement.placement
+    const count = leaf.layers.length
+    shapes.push({
+      id: leaf.id,
+      layers: leaf.layers.map((fabric, index) => {
+        // Upper layers are drawn a little shorter, as a stacked pair of folded leaves shows.
+        const shrink = 1 - (0.22 * index) / Math.max(1, count - 1 || 1)
+        return {
+          fabric,
+          outline: placed.finishedOutline.map((p) => [
+            placed.base[0] + (p[0] - placed.base[0]) * shrink,
+            placed.base[1] + (p[1] - placed.base[1]) * shrink,
+          ] as Point),
+        }
+      }),
+    })
   }
   return shapes
 }

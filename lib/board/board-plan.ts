@@ -86,12 +86,9 @@ export function sectionOutlines(result: BoardPlan): readonly SectionOutline[] {
   const byId = new Map(plan?.areas.map((area) => [area.id, area]) ?? [])
   const outlines = (plan?.sections ?? []).map((section) => {
     const polygons = section.order.map((id) => byId.get(id)!.polygon)
-    let rings: Point[][]
-    try {
-      rings = [sectionOutline(polygons).map((p) => toDesignUnits(p, result.unitsPerInch))]
-    } catch {
-      rings = []
-    }
+    // A plan's section always holds at least one area, and sectionOutline falls back on its own
+    // when polygon-clipping fails, so there is nothing to catch here.
+    const rings = [sectionOutline(polygons).map((p) => toDesignUnits(p, result.unitsPerInch))]
     return { label: section.label, rings }
   })
   outlineCache.set(result, outlines)

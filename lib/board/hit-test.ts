@@ -2,7 +2,8 @@
  * What lies under the pointer on the board, found in the ring's frame (inches) rather than by the
  * canvas, so the same answer serves the mouse, the keyboard and the tests.
  */
-import { placeLeaf } from '@/geometry/leaf-template'
+import { tryPlaceLeaf } from '@/geometry/leaf-template'
+import { sampleSmoothCurve, smoothCurve } from '@/geometry/smooth-curve'
 import type { BoardDesign } from './commands'
 
 export type Point = readonly [number, number]
@@ -55,11 +56,9 @@ export function hitTest(design: BoardDesign, point: Point, tolerance: number): H
   for (const leaf of [...design.leaves].reverse()) {
     const seam = design.seams.find((s) => s.id === leaf.seam)
     if (!seam) continue
-    try {
-      if (isInsidePolygon(point, placeLeaf({ ...leaf, angle: leaf.angle ?? 0 }, seam).finishedOutline)) return { kind: 'leaf', leafId: leaf.id }
-    } catch {
-      // A leaf too narrow to be pointed has no outline to hit.
-    }
+    // A leaf too wide for its length has no outline to hit (the plan reports it).
+    const placement = tryPlaceLeaf({ ...leaf, angle: leaf.angle ?? 0 }, seam)
+    if (placement.ok && isInsidePolygon(point, placement.placement.finishedOutline)) return { kind: 'leaf', leafId: leaf.id }
   }
   for (let index = design.berries.length - 1; index >= 0; index -= 1) {
     const berry = design.berries[index]!
@@ -76,7 +75,8 @@ export function hitTest(design: BoardDesign, point: Point, tolerance: number): H
   if (bestSeam) return { kind: 'seam', seamId: bestSeam.seamId, fraction: bestSeam.fraction, side: bestSeam.side }
 
   for (let index = design.curls.length - 1; index >= 0; index -= 1) {
-    const points = design.curls[index]!.points
+    // Along the curve as drawn, not the straight lines between the clicked points.
+    const points = sampleSmoothCurve(smoothCurve(design.curls[index]!.points))
     for (let i = 1; i < points.length; i += 1) {
       if (projectOntoSeam(point, points[i - 1]!, points[i]!).distance <= tolerance) return { kind: 'curl', index }
     }

@@ -3,11 +3,11 @@
  * its size, and the fabric and cutting list that follows it.
  */
 import type { jsPDF } from 'jspdf'
-import { applyToPolygon, applyTransform, outlineFromPolygon, placeLeaf, repeatTransforms, type AffineTransform, type Point } from '@/geometry'
+import { applyToPolygon, applyTransform, mapSmoothCurve, outlineFromPolygon, repeatTransforms, smoothCurve, tryPlaceLeaf, type AffineTransform, type Point } from '@/geometry'
 import { formatInches, inchesToCentimetres } from '@/lib/units'
 import { font } from './chrome'
 import { startPage, type BookletContext } from './context'
-import { fitView, rgb, solidPen, toPage, tracePath, tracePolygon, type View } from './draw'
+import { fitView, rgb, solidPen, toPage, traceCurve, tracePath, tracePolygon, type View } from './draw'
 import { bindingLengthInches, cuttingList } from './fabric-list'
 import { fabricColour, type BookletModel } from './model'
 import { PAPERS } from './paper'
@@ -56,16 +56,15 @@ function drawDecorations(doc: jsPDF, model: BookletModel, view: View, transform:
   for (const leaf of design.leaves) {
     const seam = design.seams.find((s) => s.id === leaf.seam)
     if (!seam) continue
-    try {
-      const placement = placeLeaf(leaf, seam)
-      // The top layer shows; the ones beneath peek out only at the edges.
-      doc.setFillColor(...rgb(fabricColour(model, leaf.layers[leaf.layers.length - 1] ?? '')))
-      solidPen(doc, 0.3, [40, 40, 40])
-      tracePolygon(doc, view, applyToPolygon(transform, placement.finishedOutline))
-      doc.fillStroke()
-    } catch {
-      // An impossible leaf is reported by the plan; the preview leaves it out.
-    }
+    // An impossible leaf is reported by the plan; the preview leaves it out.
+    const placed = tryPlaceLeaf(leaf, seam)
+    if (!placed.ok) continue
+    const { placement } = placed
+    // The top layer shows; the ones beneath peek out only at the edges.
+    doc.setFillColor(...rgb(fabricColour(model, leaf.layers[leaf.layers.length - 1] ?? '')))
+    solidPen(doc, 0.3, [40, 40, 40])
+    tracePolygon(doc, view, applyToPolygon(transform, placement.finishedOutline))
+    doc.fillStroke()
   }
   for (const berry of design.berries) {
     const [x, y] = toPage(view, applyTransform(transform, berry.at))
@@ -75,7 +74,8 @@ function drawDecorations(doc: jsPDF, model: BookletModel, view: View, transform:
   }
   for (const curl of design.curls) {
     solidPen(doc, 0.8, [50, 40, 30])
-    tracePolygon(doc, view, curl.points.map((p: Point) => applyTransform(transform, p)), false)
+    // The board's curve, moved to this repeat (a Bézier moves with its control points).
+    traceCurve(doc, view, mapSmoothCurve(smoothCurve(curl.points), (p: Point) => applyTransform(transform, p)))
     doc.stroke()
   }
 }

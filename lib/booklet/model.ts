@@ -4,7 +4,7 @@
  */
 import {
   fabricsOfAreas, IDENTITY, isPointInPolygon, planDesign, printedSideTransform, scaleDesign,
-  placeLeaf, type AffineTransform, type Colorway, type Design, type Leaf, type LeafPlacement, type Plan, type PlanArea, type Point,
+  tryPlaceLeaf, type AffineTransform, type Colorway, type Design, type Leaf, type LeafPlacement, type Plan, type PlanArea, type Point,
 } from '@/geometry'
 import type { BookletOptions } from '@/lib/schemas/booklet'
 
@@ -127,12 +127,9 @@ export function leavesInBooklet(model: BookletModel): LeafInBooklet[] {
   for (const leaf of design.leaves) {
     const seam = design.seams.find((s) => s.id === leaf.seam)
     if (!seam) continue
-    let placement: LeafPlacement
-    try {
-      placement = placeLeaf(leaf, seam)
-    } catch {
-      continue // an impossible leaf is the plan's problem to report, not a reason to stop printing
-    }
+    const placed = tryPlaceLeaf(leaf, seam)
+    if (!placed.ok) continue // an impossible leaf is the plan's problem to report, not a reason to stop printing
+    const { placement } = placed
     const { base, tip } = placement
     const length = Math.hypot(tip[0] - base[0], tip[1] - base[1]) || 1
     // A point just off the seam on the leaf's side names the area it lies over.

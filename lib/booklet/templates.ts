@@ -3,11 +3,11 @@
  * the curls and the berries. Templates are symmetric, so they read the same on either side.
  */
 import type { jsPDF } from 'jspdf'
-import { leafTemplate, outlineFromPolygon, pathToPolygon, placeLeaf, repeatOutlinePath } from '@/geometry'
+import { leafShapeProblem, leafTemplate, outlineFromPolygon, pathToPolygon, repeatOutlinePath, smoothCurve, tryPlaceLeaf } from '@/geometry'
 import { formatInches, POINTS_PER_INCH } from '@/lib/units'
 import { drawHeader, drawTestSquares, font, HEADER_HEIGHT_PT, TEST_BAND_HEIGHT_PT } from './chrome'
 import { startPage, type BookletContext } from './context'
-import { dashedPen, solidPen, toPage, tracePath, tracePolygon, trueScaleView, type View } from './draw'
+import { dashedPen, solidPen, toPage, traceCurve, tracePath, tracePolygon, trueScaleView, type View } from './draw'
 import { BERRY_EXTRA_INCHES } from './fabric-list'
 import { writeTiledDrawing } from './tiled-drawing'
 
@@ -31,12 +31,9 @@ function leafTemplates(context: BookletContext): Template[] {
   }
   const templates: Template[] = []
   for (const { length, width, fabrics, count } of sizes.values()) {
-    let template
-    try {
-      template = leafTemplate(length, width)
-    } catch {
-      continue
-    }
+    // An impossible leaf is an error of the plan; it gets no template.
+    if (leafShapeProblem(length, width)) continue
+    const template = leafTemplate(length, width)
     const xs = template.cutPolygon.map((p) => p[0])
     const ys = template.cutPolygon.map((p) => p[1])
     const box = [Math.min(...xs), Math.min(...ys), Math.max(...xs), Math.max(...ys)] as const
@@ -166,7 +163,7 @@ export function writePlacementGuide(context: BookletContext): void {
     }
     for (const curl of design.curls) {
       solidPen(doc, 1.2)
-      tracePolygon(doc, view, curl.points, false)
+      traceCurve(doc, view, smoothCurve(curl.points))
       doc.stroke()
     }
     for (const berry of design.berries) {
@@ -179,13 +176,11 @@ export function writePlacementGuide(context: BookletContext): void {
     for (const leaf of design.leaves) {
       const seam = design.seams.find((s) => s.id === leaf.seam)
       if (!seam) continue
-      try {
-        dashedPen(doc, 0.4, [2, 2], [120, 120, 120])
-        tracePolygon(doc, view, placeLeaf(leaf, seam).finishedOutline)
-        doc.stroke()
-      } catch {
-        // reported by the plan
-      }
+      const placement = tryPlaceLeaf(leaf, seam)
+      if (!placement.ok) continue // reported by the plan
+      dashedPen(doc, 0.4, [2, 2], [120, 120, 120])
+      tracePolygon(doc, view, placement.placement.finishedOutline)
+      doc.stroke()
     }
     doc.setLineDashPattern([], 0)
   }
