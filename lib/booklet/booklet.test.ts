@@ -107,6 +107,35 @@ describe('tiling a foundation', () => {
   })
 })
 
+describe('tile names', () => {
+  it('reads back no tile name of the form of an area label: header, alignment marks and page map', async () => {
+    const written = writeBooklet(wreath, { paper: 'letter', finishedDiameterInches: 24, parts: ['foundations'] })
+    const pdf = await openPdf(new Uint8Array(written.doc.output('arraybuffer')))
+    const areaLabels = new Set(written.model.labelledAreas.map((area) => area.label!))
+    let page = written.partPages.foundations!
+    let tiledPages = 0
+    for (const { sheet, layout } of written.foundations) {
+      for (const tile of layout.tiles) {
+        const items = await pageText(pdf, page)
+        const text = items.map((item) => item.text).join(' ')
+        if (layout.tiles.length > 1) {
+          tiledPages += 1
+          expect(text).toContain(`sheet ${tile.sheet} of ${layout.tiles.length}`)
+        }
+        // Anything of the form of an area label is an area label of this foundation, written at
+        // the labels' 10 pt: never an 18 pt page name, a 6 pt target name or a page-map cell.
+        for (const item of items.filter((i) => /^[A-Z]+\d+$/.test(i.text.trim()))) {
+          expect(areaLabels.has(item.text.trim()), `"${item.text}" on page ${page}`).toBe(true)
+          expect(item.text.trim().startsWith(sheet.kind.section), `"${item.text}" on page ${page}`).toBe(true)
+          expect(Math.abs(item.height - 10), `"${item.text}" on page ${page} at ${item.height} pt`).toBeLessThan(0.5)
+        }
+        page += 1
+      }
+    }
+    expect(tiledPages).toBeGreaterThan(1)
+  })
+})
+
 describe('mirroring', () => {
   /** Twice the signed area of the triangle of three label positions: its sign is the handedness. */
   const handedness = (points: { x: number; y: number }[]): number => {

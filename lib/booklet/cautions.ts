@@ -16,7 +16,7 @@ export const CAUTIONS: readonly string[] = [
 /** How to print and assemble tiled pages. */
 export const PRINTING_NOTES: readonly string[] = [
   'Print at 100 % (actual size); turn off "fit to page", "shrink oversized pages" and similar settings. Measure the 1 in and 2 cm test squares on a foundation page before going on.',
-  'Foundations larger than one sheet are split into pages named by row letter and column number (A1, A2, B1 ...); the page map at the foot of each page shows where it belongs.',
+  'Foundations larger than one page are split into sheets numbered row by row ("sheet 2 of 4", with its row and column in words in the header); the page map at the foot of each page shows where each sheet belongs, and the targets in an overlap name the sheet that lies over it.',
   'To join two pages: trim one along the thin grey frame of its drawing area, lay it over its neighbour so the frame meets the dotted line and the round targets sit on each other, then tape.',
   'Foundations are printed mirrored (the printed side is the mirror image of the finished quilt): that is intended, the fabric goes on the unprinted side.',
 ]

@@ -31,17 +31,18 @@ export function font(doc: jsPDF, size: number, style: 'normal' | 'bold' | 'itali
  * Writes the page header: a bold title on the left, a small note under it, and an optional
  * label on the right (a tile's name), all inside the printable area.
  *
- * @example drawHeader(doc, frame, 'Foundation A', 'Printed side', 'A1')
+ * @example drawHeader(doc, frame, 'Foundation A', 'Printed side', 'sheet 2 of 4')
  */
 export function drawHeader(doc: jsPDF, frame: PageFrame, title: string, note: string, label?: string): void {
   const { x, y, width } = frame.printable
-  const labelWidth = label ? 60 : 0
+  font(doc, 14, 'bold')
+  const labelWidth = label ? doc.getTextWidth(label) + 12 : 0
   font(doc, 11, 'bold')
   doc.text(fitText(doc, title, width - labelWidth), x, y + 11)
   font(doc, 7.5, 'normal', 60)
   doc.text(fitText(doc, note, width - labelWidth), x, y + 23)
   if (label) {
-    font(doc, 18, 'bold')
+    font(doc, 14, 'bold')
     // Inset a little: pdfjs measures bold glyphs a hair wider than jsPDF does.
     doc.text(label, x + width - 2, y + 20, { align: 'right' })
   }

@@ -1,7 +1,7 @@
 /**
  * A true-scale drawing printed across as many pages as it needs: each page shows one tile of
- * the drawing inside the printable area (clipped there, so nothing reaches the margin), named by
- * row letter and column number, with alignment targets in the overlap it shares with each
+ * the drawing inside the printable area (clipped there, so nothing reaches the margin), named
+ * "sheet 2 of 4" with its row and column in words, with alignment targets in the overlap it shares with each
  * neighbour, a page map of all tiles, and the test squares.
  */
 import type { jsPDF } from 'jspdf'
@@ -11,7 +11,7 @@ import { drawHeader, drawTestSquares, font, HEADER_HEIGHT_PT, TEST_BAND_HEIGHT_P
 import { startPage, type BookletContext } from './context'
 import { dashedPen, solidPen, toPage, trueScaleView, type View } from './draw'
 import type { PageFrame, PageRect } from './paper'
-import { layoutTiles, overlapStrips, type Tile, type TileLayout } from './tiling'
+import { layoutTiles, overlapStrips, sheetName, type Tile, type TileLayout } from './tiling'
 
 export interface TiledDrawing {
   readonly title: string
@@ -71,8 +71,10 @@ export function writeTiledDrawing(context: BookletContext, drawing: TiledDrawing
   const window = drawingWindow(frame)
   for (const tile of layout.tiles) {
     const page = startPage(context)
-    const tiled = layout.tiles.length > 1 ? `page ${tile.label} of ${layout.rows} row${layout.rows > 1 ? 's' : ''} × ${layout.columns} column${layout.columns > 1 ? 's' : ''}; ` : ''
-    drawHeader(doc, frame, drawing.title, `${drawing.note} ${tiled}booklet page ${page}.`, layout.tiles.length > 1 ? tile.label : undefined)
+    const sheets = layout.tiles.length
+    // Sheets are named by number and place in words, never like an area label (A1, B2).
+    const tiled = sheets > 1 ? `${sheetName(tile.sheet, sheets)}: ${tile.label} of ${layout.rows} row${layout.rows > 1 ? 's' : ''} × ${layout.columns} column${layout.columns > 1 ? 's' : ''}; ` : ''
+    drawHeader(doc, frame, drawing.title, `${drawing.note} ${tiled}booklet page ${page}.`, sheets > 1 ? sheetName(tile.sheet, sheets) : undefined)
     const view = tileView(drawing.box, tile, window)
     doc.saveGraphicsState()
     doc.rect(window.x, window.y, window.width, window.height, null)
@@ -170,8 +172,9 @@ function drawPageMap(doc: jsPDF, layout: TileLayout, current: Tile, drawing: Til
   doc.close()
   doc.stroke()
   font(doc, 6, 'bold', 30)
+  // Each cell carries its sheet number alone: a number can never be read as an area label.
   for (const tile of layout.tiles) {
     const [x, y] = toMap(tile.window.x + tile.window.width / 2, tile.window.y + tile.window.height / 2)
-    doc.text(tile.label, x, y + 2, { align: 'center' })
+    doc.text(String(tile.sheet), x, y + 2, { align: 'center' })
   }
 }

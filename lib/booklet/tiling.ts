@@ -7,8 +7,13 @@
 import type { PageRect } from './paper'
 
 export interface Tile {
-  /** Row letter + column number, as maps and atlases name their squares: A1, A2, B1 … */
+  /**
+   * Where the tile lies, in words: "row 1, column 2". Never of the form of an area label (A1,
+   * B12): a page named like an area invites taping and sewing mistakes.
+   */
   readonly label: string
+  /** The tile's number among its drawing's tiles, from 1, row by row: the "2" of "sheet 2 of 4". */
+  readonly sheet: number
   readonly row: number
   readonly column: number
   /** The part of the sheet this page shows, points. */
@@ -25,18 +30,23 @@ export interface TileLayout {
 }
 
 /**
- * A1, A2 …: the row as letters (A … Z, AA …), the column as a number from 1.
+ * A tile's place in words, rows and columns counted from 1. It always holds a space and lower-case
+ * words, so it can never be read as an area label (capital letters then digits).
  *
- * @example tileLabel(1, 2) // 'B3'
+ * @example tileLabel(1, 2) // 'row 2, column 3'
  */
 export function tileLabel(row: number, column: number): string {
-  let letters = ''
-  let rest = row
-  do {
-    letters = String.fromCharCode(65 + (rest % 26)) + letters
-    rest = Math.floor(rest / 26) - 1
-  } while (rest >= 0)
-  return `${letters}${column + 1}`
+  return `row ${row + 1}, column ${column + 1}`
+}
+
+/**
+ * A tile's page name: "sheet 2 of 4" (or "sheet 2" when the count goes without saying, as beside
+ * an alignment mark).
+ *
+ * @example sheetName(2, 4) // 'sheet 2 of 4'
+ */
+export function sheetName(sheet: number, sheets?: number): string {
+  return sheets === undefined ? `sheet ${sheet}` : `sheet ${sheet} of ${sheets}`
 }
 
 /** How many windows of `size`, stepping by `size − overlap`, cover `length`. */
@@ -51,7 +61,7 @@ function countAlong(length: number, size: number, overlap: number): number {
  * centred in it (window origins may then be negative). Extra room left by the last row or column
  * is shared equally on both sides, so the drawing sits in the middle of its tiles.
  *
- * @example layoutTiles(1000, 500, { width: 540, height: 700 }, 36).tiles.map((t) => t.label) // ['A1', 'A2']
+ * @example layoutTiles(1000, 500, { width: 540, height: 700 }, 36).tiles.map((t) => t.label) // ['row 1, column 1', 'row 1, column 2']
  */
 export function layoutTiles(sheetWidth: number, sheetHeight: number, window: { width: number; height: number }, overlapPt: number): TileLayout {
   if (!(window.width > overlapPt && window.height > overlapPt)) throw new RangeError('a page must be larger than the overlap')
@@ -69,6 +79,7 @@ export function layoutTiles(sheetWidth: number, sheetHeight: number, window: { w
     for (let column = 0; column < columns; column += 1) {
       tiles.push({
         label: tileLabel(row, column),
+        sheet: row * columns + column + 1,
         row,
         column,
         window: { x: startX + column * stepX, y: startY + row * stepY, width: window.width, height: window.height },
@@ -81,7 +92,7 @@ export function layoutTiles(sheetWidth: number, sheetHeight: number, window: { w
 /**
  * The overlap strips a tile shares with its right and lower neighbours, for alignment marks.
  *
- * @example overlapStrips(layout, layout.tiles[0]!) // [{ neighbour: 'A2', rect: … }, { neighbour: 'B1', rect: … }]
+ * @example overlapStrips(layout, layout.tiles[0]!) // [{ neighbour: 'sheet 2', rect: … }, { neighbour: 'sheet 3', rect: … }] on 2 × 2 tiles
  */
 export function overlapStrips(layout: TileLayout, tile: Tile): { neighbour: string; rect: PageRect; vertical: boolean }[] {
   const strips: { neighbour: string; rect: PageRect; vertical: boolean }[] = []
@@ -94,7 +105,7 @@ export function overlapStrips(layout: TileLayout, tile: Tile): { neighbour: stri
     const rect: PageRect = vertical
       ? { x: column > tile.column ? window.x + window.width - o : window.x, y: window.y, width: o, height: window.height }
       : { x: window.x, y: row > tile.row ? window.y + window.height - o : window.y, width: window.width, height: o }
-    strips.push({ neighbour: tileLabel(row, column), rect, vertical })
+    strips.push({ neighbour: sheetName(row * layout.columns + column + 1), rect, vertical })
   }
   return strips
 }
