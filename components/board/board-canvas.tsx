@@ -49,10 +49,10 @@ export function BoardCanvas({
   /** Shows the message of a problem marker when the pointer comes within a few pixels of it. */
   const showProblemNear = (screen: readonly [number, number]) => {
     const state = store.getState()
-    const problems = plan.plan?.problems ?? []
+    const problems = plan.problems
     let found: number | null = null
     problems.forEach((problem, index) => {
-      const [x, y] = toScreen([problem.at[0] * plan.unitsPerInch, problem.at[1] * plan.unitsPerInch], state.view, design.ring.repeats)
+      const [x, y] = toScreen(problem.at, state.view, design.ring.repeats)
       if (Math.hypot(x - screen[0], y - screen[1]) <= PROBLEM_MARKER_PIXELS) found = index
     })
     if (found !== state.shownProblem) store.update({ shownProblem: found })

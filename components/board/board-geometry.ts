@@ -4,8 +4,7 @@
  */
 import { applyTransform, repeatTransforms, type AffineTransform } from '@/geometry'
 import { tryPlaceLeaf } from '@/geometry/leaf-template'
-import { fabricsOfAreas } from '@/geometry'
-import { inchFills, type BoardPlan } from '@/lib/board/board-plan'
+import type { BoardPlan } from '@/lib/board/board-plan'
 import type { BoardDesign } from '@/lib/board/commands'
 
 export type Point = readonly [number, number]
@@ -24,19 +23,9 @@ export interface LeafShape {
   readonly layers: readonly { readonly outline: readonly Point[]; readonly fabric: string }[]
 }
 
-const scalePoint = (p: Point, factor: number): Point => [p[0] * factor, p[1] * factor]
-
-/** The plan's areas in design units, each with the fabric of the last fill that falls in it. */
-export function areaShapes(design: BoardDesign, plan: BoardPlan): AreaShape[] {
-  if (!plan.plan) return []
-  const fabricByArea = fabricsOfAreas(inchFills(design, plan), plan.plan.areas)
-  return plan.plan.areas.map((area) => ({
-    id: area.id,
-    label: area.label,
-    polygon: area.polygon.map((p) => scalePoint(p, plan.unitsPerInch)),
-    labelAt: scalePoint(area.point, plan.unitsPerInch),
-    fabric: fabricByArea.get(area.id) ?? null,
-  }))
+/** The plan's areas in design units (converted once, by boardPlan), each with the fabric of the last fill that falls in it. */
+export function areaShapes(plan: BoardPlan): AreaShape[] {
+  return plan.areas.map(({ id, label, polygon, labelAt, fabric }) => ({ id, label, polygon, labelAt, fabric }))
 }
 
 /** Each leaf as it lies on its seam, its layers shrinking towards the seam so every layer shows. */

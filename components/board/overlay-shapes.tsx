@@ -2,8 +2,8 @@
 
 import { useMemo } from 'react'
 import { Circle, Label, Line, Rect, Tag, Text } from 'react-konva'
-import { roughCutBeforeFlip, smoothCurve } from '@/geometry'
-import { sewingSteps, type BoardPlan } from '@/lib/board/board-plan'
+import { smoothCurve } from '@/geometry'
+import type { BoardPlan } from '@/lib/board/board-plan'
 import type { BoardDesign } from '@/lib/board/commands'
 import { formatSize } from '@/lib/units'
 import type { BoardStore, View } from '@/lib/board/store'
@@ -31,33 +31,31 @@ export function OverlayShapes({ store, design, plan, view, width }: { store: Boa
   const shownProblem = useBoard(store, (state) => state.shownProblem)
   const repeats = design.ring.repeats
   const pixels = (points: readonly Point[]) => screenPoints(points, view, repeats)
-  const steps = useMemo(() => (plan.plan ? sewingSteps(plan.plan) : []), [plan])
+  const steps = plan.steps
   const leaves = useMemo(() => leafShapes(design), [design])
-  const scale = plan.unitsPerInch
-  const inDesignUnits = (p: Point): Point => [p[0] * scale, p[1] * scale]
   const current = step !== null ? steps[Math.min(step, steps.length - 1)] : undefined
 
   return (
     <>
       {current && (
         <>
-          <Line points={pixels(current.polygon.map(inDesignUnits))} closed fill="rgba(47,85,64,0.35)" stroke={HIGHLIGHT} strokeWidth={3} />
+          <Line points={pixels(current.polygon)} closed fill="rgba(47,85,64,0.35)" stroke={HIGHLIGHT} strokeWidth={3} />
           {current.sewnAlong && (
-            <Line points={pixels(current.sewnAlong.map(inDesignUnits))} stroke="#a3392b" strokeWidth={4} dash={[10, 5]} />
+            <Line points={pixels(current.sewnAlong)} stroke="#a3392b" strokeWidth={4} dash={[10, 5]} />
           )}
           {(() => {
             // Before the flip the piece lies right side down over the sewn areas, mirrored across the sewing line.
-            const placed = current.sewnAlong ? roughCutBeforeFlip(current.roughCut, current.sewnAlong) : current.roughCut.corners
-            const [x, y] = toScreen(inDesignUnits(placed[0]!), view, repeats)
+            const placed = current.roughCutPlaced
+            const [x, y] = toScreen(placed[0]!, view, repeats)
             return (
               <>
-                <Line points={pixels(placed.map(inDesignUnits))} closed stroke="#6b4f2a" strokeWidth={2} dash={[6, 4]} fill="rgba(215,155,31,0.15)" />
-                <Text x={x + 4} y={y + 4} text={`cut ${formatSize(current.roughCut.widthIn, current.roughCut.heightIn, design.units)}`} fontSize={12} fill="#6b4f2a" />
+                <Line points={pixels(placed)} closed stroke="#6b4f2a" strokeWidth={2} dash={[6, 4]} fill="rgba(215,155,31,0.15)" />
+                <Text x={x + 4} y={y + 4} text={`cut ${formatSize(current.planned.roughCut.widthIn, current.planned.roughCut.heightIn, design.units)}`} fontSize={12} fill="#6b4f2a" />
               </>
             )
           })()}
           {leaves
-            .filter((leaf) => current.leavesBefore.includes(leaf.id))
+            .filter((leaf) => current.planned.leavesBefore.includes(leaf.id))
             .map((leaf) => (
               <Line key={leaf.id} points={pixels(leaf.layers[0]!.outline)} closed stroke="#d79b1f" strokeWidth={3} />
             ))}
@@ -93,9 +91,9 @@ export function OverlayShapes({ store, design, plan, view, width }: { store: Boa
         return <Circle x={x} y={y} radius={5} stroke="#a3392b" strokeWidth={2} />
       })()}
       {draft.curl && <Line points={pixels(draft.curl)} stroke="#4a3a2a" strokeWidth={2} tension={0.5} dash={[4, 3]} />}
-      {shownProblem !== null && plan.plan?.problems[shownProblem] && (() => {
-        const problem = plan.plan.problems[shownProblem]!
-        const [x, y] = toScreen(inDesignUnits(problem.at), view, repeats)
+      {shownProblem !== null && plan.problems[shownProblem] && (() => {
+        const problem = plan.problems[shownProblem]!
+        const [x, y] = toScreen(problem.at, view, repeats)
         const error = problem.severity === 'error'
         return (
           // The message box opens to the left when it would run off the board's right edge.

@@ -1,7 +1,7 @@
 'use client'
 
 import { useDeferredValue, useMemo } from 'react'
-import { boardPlan, fabricOfArea, sewingSteps } from '@/lib/board/board-plan'
+import { boardPlan } from '@/lib/board/board-plan'
 import { formatSize } from '@/lib/units'
 import { design as designOf, type BoardStore } from '@/lib/board/store'
 import type { JoinTree } from '@/geometry'
@@ -29,7 +29,7 @@ export function PlanPanel({ store }: { store: BoardStore }) {
   const plannedDesign = useDeferredValue(design)
   const result = useMemo(() => boardPlan(plannedDesign), [plannedDesign])
   const plan = result.plan
-  const steps = useMemo(() => (plan ? sewingSteps(plan) : []), [plan])
+  const steps = result.steps
   const current = step !== null && steps.length > 0 ? steps[Math.min(step, steps.length - 1)] : undefined
   const errors = plan?.problems.filter((p) => p.severity === 'error') ?? []
   const warnings = plan?.problems.filter((p) => p.severity === 'warning') ?? []
@@ -115,10 +115,10 @@ export function PlanPanel({ store }: { store: BoardStore }) {
           </div>
           {current && (
             <p className="text-xs" data-testid="current-step" aria-live="polite">
-              <strong>Step {(step ?? 0) + 1} of {steps.length}: {current.label}</strong> — {fabricOfArea(design, result, current.id) ?? 'no fabric yet'}.{' '}
-              {current.leavesBefore.length > 0 && <>First baste {current.leavesBefore.map(describeLeaf).join('; ')} in place. </>}
+              <strong>Step {(step ?? 0) + 1} of {steps.length}: {current.label}</strong> — {current.fabric ?? 'no fabric yet'}.{' '}
+              {current.planned.leavesBefore.length > 0 && <>First baste {current.planned.leavesBefore.map(describeLeaf).join('; ')} in place. </>}
               {current.sewnAlong ? 'Lay the piece right side down over the sewn areas, sew on the marked line, flip and press.' : 'Place the piece wrong side to the unprinted side of the paper.'}{' '}
-              Cut {formatSize(current.roughCut.widthIn, current.roughCut.heightIn, units)}.
+              Cut {formatSize(current.planned.roughCut.widthIn, current.planned.roughCut.heightIn, units)}.
             </p>
           )}
         </div>
@@ -131,11 +131,11 @@ export function PlanPanel({ store }: { store: BoardStore }) {
               <strong>Section {section.label}</strong>
               <ol className="ml-3 list-decimal">
                 {section.order.map((id) => {
-                  const area = plan.areas.find((a) => a.id === id)!
+                  const area = result.areas.find((a) => a.id === id)!
                   return (
                     <li key={id} className="ml-2">
-                      {area.label} · {fabricOfArea(design, result, id) ?? '—'} · cut {formatSize(area.roughCut.widthIn, area.roughCut.heightIn, units)}
-                      {area.leavesBefore.length > 0 && <> · baste {area.leavesBefore.join(', ')} first</>}
+                      {area.label} · {area.fabric ?? '—'} · cut {formatSize(area.planned.roughCut.widthIn, area.planned.roughCut.heightIn, units)}
+                      {area.planned.leavesBefore.length > 0 && <> · baste {area.planned.leavesBefore.join(', ')} first</>}
                     </li>
                   )
                 })}

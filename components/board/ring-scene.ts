@@ -38,7 +38,7 @@ export interface RingScene {
 /** Everything to draw, in design units, with every repeat placed by its transform. */
 export function ringScene(design: BoardDesign, plan: BoardPlan, colours: Readonly<Record<string, string>>): RingScene {
   const colourOf = (fabric: string | null) => (fabric ? colours[fabric] ?? UNKNOWN_FABRIC : UNFILLED)
-  const areas = areaShapes(design, plan)
+  const areas = areaShapes(plan)
   const leaves = leafShapes(design)
   const outline = repeatOutlinePolygon(design)
   return {

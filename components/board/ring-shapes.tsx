@@ -29,7 +29,7 @@ export function RingShapes({ store, design, plan, view }: { store: BoardStore; d
     [design.colorways, colorwayName],
   )
   const scene = useMemo(() => ringScene(design, plan, colours), [design, plan, colours])
-  const labels = useMemo(() => areaShapes(design, plan).filter((area) => area.label), [design, plan])
+  const labels = useMemo(() => areaShapes(plan).filter((area) => area.label), [plan])
   const sections = sectionOutlines(plan)
   const repeats = design.ring.repeats
   const labelSize = Math.max(9, Math.min(16, view.zoom * (design.units === 'cm' ? 0.35 : 0.9)))
@@ -72,8 +72,8 @@ export function RingShapes({ store, design, plan, view }: { store: BoardStore; d
           />
         )
       })}
-      {plan.plan?.problems.map((problem, index) => {
-        const [x, y] = toScreen([problem.at[0] * plan.unitsPerInch, problem.at[1] * plan.unitsPerInch], view, repeats)
+      {plan.problems.map((problem, index) => {
+        const [x, y] = toScreen(problem.at, view, repeats)
         const error = problem.severity === 'error'
         return (
           <Fragment key={`problem-${index}`}>

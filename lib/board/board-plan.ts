@@ -1,18 +1,46 @@
 /**
- * The sewing plan of the design on the board, in the design's own units for drawing. Computed by
- * the geometry core from the design; it is never a state of its own and never undone.
+ * The sewing plan of the design on the board. The core plans in inches; this file converts what
+ * the board draws and hit-tests (areas, sewing lines, rough-cut pieces, problem markers, section
+ * outlines) to the design's own units once, here, so no component converts on its own. Computed
+ * from the design; it is never a state of its own and never undone.
  */
-import { fabricsOfAreas, planDesign, sectionOutline, type Plan } from '@/geometry'
+import { fabricsOfAreas, planDesign, roughCutBeforeFlip, sectionOutline, type Plan, type PlanArea, type Problem } from '@/geometry'
 import { parseDesign, type DesignIssue } from '@/lib/schemas/design'
+import { unitsPerInch } from '@/lib/units'
 import type { BoardDesign } from './commands'
 
 type Point = readonly [number, number]
 
+/** An area of the plan as the board draws it: every point in design units. */
+export interface BoardArea {
+  /** The core's area, in inches: its label, step, rough-cut size and leaves, for the texts. */
+  readonly planned: PlanArea
+  readonly id: string
+  readonly label: string | null
+  readonly polygon: readonly Point[]
+  /** Where its label goes, inside the area. */
+  readonly labelAt: Point
+  /** The line it is sewn along, or null for the first area of a section. */
+  readonly sewnAlong: readonly Point[] | null
+  /** The rough-cut piece as it lies before the flip (after it, for a first area). */
+  readonly roughCutPlaced: readonly Point[]
+  /** The fabric of the last fill inside it (the core's rule), or null. */
+  readonly fabric: string | null
+}
+
+/** A problem of the plan with its place in design units. */
+export type BoardProblem = Problem & { readonly at: Point }
+
 export interface BoardPlan {
-  /** Null when the design itself is not a valid design file (e.g. an inner radius past the outer). */
+  /** The core's plan, in inches (null when the design is not a valid design file, e.g. an inner radius past the outer). */
   readonly plan: Plan | null
   readonly issues: readonly DesignIssue[]
-  /** Design units per inch: 1 for inches, 2.54 for centimetres. */
+  /** The plan's areas in design units, in the plan's order. */
+  readonly areas: readonly BoardArea[]
+  /** The same areas in sewing order: section by section, step by step. */
+  readonly steps: readonly BoardArea[]
+  readonly problems: readonly BoardProblem[]
+  /** Design units per inch: 1 for inches, 2.54 for centimetres (for section outlines, below). */
   readonly unitsPerInch: number
 }
 
@@ -22,23 +50,41 @@ const planCache = new WeakMap<BoardDesign, BoardPlan>()
 export function boardPlan(design: BoardDesign): BoardPlan {
   const cached = planCache.get(design)
   if (cached) return cached
-  const unitsPerInch = design.units === 'cm' ? 2.54 : 1
+  const factor = unitsPerInch(design.units)
   const parsed = parseDesign(design)
   const result: BoardPlan = parsed.ok
-    ? { plan: planDesign(parsed.design), issues: [], unitsPerInch }
-    : { plan: null, issues: parsed.issues, unitsPerInch }
+    ? inDesignUnits(planDesign(parsed.design), parsed.design.fills, factor)
+    : { plan: null, issues: parsed.issues, areas: [], steps: [], problems: [], unitsPerInch: factor }
   planCache.set(design, result)
   return result
 }
 
-/** Converts a point of the plan (inches) to the design's units. */
-export const toDesignUnits = (point: Point, unitsPerInch: number): [number, number] => [point[0] * unitsPerInch, point[1] * unitsPerInch]
+/** The one conversion of the plan's inches to the design's units. */
+const toDesignUnits = (point: Point, factor: number): [number, number] => [point[0] * factor, point[1] * factor]
+
+function inDesignUnits(plan: Plan, fillsInInches: Parameters<typeof fabricsOfAreas>[0], factor: number): BoardPlan {
+  const convert = (points: readonly Point[]) => points.map((p) => toDesignUnits(p, factor))
+  const fabrics = fabricsOfAreas(fillsInInches, plan.areas)
+  const areas = plan.areas.map((area): BoardArea => ({
+    planned: area,
+    id: area.id,
+    label: area.label,
+    polygon: convert(area.polygon),
+    labelAt: toDesignUnits(area.point, factor),
+    sewnAlong: area.sewnAlong ? convert(area.sewnAlong) : null,
+    // Before the flip the piece lies right side down over the sewn areas, mirrored across the sewing line.
+    roughCutPlaced: convert(area.sewnAlong ? roughCutBeforeFlip(area.roughCut, area.sewnAlong) : area.roughCut.corners),
+    fabric: fabrics.get(area.id) ?? null,
+  }))
+  const byId = new Map(areas.map((area) => [area.id, area]))
+  const steps = plan.sections.flatMap((section) => section.order.flatMap((id) => byId.get(id) ?? []))
+  const problems = plan.problems.map((problem) => ({ ...problem, at: toDesignUnits(problem.at, factor) }))
+  return { plan, issues: [], areas, steps, problems, unitsPerInch: factor }
+}
 
 /** The area of the plan that contains a point (design units), if any. */
-export function areaAt(result: BoardPlan, point: Point): Plan['areas'][number] | null {
-  if (!result.plan) return null
-  const inches: Point = [point[0] / result.unitsPerInch, point[1] / result.unitsPerInch]
-  return result.plan.areas.find((area) => isInside(inches, area.polygon)) ?? null
+export function areaAt(result: BoardPlan, point: Point): BoardArea | null {
+  return result.areas.find((area) => isInside(point, area.polygon)) ?? null
 }
 
 function isInside(point: Point, polygon: readonly Point[]): boolean {
@@ -49,22 +95,6 @@ function isInside(point: Point, polygon: readonly Point[]): boolean {
     if (yi > point[1] !== yj > point[1] && point[0] < ((xj - xi) * (point[1] - yi)) / (yj - yi) + xi) inside = !inside
   }
   return inside
-}
-
-/** Every sewing step of the plan in order: section by section, area by area. */
-export function sewingSteps(plan: Plan) {
-  const byId = new Map(plan.areas.map((area) => [area.id, area]))
-  return plan.sections.flatMap((section) => section.order.map((id) => byId.get(id)!).filter(Boolean))
-}
-
-/** The design's fills with their points in inches, as the plan's areas are. */
-export function inchFills(design: BoardDesign, result: BoardPlan) {
-  return design.fills.map((fill) => ({ ...fill, at: [fill.at[0] / result.unitsPerInch, fill.at[1] / result.unitsPerInch] as const }))
-}
-
-/** The fabric of an area (the core's rule: the last fill inside it). */
-export function fabricOfArea(design: BoardDesign, result: BoardPlan, areaId: string): string | null {
-  return result.plan ? fabricsOfAreas(inchFills(design, result), result.plan.areas).get(areaId) ?? null : null
 }
 
 export interface SectionOutline {

@@ -2,7 +2,7 @@
  * What the pointer does on the board, tool by tool, in the design's units. The canvas turns
  * screen pixels into design units and calls these; the tests call them directly.
  */
-import type { DesignFile } from '@/lib/schemas/design'
+import { unitsPerInch } from '@/lib/units'
 import { areaAt, boardPlan } from './board-plan'
 import { hitTest, projectOntoSeam } from './hit-test'
 import { snapSeamEnd, type Point } from './snapping'
@@ -36,7 +36,6 @@ export interface PointerController {
   commit(): void
 }
 
-const unitsPerInch = (file: Pick<DesignFile, 'units'>) => (file.units === 'cm' ? 2.54 : 1)
 
 /**
  * Creates the pointer behaviour for a store. `tolerance()` is how near (in design units) the
@@ -65,7 +64,7 @@ export function createPointerController(store: BoardStore, tolerance: () => numb
     down(point, modifiers) {
       const state = store.getState()
       const current = design(state)
-      const scale = unitsPerInch(current)
+      const scale = unitsPerInch(current.units)
       switch (state.tool) {
         case 'select': {
           const hit = hitTest(current, point, tolerance())
@@ -140,7 +139,7 @@ export function createPointerController(store: BoardStore, tolerance: () => numb
           const sections = state.handOrderDraft && state.handOrderDraft.length > 0 ? state.handOrderDraft : [[]]
           const already = sections.some((section) => section.some((p) => areaAt(plan, p)?.id === area.id))
           if (already) return
-          const at: Point = [area.point[0] * scale, area.point[1] * scale]
+          const at: Point = [area.labelAt[0], area.labelAt[1]]
           return store.update({ handOrderDraft: [...sections.slice(0, -1), [...sections[sections.length - 1]!, at]] })
         }
       }
