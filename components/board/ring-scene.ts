@@ -7,6 +7,7 @@ import type { BoardPlan } from '@/lib/board/board-plan'
 import type { BoardDesign } from '@/lib/board/commands'
 import type { View } from '@/lib/board/store'
 import { toScreen } from '@/lib/board/view'
+import { mapSmoothCurve, smoothCurve, type SmoothCurve } from '@/geometry/smooth-curve'
 import { areaShapes, leafShapes, repeatOutlinePolygon, ringTransforms, transformPoints, type Point } from './board-geometry'
 
 const UNFILLED = '#ffffff'
@@ -26,7 +27,8 @@ interface RepeatScene {
   readonly areas: readonly Filled[]
   readonly seams: readonly (readonly [Point, Point])[]
   readonly leaves: readonly Filled[]
-  readonly curls: readonly (readonly Point[])[]
+  /** Each curl's smooth curve (the one the booklet prints), placed in this repeat. */
+  readonly curls: readonly SmoothCurve[]
   readonly berries: readonly { readonly at: Point; readonly radius: number; readonly colour: string }[]
 }
 
@@ -41,6 +43,7 @@ export function ringScene(design: BoardDesign, plan: BoardPlan, colours: Readonl
   const areas = areaShapes(plan)
   const leaves = leafShapes(design)
   const outline = repeatOutlinePolygon(design)
+  const curls = design.curls.map((curl) => smoothCurve(curl.points))
   return {
     repeats: ringTransforms(design).map((transform, k) => ({
       opacity: k === 0 ? 1 : OTHER_REPEATS_OPACITY,
@@ -48,7 +51,7 @@ export function ringScene(design: BoardDesign, plan: BoardPlan, colours: Readonl
       areas: areas.map((area) => ({ points: transformPoints(transform, area.polygon), colour: colourOf(area.fabric) })),
       seams: design.seams.map((seam) => transformPoints(transform, [seam.from, seam.to]) as unknown as [Point, Point]),
       leaves: leaves.flatMap((leaf) => leaf.layers.map((layer) => ({ points: transformPoints(transform, layer.outline), colour: colourOf(layer.fabric) }))),
-      curls: design.curls.map((curl) => transformPoints(transform, curl.points)),
+      curls: curls.map((curve) => mapSmoothCurve(curve, (p) => transformPoints(transform, [p])[0]!)),
       berries: design.berries.map((berry) => ({
         at: transformPoints(transform, [berry.at])[0]!,
         radius: berry.finishedDiameter / 2,
@@ -128,7 +131,7 @@ export function drawRingScene(context: CanvasRenderingContext2D, scene: RingScen
     context.setLineDash([4, 3])
     for (const curl of repeat.curls) {
       context.beginPath()
-      traceSmoothCurve(context, curl.map((p) => toScreen(p, view, repeats)))
+      traceSmoothCurve(context, mapSmoothCurve(curl, (p) => toScreen(p, view, repeats)))
       context.stroke()
     }
     context.setLineDash([])
@@ -146,18 +149,12 @@ export function drawRingScene(context: CanvasRenderingContext2D, scene: RingScen
 }
 
 /**
- * A smooth curve through the points (a Catmull-Rom spline as cubic Béziers), as an embroidered
- * stem is stitched: the designer gives a few points, the thread follows a curve through them.
+ * Adds a curl's curve (geometry's smooth curve, already in screen pixels) to the canvas path, as
+ * an embroidered stem is stitched: the designer gives a few points, the thread follows a curve
+ * through them. The booklet draws the same Bézier pieces.
  */
-export function traceSmoothCurve(context: Pick<CanvasRenderingContext2D, 'moveTo' | 'lineTo' | 'bezierCurveTo'>, points: readonly (readonly [number, number])[]): void {
-  if (points.length === 0) return
-  context.moveTo(points[0]![0], points[0]![1])
-  if (points.length === 2) return context.lineTo(points[1]![0], points[1]![1])
-  for (let i = 0; i < points.length - 1; i += 1) {
-    const p0 = points[Math.max(0, i - 1)]!
-    const p1 = points[i]!
-    const p2 = points[i + 1]!
-    const p3 = points[Math.min(points.length - 1, i + 2)]!
-    context.bezierCurveTo(p1[0] + (p2[0] - p0[0]) / 6, p1[1] + (p2[1] - p0[1]) / 6, p2[0] - (p3[0] - p1[0]) / 6, p2[1] - (p3[1] - p1[1]) / 6, p2[0], p2[1])
-  }
+export function traceSmoothCurve(context: Pick<CanvasRenderingContext2D, 'moveTo' | 'bezierCurveTo'>, curve: SmoothCurve): void {
+  if (curve.pieces.length === 0) return
+  context.moveTo(curve.start[0], curve.start[1])
+  for (const [c1, c2, end] of curve.pieces) context.bezierCurveTo(c1[0], c1[1], c2[0], c2[1], end[0], end[1])
 }

@@ -9,7 +9,7 @@ import { font } from './chrome'
 import { startPage, type BookletContext } from './context'
 import { fitView, rgb, solidPen, toPage, traceCurve, tracePath, tracePolygon, type View } from './draw'
 import { bindingLengthInches, cuttingList } from './fabric-list'
-import { fabricColour, type BookletModel } from './model'
+import { fabricColour, UNASSIGNED_FABRIC, type BookletModel } from './model'
 import { PAPERS } from './paper'
 import { startFlow } from './flow'
 
@@ -109,12 +109,60 @@ export function writeCover(context: BookletContext): void {
     doc.text(fact, x, line)
     line += 14
   }
+  const missing = missingFabrics(model)
+  if (missing.length > 0) {
+    font(doc, 10, 'bold', 0)
+    const warning: string[] = doc.splitTextToSize(`Fabrics not chosen yet: ${missing.join(' ')} These parts are printed grey (the cutting list counts areas without a fabric under "unassigned"). Choose their fabrics on the drafting board before cutting.`, width)
+    doc.text(warning, x, line + 4)
+    line += warning.length * 12 + 6
+  }
   if (!model.plan.sewable) {
     font(doc, 10, 'bold', 0)
     const problems: string[] = doc.splitTextToSize(`This design cannot be sewn as it stands: ${model.plan.problems.filter((p) => p.severity === 'error').map((p) => p.message).join(' ')}`, width)
     doc.text(problems, x, line + 4)
   }
   writeFabricPages(context)
+}
+
+/** "A1, A2 and B1". */
+const listInWords = (items: readonly string[]): string =>
+  items.length <= 1 ? items.join('') : `${items.slice(0, -1).join(', ')} and ${items[items.length - 1]}`
+
+/**
+ * Which parts of the design have no fabric, in plain words, one sentence each: areas no fill
+ * names, and fabric roles (of areas, leaves, the stem ring, berries) without a colour in the
+ * colourway, or every role when the design has no colourway. Empty when every part has one.
+ *
+ * @example missingFabrics(model) // ['No area has a fabric: A1, A2 and B1 have none.']
+ */
+export function missingFabrics(model: BookletModel): string[] {
+  const { design, plan, colorway } = model
+  const sentences: string[] = []
+  const unfilled = plan.areas.filter((area) => model.fabricOf.get(area.id) === UNASSIGNED_FABRIC)
+  if (unfilled.length > 0) {
+    const named = unfilled.map((area) => area.label).filter((label): label is string => label !== null).sort()
+    const which = named.length === unfilled.length ? listInWords(named) : `${unfilled.length} area${unfilled.length === 1 ? '' : 's'}`
+    sentences.push(unfilled.length === plan.areas.length
+      ? `No area has a fabric: ${which} ${unfilled.length === 1 ? 'has' : 'have'} none.`
+      : `Area${unfilled.length === 1 ? '' : 's'} ${which} ${unfilled.length === 1 ? 'has' : 'have'} no fabric.`)
+  }
+  const uses = new Map<string, Set<string>>()
+  const use = (fabric: string, part: string): void => {
+    if (fabric === UNASSIGNED_FABRIC) return
+    uses.set(fabric, (uses.get(fabric) ?? new Set<string>()).add(part))
+  }
+  for (const fabric of model.fabricOf.values()) use(fabric, 'areas')
+  for (const leaf of design.leaves) leaf.layers.forEach((fabric) => use(fabric, 'leaves'))
+  for (const stem of design.stems) use(stem.fabric, 'the stem ring')
+  for (const berry of design.berries) use(berry.fabric, 'berries')
+  const uncoloured = [...uses.entries()].filter(([fabric]) => !colorway?.fabrics[fabric]).sort(([a], [b]) => a.localeCompare(b))
+  if (uncoloured.length > 0) {
+    const list = listInWords(uncoloured.map(([fabric, parts]) => `${fabric} (${[...parts].join(', ')})`))
+    sentences.push(colorway
+      ? `The colourway ${colorway.name} gives no colour to ${list}.`
+      : `The design has no colourway, so no fabric has a colour: ${list}.`)
+  }
+  return sentences
 }
 
 function writeFabricPages(context: BookletContext): void {

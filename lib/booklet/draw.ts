@@ -10,7 +10,7 @@
  * test squares back from the operator list).
  */
 import type { jsPDF } from 'jspdf'
-import { arcSweep, type ArcPathSegment, type OutlinePath, type Point, type Polygon } from '@/geometry'
+import { arcSweep, type ArcPathSegment, type OutlinePath, type Point, type Polygon, type SmoothCurve } from '@/geometry'
 import { POINTS_PER_INCH } from '@/lib/units'
 
 /** Where design inches land on the page: `scale` points per inch (72 at true scale). */
@@ -111,6 +111,18 @@ export function tracePolygon(doc: jsPDF, view: View, polygon: Polygon, close = t
     else doc.lineTo(...toPage(view, point))
   })
   if (close && polygon.length > 0) doc.close()
+}
+
+/**
+ * Adds a curl's smooth curve (`smoothCurve` of geometry, design coordinates) to the current PDF
+ * path as the same cubic Bézier pieces the board draws, open.
+ *
+ * @example traceCurve(doc, view, smoothCurve(curl.points)); doc.stroke()
+ */
+export function traceCurve(doc: jsPDF, view: View, curve: SmoothCurve): void {
+  if (curve.pieces.length === 0) return
+  doc.moveTo(...toPage(view, curve.start))
+  for (const [c1, c2, end] of curve.pieces) doc.curveTo(...toPage(view, c1), ...toPage(view, c2), ...toPage(view, end))
 }
 
 /**

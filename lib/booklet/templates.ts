@@ -19,20 +19,38 @@ interface Template {
   readonly draw: (doc: jsPDF, left: number, top: number) => void
 }
 
+/**
+ * Templates are drawn at the size their label reads: the nearest 1/8 in, the step `formatInches`
+ * writes (rotary rulers are marked in eighths, common practice). A design printed at another
+ * finished diameter scales its leaves and berries to odd sizes (1 3/4 in × 20/18 = 1.944 in);
+ * the label says "2 in" and the template is drawn at exactly 2 in, never at a size the
+ * maker cannot read off it (1/16 in at most from the scaled design, within a maker's tolerance).
+ */
+const LABEL_STEP_INCHES = 1 / 8
+
+/** A size as the label writes it, never below one step. @example labelledSize(1.944) // 2 */
+const labelledSize = (inches: number): number => Math.max(LABEL_STEP_INCHES, Math.round(inches / LABEL_STEP_INCHES) * LABEL_STEP_INCHES)
+
 function leafTemplates(context: BookletContext): Template[] {
   const { design } = context.model
   const sizes = new Map<string, { length: number; width: number; fabrics: Set<string>; count: number }>()
   for (const leaf of design.leaves) {
-    const key = `${leaf.length.toFixed(4)}x${leaf.width.toFixed(4)}`
-    const entry = sizes.get(key) ?? { length: leaf.length, width: leaf.width, fabrics: new Set<string>(), count: 0 }
+    // An impossible leaf is an error of the plan; it gets no template.
+    if (leafShapeProblem(leaf.length, leaf.width)) continue
+    let length = labelledSize(leaf.length)
+    let width = labelledSize(leaf.width)
+    // A leaf so near half a disc that rounding would blunt it keeps its exact size (and label).
+    if (leafShapeProblem(length, width)) [length, width] = [leaf.length, leaf.width]
+    const key = `${length}x${width}`
+    const entry = sizes.get(key) ?? { length, width, fabrics: new Set<string>(), count: 0 }
     leaf.layers.forEach((fabric) => entry.fabrics.add(fabric))
     entry.count += leaf.layers.length * design.ring.repeats
     sizes.set(key, entry)
   }
+  const sizeInWords = (inches: number): string =>
+    inches === labelledSize(inches) ? formatInches(inches) : `${Number(inches.toFixed(3))} in`
   const templates: Template[] = []
   for (const { length, width, fabrics, count } of sizes.values()) {
-    // An impossible leaf is an error of the plan; it gets no template.
-    if (leafShapeProblem(length, width)) continue
     const template = leafTemplate(length, width)
     const xs = template.cutPolygon.map((p) => p[0])
     const ys = template.cutPolygon.map((p) => p[1])
@@ -40,7 +58,7 @@ function leafTemplates(context: BookletContext): Template[] {
     templates.push({
       widthIn: box[2] - box[0],
       heightIn: box[3] - box[1],
-      caption: [`Leaf ${formatInches(length).replace(' in', '')} × ${formatInches(width)}`, `${count} leaves in all: ${[...fabrics].join(', ')}`],
+      caption: [`Leaf ${sizeInWords(length).replace(' in', '')} × ${sizeInWords(width)}`, `${count} leaves in all: ${[...fabrics].join(', ')}`],
       draw: (doc, left, top) => {
         const view = trueScaleView(box[0], box[3], left, top)
         dashedPen(doc, 0.6, [4, 2])
@@ -64,10 +82,10 @@ function leafTemplates(context: BookletContext): Template[] {
 
 function berryTemplates(context: BookletContext): Template[] {
   const { design } = context.model
-  const diameters = [...new Set(design.berries.map((berry) => Math.round(berry.finishedDiameter * 10_000) / 10_000))]
+  const diameters = [...new Set(design.berries.map((berry) => labelledSize(berry.finishedDiameter)))]
   return diameters.map((diameter) => {
     const cut = 2 * diameter + BERRY_EXTRA_INCHES
-    const count = design.berries.filter((b) => Math.abs(b.finishedDiameter - diameter) < 1e-4).length * design.ring.repeats
+    const count = design.berries.filter((b) => labelledSize(b.finishedDiameter) === diameter).length * design.ring.repeats
     return {
       widthIn: cut,
       heightIn: cut,
