@@ -10,7 +10,7 @@ import { orientation } from './orientation'
 import { comparePoints, distance, distanceToSegment, interiorPoint, polygonCentroid, signedArea } from './polygon-measure'
 import { repeatOutline, type RepeatOutline } from './ring'
 import { dropDangling, dropFloating, dropOutside, type Piece } from './seam-pieces'
-import { snapSeamEnds } from './seam-snapping'
+import { snapOutline, snapSeamEnds } from './seam-snapping'
 import { ANGLE_NOISE_DEGREES, ID_DECIMALS, ON_SEGMENT_INCHES, SHARP_ANGLE_DEGREES, SLIVER_AREA_SQ_IN, VERTEX_MERGE_INCHES } from './tolerances'
 import type { Point, Polygon, Problem, Ring, Seam } from './types'
 import { mergeVertices } from './vertex-merge'
@@ -71,12 +71,12 @@ const at = (p: Point): string => `(${format(p[0])}, ${format(p[1])})`
  *   [{ id: 's1', from: [3, 0], to: [0, 3] }]).areas.length // 2
  */
 export function buildArrangement(ring: Ring, seams: readonly Seam[]): Arrangement {
-  const outline = repeatOutline(ring)
   const problems: Problem[] = []
-  // Chord joints are an artefact of drawing arcs as chords: only where the outline changes part
-  // (radial edge to arc) is a corner a seam end should jump to.
-  const corners = outline.polygon.filter((_, i) => outline.parts[i] !== outline.parts[(i - 1 + outline.parts.length) % outline.parts.length])
-  const snapped = snapSeamEnds(outline.polygon, seams, corners).map((s) => s.seam)
+  const snappedEnds = snapSeamEnds(snapOutline(ring), seams)
+  const snapped = snappedEnds.map((s) => s.seam)
+  // Ends snapped onto a true arc become corners of the outline, so they lie on it exactly.
+  const onArcs = snappedEnds.flatMap((s) => [s.seam.from, s.seam.to].filter((_, end) => s.onArc[end]))
+  const outline = repeatOutline(ring, onArcs)
   const segments: Segment[] = outline.polygon.map((a, i) => ({ a, b: outline.polygon[(i + 1) % outline.polygon.length] as Point, seamId: null, splits: [] }))
   const outlineCount = segments.length
   for (const seam of snapped) {

@@ -2,7 +2,7 @@
  * The outline of repeat 0: the annular sector between the inner and outer radius from polar
  * angle 0 to 360°/N, counter-clockwise, with its arcs replaced by chords.
  */
-import { ARC_CHORD_TOLERANCE_INCHES } from './tolerances'
+import { ARC_CHORD_TOLERANCE_INCHES, VERTEX_MERGE_INCHES } from './tolerances'
 import type { Point, Polygon, Ring } from './types'
 
 /** Which part of the outline an outline edge belongs to. Arcs are cut edges, never seams. */
@@ -44,32 +44,62 @@ function polar(radius: number, angle: number): Point {
   return [radius * Math.cos(angle), radius * Math.sin(angle)]
 }
 
+/** The polar angle of a point in [0, 2π). */
+const angleOf = (p: Point): number => {
+  const angle = Math.atan2(p[1], p[0])
+  return angle < 0 ? angle + 2 * Math.PI : angle
+}
+
 /**
- * The outline of repeat 0 as a counter-clockwise polygon with arcs as chords.
+ * The inner points of one arc, by increasing angle: the chord joints, with the given points on the
+ * arc inserted where they fall (a joint within the vertex-merge distance of one gives way to it).
+ */
+function arcPoints(radius: number, span: number, onArc: readonly Point[]): Point[] {
+  const chords = chordCount(radius, span)
+  const joints: { angle: number; point: Point }[] = []
+  for (let i = 1; i < chords; i += 1) joints.push({ angle: (span * i) / chords, point: polar(radius, (span * i) / chords) })
+  const corners: Point[] = [[radius, 0], polar(radius, span)]
+  const extra = onArc
+    .filter((p) => corners.every((corner) => Math.hypot(p[0] - corner[0], p[1] - corner[1]) > VERTEX_MERGE_INCHES))
+    .map((point) => ({ angle: angleOf(point), point }))
+    .filter(({ angle }) => angle > 0 && angle < span)
+  const kept = joints.filter((joint) => extra.every(({ point }) => Math.hypot(point[0] - joint.point[0], point[1] - joint.point[1]) > VERTEX_MERGE_INCHES))
+  const all = [...kept, ...extra].sort((a, b) => a.angle - b.angle)
+  return all.filter((entry, index) => index === 0 || Math.hypot(entry.point[0] - all[index - 1]!.point[0], entry.point[1] - all[index - 1]!.point[1]) > VERTEX_MERGE_INCHES).map(({ point }) => point)
+}
+
+/**
+ * The outline of repeat 0 as a counter-clockwise polygon with arcs as chords. `onArcs` are points
+ * on the true arcs (seam ends snapped onto them, `seam-snapping.ts`) that become corners of the
+ * outline, so a seam ending on an arc ends on the outline exactly; inserting a point on the arc
+ * only brings the chords nearer to it.
  *
  * @example repeatOutline({ innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' }).polygon[0] // [0, 0]
  */
-export function repeatOutline(ring: Ring): RepeatOutline {
+export function repeatOutline(ring: Ring, onArcs: readonly Point[] = []): RepeatOutline {
   const span = repeatSpan(ring)
   const polygon: Point[] = []
   const parts: OutlinePart[] = []
-  const outerChords = chordCount(ring.outerRadius, span)
-  if (ring.innerRadius === 0) {
-    polygon.push([0, 0])
-    parts.push('start-radial')
-  } else {
-    polygon.push(polar(ring.innerRadius, 0))
-    parts.push('start-radial')
+  // Each point goes to the arc it is nearer to.
+  const nearerOuter = (p: Point): boolean => Math.abs(Math.hypot(p[0], p[1]) - ring.outerRadius) <= Math.abs(Math.hypot(p[0], p[1]) - ring.innerRadius)
+  const outerInner = arcPoints(ring.outerRadius, span, ring.innerRadius > 0 ? onArcs.filter(nearerOuter) : onArcs)
+  polygon.push(ring.innerRadius === 0 ? [0, 0] : polar(ring.innerRadius, 0))
+  parts.push('start-radial')
+  // Exact ends at angle 0 (x axis) and the span, so seams drawn on the radial edges meet them.
+  polygon.push([ring.outerRadius, 0])
+  parts.push('outer-arc')
+  for (const point of outerInner) {
+    polygon.push(point)
+    parts.push('outer-arc')
   }
-  for (let i = 0; i <= outerChords; i += 1) {
-    // Exact ends at angle 0 (x axis) and the span, so seams drawn on the radial edges meet them.
-    polygon.push(i === 0 ? [ring.outerRadius, 0] : polar(ring.outerRadius, (span * i) / outerChords))
-    parts.push(i === outerChords ? 'end-radial' : 'outer-arc')
-  }
+  polygon.push(polar(ring.outerRadius, span))
+  parts.push('end-radial')
   if (ring.innerRadius > 0) {
-    const innerChords = chordCount(ring.innerRadius, span)
-    for (let i = innerChords; i >= 1; i -= 1) {
-      polygon.push(polar(ring.innerRadius, (span * i) / innerChords))
+    const inner = arcPoints(ring.innerRadius, span, onArcs.filter((p) => !nearerOuter(p)))
+    polygon.push(polar(ring.innerRadius, span))
+    parts.push('inner-arc')
+    for (let i = inner.length - 1; i >= 0; i -= 1) {
+      polygon.push(inner[i]!)
       parts.push('inner-arc')
     }
     // The last inner point (angle 0) is polygon[0]; the edge into it closes the inner arc.

@@ -6,8 +6,9 @@
  * change the result.
  */
 import { comparePoints, distance, nearestOnSegment } from './polygon-measure'
+import { repeatOutline, repeatSpan } from './ring'
 import { SNAP_DISTANCE_INCHES } from './tolerances'
-import type { Point, Polygon, Seam } from './types'
+import type { Point, Ring, Seam } from './types'
 
 /** How a seam end was attached after snapping. */
 export type EndAttachment = 'outline' | 'seam-end' | 'seam' | 'free'
@@ -15,11 +16,43 @@ export type EndAttachment = 'outline' | 'seam-end' | 'seam' | 'free'
 export interface SnappedSeam {
   readonly seam: Seam
   readonly attachments: readonly [EndAttachment, EndAttachment]
+  /** Whether each end lies on one of the outline's true arcs (not at a corner). */
+  readonly onArc: readonly [boolean, boolean]
+}
+
+/**
+ * What seam ends snap onto: the outline's true corners, its straight (radial) edges and its true
+ * arcs, centred on the origin from angle 0 to `span`. Never the chords: they lie up to the chord
+ * tolerance inside an outer arc (and outside an inner one), so measuring to them would snap an end
+ * beyond the outer arc at one angle and not at another, and leave one near the inner arc dangling.
+ */
+export interface SnapOutline {
+  readonly corners: readonly Point[]
+  readonly edges: readonly (readonly [Point, Point])[]
+  readonly arcs: readonly { readonly radius: number; readonly span: number }[]
+}
+
+/**
+ * The snap targets of a ring's repeat 0.
+ *
+ * @example snapOutline({ innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' }).corners // [[0, 0], [9, 0], ≈ [0, 9]]
+ */
+export function snapOutline(ring: Ring): SnapOutline {
+  const { polygon, parts } = repeatOutline(ring)
+  const span = repeatSpan(ring)
+  // Only where the outline changes part (radial edge to arc) is a corner; chord joints are not.
+  const corners = polygon.filter((_, i) => parts[i] !== parts[(i - 1 + parts.length) % parts.length])
+  const edges = polygon
+    .map((a, i): readonly [Point, Point] => [a, polygon[(i + 1) % polygon.length]!])
+    .filter((_, i) => parts[i] === 'start-radial' || parts[i] === 'end-radial')
+  const arcs = [{ radius: ring.outerRadius, span }, ...(ring.innerRadius > 0 ? [{ radius: ring.innerRadius, span }] : [])]
+  return { corners, edges, arcs }
 }
 
 interface End {
   point: Point
   attachment: EndAttachment
+  onArc: boolean
   /** Ends snapped together share a cluster number (the index of one of them). */
   cluster: number
   /** For an end snapped onto another seam's middle: that seam's index, to re-project. */
@@ -28,22 +61,23 @@ interface End {
 
 /**
  * Snaps seam ends onto the outline (its true corners first: the joints between radial edges and
- * arcs, not the joints between chords), onto each other, then onto the nearest seam (a crossing
- * of two seams first). Returns the seams in the input order with moved ends.
+ * arcs, not the joints between chords; then its radial edges and its true arcs), onto each other,
+ * then onto the nearest seam (a crossing of two seams first). Returns the seams in the input order
+ * with moved ends.
  *
- * @example snapSeamEnds(outline, [{ id: 's1', from: [0.004, 1], to: [3, 2.999] }])
+ * @example snapSeamEnds(snapOutline(ring), [{ id: 's1', from: [0.004, 1], to: [3, 2.999] }])
  */
-export function snapSeamEnds(outline: Polygon, seams: readonly Seam[], corners: readonly Point[] = outline): SnappedSeam[] {
+export function snapSeamEnds(outline: SnapOutline, seams: readonly Seam[]): SnappedSeam[] {
   const ends: End[] = []
   for (const seam of seams) {
-    ends.push(snapToOutline(seam.from, seam.to, outline, corners), snapToOutline(seam.to, seam.from, outline, corners))
+    ends.push(snapToOutline(seam.from, seam.to, outline), snapToOutline(seam.to, seam.from, outline))
   }
   clusterEnds(ends)
   snapToSeams(ends, seams.length)
   return seams.map((seam, index) => {
     const from = ends[2 * index] as End
     const to = ends[2 * index + 1] as End
-    return { seam: { id: seam.id, from: from.point, to: to.point }, attachments: [from.attachment, to.attachment] }
+    return { seam: { id: seam.id, from: from.point, to: to.point }, attachments: [from.attachment, to.attachment], onArc: [from.onArc, to.onArc] }
   })
 }
 
@@ -86,10 +120,40 @@ function snapCandidate(point: Point, other: Point, a: Point, b: Point): { readon
   return { point: nearestOnSegment(point, a, b).point, alongSeam: false }
 }
 
-function snapToOutline(point: Point, other: Point, outline: Polygon, corners: readonly Point[]): End {
+/**
+ * The point of a true arc (centred on the origin, angles 0 to span) a seam end snaps to: where the
+ * seam's own line meets the circle when that is near, else straight out along the radius. Null
+ * when the end is farther than the snap distance from the arc (or beyond its ends).
+ */
+function arcCandidate(point: Point, other: Point, radius: number, span: number): { readonly point: Point; readonly alongSeam: boolean } | null {
+  const onArc = (p: Point): boolean => {
+    const angle = Math.atan2(p[1], p[0])
+    return (angle >= 0 ? angle : angle + 2 * Math.PI) <= span
+  }
+  const r = Math.hypot(point[0], point[1])
+  if (!(r > 0) || Math.abs(r - radius) > SNAP_DISTANCE_INCHES) return null
+  // The seam's line other + t·(point − other) meets the circle where |…| = radius: t² a + 2 t b + c = 0.
+  const dx = point[0] - other[0]
+  const dy = point[1] - other[1]
+  const a = dx * dx + dy * dy
+  const b = other[0] * dx + other[1] * dy
+  const c = other[0] * other[0] + other[1] * other[1] - radius * radius
+  const discriminant = b * b - a * c
+  if (a > 0 && discriminant >= 0) {
+    const root = Math.sqrt(discriminant)
+    // The crossing nearest the end (t = 1).
+    const t = [(-b - root) / a, (-b + root) / a].sort((p, q) => Math.abs(p - 1) - Math.abs(q - 1))[0]!
+    const along: Point = [other[0] + t * dx, other[1] + t * dy]
+    if (distance(along, point) <= SNAP_DISTANCE_INCHES && onArc(along)) return { point: along, alongSeam: true }
+  }
+  const radial: Point = [(point[0] * radius) / r, (point[1] * radius) / r]
+  return onArc(radial) ? { point: radial, alongSeam: false } : null
+}
+
+function snapToOutline(point: Point, other: Point, outline: SnapOutline): End {
   let nearestCorner: Point | null = null
   let cornerDistance = SNAP_DISTANCE_INCHES
-  for (const corner of corners) {
+  for (const corner of outline.corners) {
     if (Math.abs(corner[0] - point[0]) > SNAP_DISTANCE_INCHES || Math.abs(corner[1] - point[1]) > SNAP_DISTANCE_INCHES) continue
     const d = distance(point, corner)
     if (d <= cornerDistance) {
@@ -97,24 +161,31 @@ function snapToOutline(point: Point, other: Point, outline: Polygon, corners: re
       cornerDistance = d
     }
   }
-  if (nearestCorner) return { point: nearestCorner, attachment: 'outline', target: -1, cluster: -1 }
-  // Keeping the seam's direction beats being nearest: an end near a chord corner is also near
-  // the neighbouring chord, whose nearest point would turn the seam slightly.
-  let nearest: Point | null = null
+  if (nearestCorner) return { point: nearestCorner, attachment: 'outline', onArc: false, target: -1, cluster: -1 }
+  // Keeping the seam's direction beats being nearest: an end near a radial edge and an arc at
+  // once goes where its own line takes it.
+  let nearest: { point: Point; onArc: boolean } | null = null
   let nearestRank = Infinity
-  for (let i = 0; i < outline.length; i += 1) {
-    const a = outline[i] as Point
-    const b = outline[(i + 1) % outline.length] as Point
-    if (isOutsideBox(point, a, b)) continue
-    if (distance(point, nearestOnSegment(point, a, b).point) > SNAP_DISTANCE_INCHES) continue
-    const candidate = snapCandidate(point, other, a, b)
+  const consider = (candidate: { readonly point: Point; readonly alongSeam: boolean }, onArc: boolean): void => {
     const rank = (candidate.alongSeam ? 0 : SNAP_DISTANCE_INCHES * 2) + distance(point, candidate.point)
     if (rank < nearestRank) {
-      nearest = candidate.point
+      nearest = { point: candidate.point, onArc }
       nearestRank = rank
     }
   }
-  return nearest ? { point: nearest, attachment: 'outline', target: -1, cluster: -1 } : { point, attachment: 'free', target: -1, cluster: -1 }
+  for (const [a, b] of outline.edges) {
+    if (isOutsideBox(point, a, b)) continue
+    if (distance(point, nearestOnSegment(point, a, b).point) > SNAP_DISTANCE_INCHES) continue
+    consider(snapCandidate(point, other, a, b), false)
+  }
+  for (const { radius, span } of outline.arcs) {
+    const candidate = arcCandidate(point, other, radius, span)
+    if (candidate) consider(candidate, true)
+  }
+  const chosen = nearest as { point: Point; onArc: boolean } | null
+  return chosen
+    ? { point: chosen.point, attachment: 'outline', onArc: chosen.onArc, target: -1, cluster: -1 }
+    : { point, attachment: 'free', onArc: false, target: -1, cluster: -1 }
 }
 
 /** Ends within the snap distance of each other become one point: an outline end if any, else the lowest. */
@@ -149,10 +220,13 @@ function clusterEnds(ends: End[]): void {
     if (members.length < 2) continue
     const onOutline = members.filter((i) => (ends[i] as End).attachment === 'outline')
     const pool = onOutline.length > 0 ? onOutline : members
-    const chosen = pool.map((i) => (ends[i] as End).point).sort(comparePoints)[0] as Point
+    const chosenEnd = [...pool].sort((p, q) => comparePoints((ends[p] as End).point, (ends[q] as End).point))[0] as number
+    const chosen = (ends[chosenEnd] as End).point
+    const chosenOnArc = (ends[chosenEnd] as End).onArc
     for (const i of members) {
       const end = ends[i] as End
       end.point = chosen
+      end.onArc = chosenOnArc
       if (end.attachment !== 'outline') end.attachment = onOutline.length > 0 ? 'outline' : 'seam-end'
     }
   }

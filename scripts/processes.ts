@@ -43,7 +43,9 @@ export function stopProcess(child: ChildProcess | undefined): Promise<void> {
     const timer = setTimeout(() => {
       try {
         process.kill(-child.pid!, 'SIGKILL')
-      } catch {}
+      } catch {
+        // The group ended by itself between the timer and the kill: nothing left to stop.
+      }
     }, 5_000)
     child.once('exit', () => (clearTimeout(timer), resolve()))
     try {

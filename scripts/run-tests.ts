@@ -1,10 +1,12 @@
 /**
  * npm test — every test, against real services started here and stopped at the end:
- *   1. a throwaway PostgreSQL cluster in a temporary folder, on a free loopback port;
- *   2. unit and integration tests (vitest), the integration ones against that database;
- *   3. the app built and started on a free port with demo data in a second database;
- *   4. end-to-end tests in headless Debian Chromium (playwright-core) against it.
- * Exits non-zero if anything failed. Pass vitest filters after `--`, e.g. `npm test -- shelf`.
+ *   1. ESLint and knip (unused files, exports, dependencies) over the whole project, as `npm run lint`;
+ *   2. a throwaway PostgreSQL cluster in a temporary folder, on a free loopback port;
+ *   3. unit and integration tests (vitest), the integration ones against that database;
+ *   4. the app built and started on a free port with demo data in a second database;
+ *   5. end-to-end tests in headless Debian Chromium (playwright-core) against it.
+ * Exits non-zero if anything failed, a lint finding included. Pass vitest filters after `--`, e.g.
+ * `npm test -- shelf`; they narrow the tests, never the lint, which always covers every file.
  */
 import fs from 'node:fs'
 import os from 'node:os'
@@ -58,12 +60,16 @@ const vitest = (projects: string[], report: string, env: NodeJS.ProcessEnv) =>
     `--outputFile.json=${report}`, ...(filters.length > 0 ? ['--passWithNoTests', ...filters] : [])], env)
 
 const failedSteps: string[] = []
+const baseEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: '1' }
+// Lint first: it needs no services, and a finding fails the run however the tests go.
+console.log('\n== lint (ESLint, then knip for unused files, exports and dependencies) ==')
+if ((await run('npx', ['eslint', '--max-warnings', '0', '.'], baseEnv)) !== 0) failedSteps.push('lint')
+if ((await run('npx', ['knip'], baseEnv)) !== 0) failedSteps.push('unused code')
 try {
   const databasePort = await freePort()
   cluster = startCluster(path.join(workFolder, 'postgres'), databasePort, { throwaway: true })
   cluster.createDatabase('wreathwright_test')
   cluster.createDatabase('wreathwright_e2e')
-  const baseEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: '1' }
 
   console.log('\n== unit and integration tests ==')
   const testEnv = { ...baseEnv, DATABASE_URL: cluster.url('wreathwright_test'), NODE_ENV: 'test' as const }
