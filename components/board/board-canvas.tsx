@@ -6,7 +6,7 @@ import { Layer, Stage } from 'react-konva'
 import { boardPlan } from '@/lib/board/board-plan'
 import type { PointerController } from '@/lib/board/pointer'
 import { design as designOf, type BoardStore } from '@/lib/board/store'
-import { toScreen, toWorld, zoomAt } from '@/lib/board/view'
+import { toScreen, toWorld } from '@/lib/board/view'
 import { OverlayShapes } from './overlay-shapes'
 import { RingShapes } from './ring-shapes'
 import { useBoard } from './use-board'
@@ -55,7 +55,7 @@ export function BoardCanvas({
       const [x, y] = toScreen(problem.at, state.view, design.ring.repeats)
       if (Math.hypot(x - screen[0], y - screen[1]) <= PROBLEM_MARKER_PIXELS) found = index
     })
-    if (found !== state.shownProblem) store.update({ shownProblem: found })
+    if (found !== state.shownProblem) store.showProblem(found)
   }
 
   // Redraw at most once per animation frame however many store changes a pointer move causes.
@@ -89,8 +89,7 @@ export function BoardCanvas({
         const native = event.evt
         if (panning.current) {
           const [x, y] = panning.current.from
-          const current = store.getState().view
-          store.update({ view: { ...current, centre: [current.centre[0] + native.clientX - x, current.centre[1] + native.clientY - y] } })
+          store.panBy(native.clientX - x, native.clientY - y)
           panning.current = { from: [native.clientX, native.clientY] }
           return
         }
@@ -119,7 +118,7 @@ export function BoardCanvas({
         const position = event.target.getStage()?.getPointerPosition()
         if (!position) return
         const factor = Math.exp(-event.evt.deltaY * 0.0015)
-        store.update({ view: zoomAt(store.getState().view, [position.x, position.y], factor) })
+        store.zoomAt([position.x, position.y], factor)
       }}
     >
       <Layer listening={false}>

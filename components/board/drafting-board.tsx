@@ -6,7 +6,6 @@ import { useCallback, useEffect, useMemo, useRef, useState } from 'react'
 import { actionForKey, boardActions, keyOf, type ActionContext } from '@/lib/board/actions'
 import { createPointerController } from '@/lib/board/pointer'
 import { createBoardStore, type BoardStore } from '@/lib/board/store'
-import { fitView } from '@/lib/board/view'
 import { readViewPreferences, writeViewPreferences } from '@/lib/board/view-preferences'
 import type { DesignFile } from '@/lib/schemas/design'
 import { BoardCanvas } from './board-canvas'
@@ -53,7 +52,7 @@ export function DraftingBoard({ patternId, patternName, revision, design }: { pa
     const saved = readViewPreferences(browserStorage(), patternId)
     const colorway = saved?.colorway && design.colorways?.some((c) => c.name === saved.colorway) ? saved.colorway : undefined
     const created = createBoardStore(design, colorway ? { activeColorway: colorway } : {})
-    if (saved) created.update({ view: { ...created.getState().view, side: saved.side } })
+    if (saved) created.showSide(saved.side)
     return created
   }, [design, patternId])
   const autosave = useAutosave({ patternId, revision, store })
@@ -63,11 +62,7 @@ export function DraftingBoard({ patternId, patternName, revision, design }: { pa
   const [helpOpen, setHelpOpen] = useState(false)
   const pointer = useMemo(() => createPointerController(store, () => CATCH_PIXELS / store.getState().view.zoom), [store])
 
-  const fit = useCallback(() => {
-    const { view } = store.getState()
-    const ring = store.getState().history.present.ring
-    store.update({ view: fitView(ring.outerRadius, size.width, size.height, view.side) })
-  }, [store, size])
+  const fit = useCallback(() => store.fit(size.width, size.height), [store, size])
 
   const context: ActionContext = useMemo(
     () => ({ store, fit, toggleHelp: () => setHelpOpen((open) => !open), canvasCentre: () => [size.width / 2, size.height / 2] }),
@@ -110,7 +105,7 @@ export function DraftingBoard({ patternId, patternName, revision, design }: { pa
       setSize({ width, height })
       if (firstFit.current) {
         firstFit.current = false
-        store.update({ view: fitView(store.getState().history.present.ring.outerRadius, width, height, store.getState().view.side) })
+        store.fit(width, height)
       }
     })
     observer.observe(box)

@@ -26,7 +26,7 @@ export function FabricPanel({ store }: { store: BoardStore }) {
     if (fabrics.some(([existing]) => existing === name)) return setError(`There is already a fabric called ${name}.`)
     setError(null)
     store.run('addFabric', { fabric: name, colour: '#c8b89a' })
-    store.update({ activeFabric: name })
+    store.chooseFabric(name)
     form.reset()
   }
 
@@ -35,7 +35,7 @@ export function FabricPanel({ store }: { store: BoardStore }) {
     while (design.colorways.some((c) => c.name === `Colourway ${n}`)) n += 1
     const name = `Colourway ${n}`
     store.run('addColorway', { name, copyOf: colorway?.name })
-    store.update({ activeColorway: name })
+    store.chooseColorway(name)
   }
 
   return (
@@ -50,7 +50,7 @@ export function FabricPanel({ store }: { store: BoardStore }) {
         <select
           id="colorway"
           value={colorway?.name}
-          onChange={(event) => store.update({ activeColorway: event.target.value })}
+          onChange={(event) => store.chooseColorway(event.target.value)}
           className="flex-1 rounded border border-stone-300 bg-white px-2 py-1 text-sm"
         >
           {design.colorways.map((c) => (
@@ -69,7 +69,7 @@ export function FabricPanel({ store }: { store: BoardStore }) {
             <button
               type="button"
               aria-pressed={activeFabric === fabric}
-              onClick={() => store.update({ activeFabric: fabric, tool: 'fill', handOrderDraft: null })}
+              onClick={() => store.fillWith(fabric)}
               className="flex min-w-0 flex-1 items-center gap-1.5 rounded border border-stone-300 bg-white px-1.5 py-1 text-left text-xs aria-pressed:border-thread-700 aria-pressed:ring-2 aria-pressed:ring-thread-600"
               aria-label={`Fill with ${fabric}`}
             >

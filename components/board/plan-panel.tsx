@@ -48,7 +48,7 @@ export function PlanPanel({ store }: { store: BoardStore }) {
       sections: sections.map((areas, index) => ({ label: String.fromCharCode(65 + index), areas: areas.map((p) => [p[0], p[1]] as [number, number]) })),
       assembly: null,
     })
-    store.update({ tool: 'select', handOrderDraft: null })
+    store.endHandOrder()
   }
 
   return (
@@ -82,8 +82,8 @@ export function PlanPanel({ store }: { store: BoardStore }) {
               <li key={index} data-severity={problem.severity}>
                 <button
                   type="button"
-                  onClick={() => store.update({ shownProblem: index })}
-                  onFocus={() => store.update({ shownProblem: index })}
+                  onClick={() => store.showProblem(index)}
+                  onFocus={() => store.showProblem(index)}
                   className={`w-full rounded border-l-4 bg-white px-2 py-1 text-left ${error ? 'border-madder-600' : 'border-amber-500'}`}
                   title="Show it on the board"
                 >
@@ -101,14 +101,14 @@ export function PlanPanel({ store }: { store: BoardStore }) {
       {steps.length > 0 && (
         <div className="space-y-2 rounded border border-linen-200 bg-white p-2">
           <div className="flex items-center gap-1">
-            <button type="button" className={small} disabled={!current || step === 0} onClick={() => store.update({ step: Math.max(0, (step ?? 0) - 1) })}>
+            <button type="button" className={small} disabled={!current || step === 0} onClick={() => store.previousStep()}>
               ‹ Previous
             </button>
-            <button type="button" className={small} disabled={step !== null && step >= steps.length - 1} onClick={() => store.update({ step: step === null ? 0 : step + 1 })}>
+            <button type="button" className={small} disabled={step !== null && step >= steps.length - 1} onClick={() => store.nextStep()}>
               {step === null ? 'Step through' : 'Next ›'}
             </button>
             {step !== null && (
-              <button type="button" className={small} onClick={() => store.update({ step: null })}>
+              <button type="button" className={small} onClick={() => store.showStep(null)}>
                 Done
               </button>
             )}
@@ -151,13 +151,13 @@ export function PlanPanel({ store }: { store: BoardStore }) {
           <>
             <p className="text-xs text-stone-600">Click the areas in the order you would sew them. Start a new section when a paper is full.</p>
             <div className="flex flex-wrap gap-1">
-              <button type="button" className={small} onClick={() => store.update({ handOrderDraft: [...(handOrder ?? [[]]), []] })}>
+              <button type="button" className={small} onClick={() => store.newHandOrderSection()}>
                 Start the next section
               </button>
               <button type="button" className={small} onClick={checkHandOrder}>
                 Check this order
               </button>
-              <button type="button" className={small} onClick={() => store.update({ handOrderDraft: [[]] })}>
+              <button type="button" className={small} onClick={() => store.restartHandOrder()}>
                 Start again
               </button>
             </div>
@@ -167,7 +167,7 @@ export function PlanPanel({ store }: { store: BoardStore }) {
             Go back to the proposed order
           </button>
         ) : (
-          <button type="button" className={small} onClick={() => store.update({ tool: 'order', handOrderDraft: [[]] })}>
+          <button type="button" className={small} onClick={() => store.chooseTool('order')}>
             Set the order by hand
           </button>
         )}

@@ -61,7 +61,7 @@ export function RingPanel({ store }: { store: BoardStore }) {
               const next = event.target.value as 'in' | 'cm'
               store.run('setUnits', { units: next })
               // The grid follows the units: quarter inches, or half centimetres.
-              store.update({ snapping: { ...store.getState().snapping, gridSize: next === 'cm' ? 0.5 : 0.25 } })
+              store.setSnapping({ gridSize: next === 'cm' ? 0.5 : 0.25 })
             }}
             className="rounded border border-stone-300 bg-white px-1 py-0.5 text-sm"
           >

@@ -69,11 +69,11 @@ export function Toolbar({ context }: { context: ActionContext }) {
       </button>
       <span className="mx-1 h-6 w-px bg-stone-200" aria-hidden />
       <label className="flex items-center gap-1 text-sm">
-        <input type="checkbox" checked={snapping.grid} onChange={(event) => store.update({ snapping: { ...snapping, grid: event.target.checked } })} />
+        <input type="checkbox" checked={snapping.grid} onChange={(event) => store.setSnapping({ grid: event.target.checked })} />
         Grid
       </label>
       <label className="flex items-center gap-1 text-sm">
-        <input type="checkbox" checked={snapping.angles} onChange={(event) => store.update({ snapping: { ...snapping, angles: event.target.checked } })} />
+        <input type="checkbox" checked={snapping.angles} onChange={(event) => store.setSnapping({ angles: event.target.checked })} />
         15° steps
       </label>
       <button type="button" className={`${button} ml-auto`} onClick={() => run('help')} title="Shortcuts (?)">

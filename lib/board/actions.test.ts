@@ -27,7 +27,7 @@ describe('board actions', () => {
 
   it('deletes the selected seam, undoably', () => {
     const s = store()
-    s.update({ selection: { kind: 'seam', id: 's1' } })
+    s.select({ kind: 'seam', id: 's1' })
     boardActions.deleteSelection.run(context(s))
     expect(design(s.getState()).seams).toEqual([])
     boardActions.undo.run(context(s))

@@ -3,7 +3,6 @@
  * shortcut always does exactly what its button does.
  */
 import type { BoardStore, Tool } from './store'
-import { panBy, zoomAt } from './view'
 
 export interface ActionContext {
   readonly store: BoardStore
@@ -24,7 +23,7 @@ export interface BoardAction {
 const tool = (name: Tool, label: string, key: string): BoardAction => ({
   label,
   keys: [key],
-  run: ({ store }) => store.update({ tool: name, handOrderDraft: name === 'order' ? [[]] : null }),
+  run: ({ store }) => store.chooseTool(name),
 })
 
 function deleteSelection({ store }: ActionContext): void {
@@ -34,7 +33,7 @@ function deleteSelection({ store }: ActionContext): void {
   if (selection.kind === 'leaf') store.run('deleteLeaf', { leafId: selection.id })
   if (selection.kind === 'berry') store.run('deleteBerry', { index: selection.index })
   if (selection.kind === 'curl') store.run('deleteCurl', { index: selection.index })
-  store.update({ selection: null })
+  store.select(null)
 }
 
 const PAN_STEP_PIXELS = 60
@@ -53,28 +52,17 @@ export const boardActions = {
   toggleSide: {
     label: 'Switch between fabric side and printed side',
     keys: ['p'],
-    run: ({ store }) => {
-      const { view } = store.getState()
-      store.update({ view: { ...view, side: view.side === 'fabric' ? 'printed' : 'fabric' } })
-    },
+    run: ({ store }) => store.toggleSide(),
   },
   fit: { label: 'Fit the ring to the board', keys: ['0'], run: (context) => context.fit() },
-  zoomIn: { label: 'Zoom in', keys: ['+', '='], run: (c) => c.store.update({ view: zoomAt(c.store.getState().view, c.canvasCentre(), 1.25) }) },
-  zoomOut: { label: 'Zoom out', keys: ['-'], run: (c) => c.store.update({ view: zoomAt(c.store.getState().view, c.canvasCentre(), 0.8) }) },
-  panLeft: { label: 'Pan left', keys: ['ArrowLeft'], run: ({ store }) => store.update({ view: panBy(store.getState().view, PAN_STEP_PIXELS, 0) }) },
-  panRight: { label: 'Pan right', keys: ['ArrowRight'], run: ({ store }) => store.update({ view: panBy(store.getState().view, -PAN_STEP_PIXELS, 0) }) },
-  panUp: { label: 'Pan up', keys: ['ArrowUp'], run: ({ store }) => store.update({ view: panBy(store.getState().view, 0, PAN_STEP_PIXELS) }) },
-  panDown: { label: 'Pan down', keys: ['ArrowDown'], run: ({ store }) => store.update({ view: panBy(store.getState().view, 0, -PAN_STEP_PIXELS) }) },
-  nextStep: {
-    label: 'Next sewing step',
-    keys: [']'],
-    run: ({ store }) => store.update({ step: (store.getState().step ?? -1) + 1 }),
-  },
-  previousStep: {
-    label: 'Previous sewing step',
-    keys: ['['],
-    run: ({ store }) => store.update({ step: Math.max(0, (store.getState().step ?? 1) - 1) }),
-  },
+  zoomIn: { label: 'Zoom in', keys: ['+', '='], run: (c) => c.store.zoomAt(c.canvasCentre(), 1.25) },
+  zoomOut: { label: 'Zoom out', keys: ['-'], run: (c) => c.store.zoomAt(c.canvasCentre(), 0.8) },
+  panLeft: { label: 'Pan left', keys: ['ArrowLeft'], run: ({ store }) => store.panBy(PAN_STEP_PIXELS, 0) },
+  panRight: { label: 'Pan right', keys: ['ArrowRight'], run: ({ store }) => store.panBy(-PAN_STEP_PIXELS, 0) },
+  panUp: { label: 'Pan up', keys: ['ArrowUp'], run: ({ store }) => store.panBy(0, PAN_STEP_PIXELS) },
+  panDown: { label: 'Pan down', keys: ['ArrowDown'], run: ({ store }) => store.panBy(0, -PAN_STEP_PIXELS) },
+  nextStep: { label: 'Next sewing step', keys: [']'], run: ({ store }) => store.nextStep() },
+  previousStep: { label: 'Previous sewing step', keys: ['['], run: ({ store }) => store.previousStep() },
   help: { label: 'Show or hide this list of shortcuts', keys: ['?'], run: (context) => context.toggleHelp() },
 } satisfies Record<string, BoardAction>
 

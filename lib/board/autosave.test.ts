@@ -161,7 +161,9 @@ describe('saving after the quiet time', () => {
 
   it('ignores view, tool and selection changes', async () => {
     const { store, autosaver, patches } = setup()
-    store.update({ tool: 'seam', view: { zoom: 50, centre: [0, 0], side: 'printed' } })
+    store.chooseTool('seam')
+    store.panBy(50, 0)
+    store.toggleSide()
     await vi.advanceTimersByTimeAsync(2_000)
     expect(patches()).toHaveLength(0)
     expect(autosaver.getState().status).toBe('saved')

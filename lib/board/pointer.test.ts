@@ -14,7 +14,7 @@ const quarterRing = (overrides: Partial<DesignFile> = {}): DesignFile => ({
 
 function board(tool: Tool, overrides: Partial<DesignFile> = {}) {
   const store = createBoardStore(quarterRing(overrides))
-  store.update({ tool })
+  store.chooseTool(tool)
   return { store, pointer: createPointerController(store, () => 0.15) }
 }
 
@@ -64,9 +64,9 @@ describe('drawing seams', () => {
 describe('fills, leaves, berries and curls', () => {
   it('fills the clicked area, and a second fill of the same area replaces the first', () => {
     const { store, pointer } = board('fill', { seams: [{ id: 's1', from: [4, 0], to: [0, 4] }] })
-    store.update({ activeFabric: 'rust' })
+    store.chooseFabric('rust')
     pointer.down([1, 1])
-    store.update({ activeFabric: 'background' })
+    store.chooseFabric('background')
     pointer.down([0.5, 2])
     expect(design(store.getState()).fills).toEqual([{ at: [0.5, 2], fabric: 'background' }])
   })

@@ -50,8 +50,7 @@ export function createPointerController(store: BoardStore, tolerance: () => numb
   }
   const snap = (point: Point, modifiers?: PointerModifiers, anchor?: Point, ignoreSeam?: string) =>
     snapSeamEnd(point, { design: design(store.getState()), snapping: snapping(modifiers), tolerance: tolerance(), anchor, ignoreSeam })
-  const setDraft = (change: Partial<ReturnType<BoardStore['getState']>['draft']>) =>
-    store.update({ draft: { ...store.getState().draft, ...change } })
+  const setDraft = (change: Parameters<BoardStore['setDraft']>[0]) => store.setDraft(change)
   const fabricOr = (fallback: string) => store.getState().activeFabric ?? fallback
 
   function finishCurl() {
@@ -68,24 +67,24 @@ export function createPointerController(store: BoardStore, tolerance: () => numb
       switch (state.tool) {
         case 'select': {
           const hit = hitTest(current, point, tolerance())
-          if (!hit) return store.update({ selection: null })
+          if (!hit) return store.select(null)
           if (hit.kind === 'seam-end') {
-            store.update({ selection: { kind: 'seam', id: hit.seamId } })
+            store.select({ kind: 'seam', id: hit.seamId })
             drag = { kind: 'seam-end', seamId: hit.seamId, end: hit.end }
             store.beginDrag()
           } else if (hit.kind === 'leaf') {
-            store.update({ selection: { kind: 'leaf', id: hit.leafId } })
+            store.select({ kind: 'leaf', id: hit.leafId })
             drag = { kind: 'leaf', leafId: hit.leafId }
             store.beginDrag()
           } else if (hit.kind === 'berry') {
             const at = current.berries[hit.index]!.at
-            store.update({ selection: { kind: 'berry', index: hit.index } })
+            store.select({ kind: 'berry', index: hit.index })
             drag = { kind: 'berry', index: hit.index, offset: [at[0] - point[0], at[1] - point[1]] }
             store.beginDrag()
           } else if (hit.kind === 'seam') {
-            store.update({ selection: { kind: 'seam', id: hit.seamId } })
+            store.select({ kind: 'seam', id: hit.seamId })
           } else if (hit.kind === 'curl') {
-            store.update({ selection: { kind: 'curl', index: hit.index } })
+            store.select({ kind: 'curl', index: hit.index })
           }
           return
         }
@@ -124,11 +123,11 @@ export function createPointerController(store: BoardStore, tolerance: () => numb
             layers: [fabricOr('leaf')],
           })
           const leaves = design(store.getState()).leaves
-          return store.update({ selection: { kind: 'leaf', id: leaves[leaves.length - 1]!.id } })
+          return store.select({ kind: 'leaf', id: leaves[leaves.length - 1]!.id })
         }
         case 'berry': {
           store.run('addBerry', { at: [point[0], point[1]], finishedDiameter: NEW_BERRY_DIAMETER_INCHES * scale, fabric: fabricOr('berry') })
-          return store.update({ selection: { kind: 'berry', index: design(store.getState()).berries.length - 1 } })
+          return store.select({ kind: 'berry', index: design(store.getState()).berries.length - 1 })
         }
         case 'curl':
           return setDraft({ curl: [...(state.draft.curl ?? []), point] })
@@ -136,11 +135,9 @@ export function createPointerController(store: BoardStore, tolerance: () => numb
           const plan = boardPlan(current)
           const area = areaAt(plan, point)
           if (!area) return
-          const sections = state.handOrderDraft && state.handOrderDraft.length > 0 ? state.handOrderDraft : [[]]
-          const already = sections.some((section) => section.some((p) => areaAt(plan, p)?.id === area.id))
+          const already = (state.handOrderDraft ?? []).some((section) => section.some((p) => areaAt(plan, p)?.id === area.id))
           if (already) return
-          const at: Point = [area.labelAt[0], area.labelAt[1]]
-          return store.update({ handOrderDraft: [...sections.slice(0, -1), [...sections[sections.length - 1]!, at]] })
+          return store.addHandOrderArea([area.labelAt[0], area.labelAt[1]])
         }
       }
     },
@@ -206,7 +203,7 @@ export function createPointerController(store: BoardStore, tolerance: () => numb
     cancel() {
       if (drag && drag.kind !== 'new-seam') store.cancelDrag()
       drag = null
-      store.update({ draft: EMPTY_DRAFT, ...(store.getState().tool === 'order' ? { handOrderDraft: [[]] } : {}) })
+      store.cancelDraft()
     },
 
     commit() {

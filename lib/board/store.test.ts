@@ -46,7 +46,9 @@ describe('the board store', () => {
     const store = createBoardStore(emptyQuarterRing())
     store.run('addSeam', { from: [4, 0], to: [0, 4] })
     store.undo()
-    store.update({ view: { zoom: 50, centre: [10, 10], side: 'printed' }, tool: 'seam' })
+    store.zoomAt([10, 10], 2)
+    store.toggleSide()
+    store.chooseTool('seam')
     store.redo()
     expect(design(store.getState()).seams).toHaveLength(1)
   })
@@ -54,7 +56,7 @@ describe('the board store', () => {
   it('drops a selection whose seam was undone away', () => {
     const store = createBoardStore(emptyQuarterRing())
     store.run('addSeam', { from: [4, 0], to: [0, 4] })
-    store.update({ selection: { kind: 'seam', id: 's1' } })
+    store.select({ kind: 'seam', id: 's1' })
     store.undo()
     expect(store.getState().selection).toBeNull()
   })
@@ -92,10 +94,56 @@ describe('the board store', () => {
     let calls = 0
     const unsubscribe = store.subscribe(() => (calls += 1))
     store.run('addSeam', { from: [4, 0], to: [0, 4] })
-    store.update({ tool: 'seam' })
+    store.chooseTool('seam')
     unsubscribe()
     store.undo()
     expect(calls).toBe(2)
+  })
+})
+
+describe('named operations for everything that is not the design', () => {
+  it('offers no general update: every change of the view, tool or selection has a name', () => {
+    const store = createBoardStore(emptyQuarterRing())
+    expect('update' in store).toBe(false)
+  })
+
+  it('starts a hand-set order with the order tool and drops it with any other tool', () => {
+    const store = createBoardStore(emptyQuarterRing())
+    store.chooseTool('order')
+    expect(store.getState()).toMatchObject({ tool: 'order', handOrderDraft: [[]] })
+    store.addHandOrderArea([1, 1])
+    store.newHandOrderSection()
+    store.addHandOrderArea([5, 5])
+    expect(store.getState().handOrderDraft).toEqual([[[1, 1]], [[5, 5]]])
+    store.cancelDraft()
+    expect(store.getState().handOrderDraft).toEqual([[]])
+    store.fillWith('background')
+    expect(store.getState()).toMatchObject({ tool: 'fill', activeFabric: 'background', handOrderDraft: null })
+  })
+
+  it('steps through the plan from the first step, never before it', () => {
+    const store = createBoardStore(emptyQuarterRing())
+    store.previousStep()
+    expect(store.getState().step).toBe(0)
+    store.showStep(null)
+    store.nextStep()
+    store.nextStep()
+    expect(store.getState().step).toBe(1)
+    store.previousStep()
+    store.previousStep()
+    expect(store.getState().step).toBe(0)
+  })
+
+  it('pans, zooms about a point and fits the ring, none of it undoable', () => {
+    const store = createBoardStore(emptyQuarterRing())
+    store.fit(800, 600)
+    // 600 px × 0.92 border / 18 in across = 30.67 px per in, centred in the box
+    expect(store.getState().view).toMatchObject({ zoom: (600 * 0.92) / 18, centre: [400, 300] })
+    store.panBy(10, -20)
+    expect(store.getState().view.centre).toEqual([410, 280])
+    store.zoomAt([410, 280], 2)
+    expect(store.getState().view.centre).toEqual([410, 280]) // the point under the cursor stays
+    expect(store.getState().history.past).toHaveLength(0)
   })
 })
 

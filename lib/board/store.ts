@@ -2,9 +2,12 @@
  * The drafting board's state, kept outside React. Components subscribe with
  * useSyncExternalStore; every change of the design goes through the command table and the undo
  * history, while the view (zoom, pan, side shown), the tool and the selection are never recorded.
+ * Those change only through the store's named operations (`chooseTool`, `panBy`, `nextStep`, …),
+ * so every button, shortcut and pointer gesture that does one thing does it the same way.
  */
 import type { DesignFile } from '@/lib/schemas/design'
 import { commands, normalizeDesign, type BoardDesign, type CommandArgs, type CommandName } from './commands'
+import { fitView, panBy, zoomAt } from './view'
 import {
   bailToMark,
   canRedo,
@@ -85,8 +88,42 @@ export interface BoardStore {
   cancelDrag(): void
   undo(): void
   redo(): void
-  /** Changes that are not part of the design and so never undone. */
-  update(change: Partial<Omit<BoardState, 'history'>>): void
+
+  // Named operations on what is not the design, and so never undone.
+
+  /** Picks a tool; the order tool starts a hand-set order from its first section. */
+  chooseTool(tool: Tool): void
+  select(selection: Selection): void
+  /** Moves the board by screen pixels. */
+  panBy(dx: number, dy: number): void
+  /** Zooms by `factor` about a point on the screen, which stays where it is. */
+  zoomAt(screen: readonly [number, number], factor: number): void
+  /** Shows the whole ring in a board of this size (pixels). */
+  fit(width: number, height: number): void
+  showSide(side: Side): void
+  toggleSide(): void
+  setSnapping(change: Partial<Snapping>): void
+  chooseColorway(name: string): void
+  chooseFabric(name: string | null): void
+  /** Chooses a fabric and the fill tool, to fill areas with it. */
+  fillWith(fabric: string): void
+  /** Highlights a sewing step (null: none). */
+  showStep(step: number | null): void
+  nextStep(): void
+  previousStep(): void
+  /** Shows a plan problem's message (null: none). */
+  showProblem(index: number | null): void
+  /** What the pointer is drawing, shown on the board. */
+  setDraft(change: Partial<BoardDraft>): void
+  /** Escape: drops what is being drawn (a hand-set order starts again from its first section). */
+  cancelDraft(): void
+  /** Adds an area, named by a point, to the last section of the hand-set order being clicked. */
+  addHandOrderArea(at: readonly [number, number]): void
+  /** Starts the next section of the hand-set order being clicked. */
+  newHandOrderSection(): void
+  restartHandOrder(): void
+  /** Leaves the order tool (the order, if set, is already a command of the design). */
+  endHandOrder(): void
 }
 
 export const EMPTY_DRAFT: BoardDraft = { seam: null, snap: null, curl: null }
@@ -129,6 +166,10 @@ export function createBoardStore(file: DesignFile, overrides: Partial<Omit<Board
     set(keepValidSelection({ ...state, history }))
   }
 
+  /** Private: every caller goes through a named operation below. */
+  const update = (change: Partial<Omit<BoardState, 'history'>>) => set({ ...state, ...change })
+  const handOrder = () => (state.handOrderDraft && state.handOrderDraft.length > 0 ? state.handOrderDraft : [[]])
+
   return {
     getState: () => state,
     subscribe(listener) {
@@ -144,7 +185,31 @@ export function createBoardStore(file: DesignFile, overrides: Partial<Omit<Board
     cancelDrag: () => setHistory(bailToMark(state.history)),
     undo: () => setHistory(undoHistory(state.history)),
     redo: () => setHistory(redoHistory(state.history)),
-    update: (change) => set({ ...state, ...change }),
+
+    chooseTool: (tool) => update({ tool, handOrderDraft: tool === 'order' ? [[]] : null }),
+    select: (selection) => update({ selection }),
+    panBy: (dx, dy) => update({ view: panBy(state.view, dx, dy) }),
+    zoomAt: (screen, factor) => update({ view: zoomAt(state.view, screen, factor) }),
+    fit: (width, height) => update({ view: fitView(state.history.present.ring.outerRadius, width, height, state.view.side) }),
+    showSide: (side) => update({ view: { ...state.view, side } }),
+    toggleSide: () => update({ view: { ...state.view, side: state.view.side === 'fabric' ? 'printed' : 'fabric' } }),
+    setSnapping: (change) => update({ snapping: { ...state.snapping, ...change } }),
+    chooseColorway: (activeColorway) => update({ activeColorway }),
+    chooseFabric: (activeFabric) => update({ activeFabric }),
+    fillWith: (fabric) => update({ activeFabric: fabric, tool: 'fill', handOrderDraft: null }),
+    showStep: (step) => update({ step }),
+    nextStep: () => update({ step: state.step === null ? 0 : state.step + 1 }),
+    previousStep: () => update({ step: Math.max(0, (state.step ?? 0) - 1) }),
+    showProblem: (shownProblem) => update({ shownProblem }),
+    setDraft: (change) => update({ draft: { ...state.draft, ...change } }),
+    cancelDraft: () => update({ draft: EMPTY_DRAFT, ...(state.tool === 'order' ? { handOrderDraft: [[]] } : {}) }),
+    addHandOrderArea(at) {
+      const sections = handOrder()
+      update({ handOrderDraft: [...sections.slice(0, -1), [...sections[sections.length - 1]!, at]] })
+    },
+    newHandOrderSection: () => update({ handOrderDraft: [...handOrder(), []] }),
+    restartHandOrder: () => update({ handOrderDraft: [[]] }),
+    endHandOrder: () => update({ tool: 'select', handOrderDraft: null }),
   }
 }
 
