@@ -1,12 +1,14 @@
 /**
  * Fixture folders, each named for what it shows, with the design and the plan expected for it.
- * REGEN=1 rewrites the expected plans (read the diff before committing it). A known failure
- * stays as `broken-<reason>` and is skipped by name, never deleted.
+ * REGEN=1 writes the expected plans (read the diff before committing it); without it a folder
+ * with no plan.json fails. A known failure stays as `broken-<reason>` and is skipped by name,
+ * never deleted.
  */
-import { existsSync, readdirSync, readFileSync, writeFileSync } from 'node:fs'
+import { existsSync, readdirSync, readFileSync } from 'node:fs'
 import { join } from 'node:path'
 import { describe, expect, it } from 'vitest'
 import { parseDesign } from '../lib/schemas/design'
+import { expectedFromFile } from './fixtures/expected-file'
 import { planDesign } from './plan'
 
 const root = join(import.meta.dirname, 'fixtures')
@@ -23,9 +25,7 @@ describe('fixtures', () => {
       expect(parsed.ok).toBe(true)
       if (!parsed.ok) return
       const plan = JSON.parse(JSON.stringify(planDesign(parsed.design)))
-      const expectedPath = join(root, folder, 'plan.json')
-      if (process.env.REGEN === '1' || !existsSync(expectedPath)) writeFileSync(expectedPath, `${JSON.stringify(plan, null, 2)}\n`)
-      expect(plan).toEqual(JSON.parse(readFileSync(expectedPath, 'utf8')))
+      expect(plan).toEqual(expectedFromFile(join(root, folder, 'plan.json'), plan))
     })
   }
 })
