@@ -2,6 +2,7 @@ import fc from 'fast-check'
 import polygonClipping from 'polygon-clipping'
 import { describe, expect, it } from 'vitest'
 import { isPointedLeaf, leafShapeProblem, leafTemplate, placeLeaf, tryPlaceLeaf } from './leaf-template'
+import { defaultLayerOffset, leafLayers, tryPlaceLeafLayers } from './leaf-template'
 import { polygonArea } from './offset'
 import { arcSweep, endOf, startOf, type ArcPathSegment, type OutlinePath } from './trim-line'
 import type { Leaf, Point, Polygon, Seam } from './types'
@@ -167,5 +168,70 @@ describe('leaves placed on a seam', () => {
         const lean = Math.atan2(normal[0] * axis[1] - normal[1] * axis[0], normal[0] * axis[0] + normal[1] * axis[1])
         expect((lean * 180) / Math.PI).toBeCloseTo(angle, 9)
       }))
+  })
+})
+
+describe('stacked leaf layers', () => {
+  const geom = (polygon: Polygon): polygonClipping.Polygon => [polygon.map(([x, y]) => [x, y] as [number, number])]
+  const areaOf = (multi: polygonClipping.MultiPolygon): number => multi.reduce((sum, polygon) => sum + polygon.reduce((inside, ring, i) =>
+    inside + (i === 0 ? 1 : -1) * Math.abs(polygonArea(ring.slice(0, -1) as Point[])), 0), 0)
+
+  it('fans the layers by default: the bottom as drawn, each one above smaller and turned to alternate sides', () => {
+    expect(defaultLayerOffset(0)).toEqual({ turn: 0, scale: 1 })
+    expect(defaultLayerOffset(1)).toEqual({ turn: 10, scale: 0.9 })
+    expect(defaultLayerOffset(2)).toEqual({ turn: -10, scale: 0.8 })
+    expect(defaultLayerOffset(3)).toEqual({ turn: 20, scale: 0.7 })
+    expect(defaultLayerOffset(9).scale).toBe(0.5)
+    // 1 1/2 in × 3/4 in leaf, top layer × 0.9 = 1.35 × 0.675 in, turned 10° from the leaf's 20°.
+    const [bottom, top] = leafLayers(leaf({ angle: 20 }))
+    expect(bottom).toEqual({ fabric: 'dark', turn: 0, scale: 1, length: 1.5, width: 0.75, angle: 20 })
+    expect(top!.fabric).toBe('light')
+    expect(top!.length).toBeCloseTo(1.35, 12)
+    expect(top!.width).toBeCloseTo(0.675, 12)
+    expect(top!.angle).toBe(30)
+  })
+
+  it('takes the design\'s own offsets, member by member, and keeps the angle within ±75°', () => {
+    const layers = leafLayers(leaf({ angle: 70, layers: ['a', 'b', 'c'], layerOffsets: [{ scale: 1.2 }, { turn: 15 }, {}] }))
+    expect(layers.map((layer) => [layer.turn, layer.scale, layer.angle])).toEqual([[0, 1.2, 70], [15, 0.9, 75], [-10, 0.8, 60]])
+  })
+
+  it('shows every layer of a default stack: none covered by the layers above it, no two alike (polygon-clipping)', () => {
+    fc.assert(fc.property(
+      fc.double({ min: 0.3, max: 3, noNaN: true }), fc.double({ min: 0.55, max: 4, noNaN: true }),
+      fc.double({ min: -75, max: 75, noNaN: true }), fc.constantFrom<'left' | 'right'>('left', 'right'),
+      fc.double({ min: 0, max: 2 * Math.PI, noNaN: true }), fc.integer({ min: 2, max: 5 }),
+      (width, ratio, angle, side, direction, count) => {
+        const s = seam({ from: [1, 2], to: [1 + 6 * Math.cos(direction), 2 + 6 * Math.sin(direction)] })
+        const stack = leaf({ width, length: width * ratio, angle, side, layers: Array.from({ length: count }, (_, k) => `fabric-${k}`) })
+        const placed = tryPlaceLeafLayers(stack, s)
+        if (!placed.ok) throw new Error(placed.reason)
+        const outlines = placed.layers.map((layer) => geom(layer.placement.finishedOutline))
+        outlines.forEach((outline, k) => {
+          const own = areaOf([outline])
+          // Visible: more than 2 % of the layer is outside the union of every layer above it.
+          // One layer at a time: polygon-clipping 0.15 can fail on many rings sharing a collinear
+          // edge (every layer's open end lies on the seam line) in one call.
+          const visible = areaOf(outlines.slice(k + 1).reduce<polygonClipping.MultiPolygon>((rest, above) => polygonClipping.difference(rest, above), [outline]))
+          expect(visible / own, `layer ${k} of ${count}`).toBeGreaterThan(0.02)
+          outlines.forEach((other, j) => {
+            if (j !== k) expect(areaOf(polygonClipping.xor(outline, other))).toBeGreaterThan(0.02 * own)
+          })
+        })
+      }))
+  })
+
+  it('places each layer as a leaf of its own size caught at the same point of the same seam', () => {
+    const placed = tryPlaceLeafLayers(leaf(), seam())
+    if (!placed.ok) throw new Error(placed.reason)
+    const [bottom, top] = placed.layers
+    expect(bottom!.placement).toEqual(placeLeaf(leaf(), seam()))
+    expect(top!.placement.base).toEqual(bottom!.placement.base)
+    // Top layer 1.5 × 0.9 = 1.35 in from the seam to its tip.
+    expect(distance(top!.placement.tip, top!.placement.base)).toBeCloseTo(1.35, 9)
+  })
+
+  it('refuses a leaf that cannot be pointed as a whole, without throwing', () => {
+    expect(tryPlaceLeafLayers(leaf({ length: 0.5, width: 3 }), seam()).ok).toBe(false)
   })
 })

@@ -22,7 +22,7 @@
  */
 import { DEFAULT_MITRE_LIMIT } from './offset'
 import { pathToPolygon, type ArcPathSegment, type OutlinePath, type PathSegment } from './trim-line'
-import type { Leaf, Point, Polygon, Seam, Segment } from './types'
+import type { LayerOffset, Leaf, Point, Polygon, Seam, Segment } from './types'
 import { add, cross, scale, type Vector } from './vector'
 
 /** Cut line outside the sew line, inches (common practice for small turned pieces; a setting). */
@@ -266,4 +266,96 @@ export function placeLeaf(leaf: Leaf, seam: Seam, options: Pick<LeafTemplateOpti
     finishedOutline,
     rawEdge: [sideCrossing(-half), sideCrossing(half)],
   }
+}
+
+/** A leaf's tilt from its seam's normal stays within ±75° (the design format's range). */
+export const LEAF_ANGLE_LIMIT_DEGREES = 75
+/** A layer turns at most this far from the leaf as drawn, degrees (the design format's range). */
+export const LAYER_TURN_LIMIT_DEGREES = 45
+/** A layer's scale lies in this range, a ratio (the design format's range). */
+export const LAYER_SCALE_RANGE = [0.25, 1.5] as const
+
+/**
+ * The default fan of stacked layers: layer k of n (bottom k = 0) turns ±10°·⌈k/2⌉, alternately
+ * counter-clockwise and clockwise, and is 10 % smaller than the one below it (never under half).
+ * Why: the bottom layer keeps the size and angle the designer drew. Each layer above is smaller,
+ * so its tip stops short of every layer beneath and each layer shows at least its tip; turning
+ * them to alternate sides, as a spray of leaves lies, also shows each lower layer along one side.
+ * 10° and 10 % show about 1/8 in of a 1 3/4 in leaf beneath, enough to read in fabric without
+ * the stack looking like separate leaves.
+ */
+export const DEFAULT_LAYER_TURN_DEGREES = 10
+export const DEFAULT_LAYER_SCALE_STEP = 0.1
+export const SMALLEST_DEFAULT_LAYER_SCALE = 0.5
+
+/**
+ * The offset layer `index` (bottom 0) takes when the design sets none.
+ *
+ * @example defaultLayerOffset(1) // { turn: 10, scale: 0.9 }
+ * @example defaultLayerOffset(2) // { turn: -10, scale: 0.8 }
+ */
+export function defaultLayerOffset(index: number): Required<LayerOffset> {
+  const side = index % 2 === 1 ? 1 : -1
+  return {
+    turn: index === 0 ? 0 : side * DEFAULT_LAYER_TURN_DEGREES * Math.ceil(index / 2),
+    scale: Math.max(SMALLEST_DEFAULT_LAYER_SCALE, Number((1 - DEFAULT_LAYER_SCALE_STEP * index).toFixed(6))),
+  }
+}
+
+/** One stacked layer of a leaf, as it is cut and laid: its fabric and its own size and angle. */
+export interface LeafLayer {
+  readonly fabric: string
+  /** Degrees added to the leaf's angle, and the ratio of its size to the leaf's. */
+  readonly turn: number
+  readonly scale: number
+  /** This layer's finished length and width (the leaf's, times `scale`) and its tilt in degrees. */
+  readonly length: number
+  readonly width: number
+  readonly angle: number
+}
+
+/**
+ * The layers of a leaf, bottom first, each with its offset resolved (the design's, else the
+ * default fan) and its own size and angle; the angle stays within ±75°.
+ *
+ * @example
+ * leafLayers({ id: 'l1', seam: 's1', at: 0.5, side: 'left', angle: 0, length: 2, width: 1, layers: ['dark', 'light'] })
+ * // [{ fabric: 'dark', turn: 0, scale: 1, length: 2, width: 1, angle: 0 },
+ * //  { fabric: 'light', turn: 10, scale: 0.9, length: 1.8, width: 0.9, angle: 10 }]
+ */
+export function leafLayers(leaf: Leaf): LeafLayer[] {
+  return leaf.layers.map((fabric, index) => {
+    const fallback = defaultLayerOffset(index)
+    const offset = leaf.layerOffsets?.[index]
+    const turn = offset?.turn ?? fallback.turn
+    const layerScale = offset?.scale ?? fallback.scale
+    const angle = Math.max(-LEAF_ANGLE_LIMIT_DEGREES, Math.min(LEAF_ANGLE_LIMIT_DEGREES, (leaf.angle ?? 0) + turn))
+    return { fabric, turn, scale: layerScale, length: leaf.length * layerScale, width: leaf.width * layerScale, angle }
+  })
+}
+
+/** Every layer of a leaf placed on its seam, bottom first, or why the leaf cannot be drawn. */
+export type LeafLayersPlacementResult =
+  | { readonly ok: true; readonly layers: readonly (LeafLayer & { readonly placement: LeafPlacement })[] }
+  | { readonly ok: false; readonly reason: string }
+
+/**
+ * Where each stacked layer of a leaf lies, bottom first: each is a leaf of its own size caught at
+ * the same place on the same seam, turned by its own angle (as a maker lays a smaller folded leaf
+ * on a larger one). Never throws; a leaf `tryPlaceLeaf` refuses is refused whole.
+ *
+ * @example
+ * const placed = tryPlaceLeafLayers(leaf, seam)
+ * if (placed.ok) placed.layers.map((layer) => layer.placement.finishedOutline)
+ */
+export function tryPlaceLeafLayers(leaf: Leaf, seam: Seam, options: Pick<LeafTemplateOptions, 'catchInches'> = {}): LeafLayersPlacementResult {
+  const whole = tryPlaceLeaf(leaf, seam, options)
+  if (!whole.ok) return whole
+  const layers: (LeafLayer & { placement: LeafPlacement })[] = []
+  for (const layer of leafLayers(leaf)) {
+    const placed = tryPlaceLeaf({ ...leaf, length: layer.length, width: layer.width, angle: layer.angle }, seam, options)
+    if (!placed.ok) return placed
+    layers.push({ ...layer, placement: placed.placement })
+  }
+  return { ok: true, layers }
 }

@@ -57,6 +57,20 @@ export interface Leaf {
   readonly width: number
   /** Stacked leaves, bottom first, each a fabric role. */
   readonly layers: readonly string[]
+  /**
+   * How each layer (same order as `layers`) lies against the leaf as drawn: `turn` degrees
+   * counter-clockwise on top of the leaf's angle, `scale` its size as a ratio of length × width.
+   * Absent, or a member absent, takes the default that fans the layers (`leafLayers`).
+   */
+  readonly layerOffsets?: readonly LayerOffset[]
+}
+
+/** One stacked layer's offset from the leaf as drawn: an angle and a ratio, never a length. */
+export interface LayerOffset {
+  /** Degrees, counter-clockwise, added to the leaf's angle. */
+  readonly turn?: number
+  /** Ratio of the layer's length and width to the leaf's. */
+  readonly scale?: number
 }
 
 export interface StemRing {

@@ -21,6 +21,8 @@ const NOT_LENGTHS = new Set([
   'ring.repeats', // a count
   'leaves[].at', // a fraction of the seam's length
   'leaves[].angle', // degrees
+  'leaves[].layerOffsets[].turn', // degrees
+  'leaves[].layerOffsets[].scale', // a ratio
 ])
 
 /** A design in inches with every field the schema knows filled in (and every list non-empty). */
@@ -35,7 +37,7 @@ const everyField: DesignFile = {
     { id: 's2', from: [5, 0.25], to: [6.5, 6.5] },
   ],
   fills: [{ at: [5.5, 1], fabric: 'background' }],
-  leaves: [{ id: 'leaf-1', seam: 's1', at: 0.4, side: 'left', angle: 30, length: 2.5, width: 1.25, layers: ['green', 'rust'] }],
+  leaves: [{ id: 'leaf-1', seam: 's1', at: 0.4, side: 'left', angle: 30, length: 2.5, width: 1.25, layers: ['green', 'rust'], layerOffsets: [{}, { turn: -15, scale: 0.85 }] }],
   stems: [{ radius: 6.75, finishedWidth: 0.375, fabric: 'stem' }],
   berries: [{ at: [7, 2], finishedDiameter: 0.75, fabric: 'berry' }],
   curls: [{ points: [[6, 3], [6.5, 3.5], [7, 3.25]] }],

@@ -103,3 +103,33 @@ describe('parseDesign', () => {
     if (result.ok) expect(result.design.order?.assembly).toEqual(['A', 'B'])
   })
 })
+
+describe('stacked leaf layers', () => {
+  const leafWith = (extra: Record<string, unknown>) => designFile({ leaves: [{ id: 'l1', seam: 's1', at: 0.5, side: 'left', angle: 0, length: 1.5, width: 0.75, layers: ['dark', 'light'], ...extra }] })
+
+  it('reads a file without layer offsets exactly as before: the layers as fabric roles, no offsets', () => {
+    const result = parseDesign(designFile())
+    if (!result.ok) throw new Error('the test design must parse')
+    expect(result.design.leaves[0]).toEqual({ id: 'l1', seam: 's1', at: 0.5, side: 'left', angle: 0, length: 1.5, width: 0.75, layers: ['dark', 'light'] })
+    expect('layerOffsets' in result.design.leaves[0]!).toBe(false)
+  })
+
+  it('keeps each layer\'s turn (degrees) and scale (a ratio) unconverted in a centimetre file', () => {
+    const offsets = [{}, { turn: -12, scale: 0.8 }]
+    const result = parseDesign(designFile({
+      units: 'cm', ring: { innerRadius: 0, outerRadius: 22.86, repeats: 4, repeatMode: 'rotate' }, seams: [{ id: 's1', from: [2.54, 0], to: [0, 15.24] }],
+      fills: [], leaves: [{ id: 'l1', seam: 's1', at: 0.5, side: 'left', length: 3.81, width: 1.905, layers: ['dark', 'light'], layerOffsets: offsets }],
+    }))
+    if (!result.ok) throw new Error(result.issues[0]?.message)
+    expect(result.design.leaves[0]?.length).toBeCloseTo(1.5, 12)
+    expect(result.design.leaves[0]?.layerOffsets).toEqual(offsets)
+  })
+
+  it('wants one offset per layer, a turn within ±45° and a scale from 1/4 to 1 1/2', () => {
+    expect(firstIssuePath(leafWith({ layerOffsets: [{ turn: 5 }] }))).toBe('leaves.0.layerOffsets')
+    expect(firstIssuePath(leafWith({ layerOffsets: [{}, { turn: 50 }] }))).toBe('leaves.0.layerOffsets.1.turn')
+    expect(firstIssuePath(leafWith({ layerOffsets: [{}, { scale: 0 }] }))).toBe('leaves.0.layerOffsets.1.scale')
+    expect(firstIssuePath(leafWith({ layerOffsets: [{}, { shift: 1 }] }))).toBe('leaves.0.layerOffsets.1')
+    expect(parseDesign(leafWith({ layerOffsets: [{ turn: 0, scale: 1 }, { turn: 45, scale: 1.5 }] })).ok).toBe(true)
+  })
+})

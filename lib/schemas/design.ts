@@ -5,6 +5,7 @@
  */
 import { z } from 'zod'
 import { scaleDesignLengths } from '@/geometry/design-lengths'
+import { LAYER_SCALE_RANGE, LAYER_TURN_LIMIT_DEGREES } from '@/geometry/leaf-template'
 import type { Design, HandSetOrder, JoinTree, Point } from '@/geometry/types'
 import { CENTIMETRES_PER_INCH } from '@/lib/units'
 
@@ -16,6 +17,18 @@ const point = z.tuple([finite, finite])
 const seam = z.strictObject({ id: z.string().min(1), from: point, to: point })
 const fill = z.strictObject({ at: point, fabric: z.string().min(1) })
 
+/**
+ * How one stacked layer lies against the leaf as drawn: `turn` in degrees (counter-clockwise,
+ * added to the leaf's angle) and `scale`, a ratio of its length and width to the leaf's. Neither
+ * is a length: a centimetre file writes the same numbers. A member left out takes the default fan
+ * (geometry/leaf-template.ts `defaultLayerOffset`); so does every layer of a leaf without
+ * `layerOffsets`, which is how every file written before offsets existed reads.
+ */
+const layerOffset = z.strictObject({
+  turn: finite.min(-LAYER_TURN_LIMIT_DEGREES).max(LAYER_TURN_LIMIT_DEGREES).optional(),
+  scale: finite.min(LAYER_SCALE_RANGE[0]).max(LAYER_SCALE_RANGE[1]).optional(),
+})
+
 const leaf = z.strictObject({
   id: z.string().min(1),
   seam: z.string().min(1),
@@ -25,6 +38,8 @@ const leaf = z.strictObject({
   length: positive,
   width: positive,
   layers: z.array(z.string().min(1)).min(1),
+  /** One per layer, same order (bottom first), when present. */
+  layerOffsets: z.array(layerOffset).optional(),
 })
 
 const stem = z.strictObject({ radius: positive, finishedWidth: positive, fabric: z.string().min(1) })
@@ -99,6 +114,9 @@ export const designFileSchema = z
         context.addIssue({ code: 'custom', path: ['leaves', index, 'seam'], message: `no seam has the id "${l.seam}"` })
       }
       if (leafIds.has(l.id)) context.addIssue({ code: 'custom', path: ['leaves', index, 'id'], message: `leaf id "${l.id}" is used twice` })
+      if (l.layerOffsets && l.layerOffsets.length !== l.layers.length) {
+        context.addIssue({ code: 'custom', path: ['leaves', index, 'layerOffsets'], message: `give one offset per layer: ${l.layers.length} layers, ${l.layerOffsets.length} offsets` })
+      }
       leafIds.add(l.id)
     })
     const labels = new Set<string>()
@@ -182,6 +200,7 @@ function toInchesDesign(original: DesignFile): Design {
       length: l.length,
       width: l.width,
       layers: [...l.layers],
+      ...(l.layerOffsets && { layerOffsets: l.layerOffsets.map((offset) => ({ ...offset })) }),
     })),
     stems: (file.stems ?? []).map((s) => ({ radius: s.radius, finishedWidth: s.finishedWidth, fabric: s.fabric })),
     berries: (file.berries ?? []).map((b) => ({ at: at(b.at), finishedDiameter: b.finishedDiameter, fabric: b.fabric })),
