@@ -12,6 +12,7 @@ import type { DesignFile } from '../lib/schemas/design'
 import { designFileSchema } from '../lib/schemas/design'
 import type { PatternState } from '../lib/schemas/pattern'
 import { Pattern, PatternRevision, User } from '../models'
+import { hollyberryWreath } from './demo-wreath'
 
 /** For the demo only: every demo account signs in with this password. */
 export const DEMO_PASSWORD = 'stitch-and-flip-26'
@@ -32,45 +33,6 @@ const polar = (radius: number, degrees: number): [number, number] => [
   Math.round(radius * cos(degrees) * 10_000) / 10_000,
   Math.round(radius * sin(degrees) * 10_000) / 10_000,
 ]
-
-/**
- * Quarters of an 18 in wreath, each cut by straight lines: a centre triangle, a band, and two
- * outer areas split along the quarter's middle. The two stacked leaves lie over the outer areas,
- * caught in the band's seam, so the outer areas are sewn first and all four fit on one foundation.
- */
-const hollyberryWreath: DesignFile = {
-  format: 'wreathwright-design',
-  version: 1,
-  name: 'Hollyberry Wreath',
-  units: 'in',
-  ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
-  seams: [
-    { id: 'centre', from: [4, 0], to: [0, 4] },
-    { id: 'band', from: [7, 0], to: [0, 7] },
-    { id: 'vein', from: [3.5, 3.5], to: polar(9, 45) },
-  ],
-  fills: [
-    { at: [1, 1], fabric: 'background' },
-    { at: [2.5, 3], fabric: 'band' },
-    { at: [6, 1.5], fabric: 'background' },
-    { at: [1.5, 6], fabric: 'background' },
-  ],
-  leaves: [
-    { id: 'leaf-east', seam: 'band', at: 0.3, side: 'right', angle: 0, length: 1.75, width: 0.875, layers: ['leaf-dark', 'leaf-light'] },
-    { id: 'leaf-north', seam: 'band', at: 0.7, side: 'right', angle: 0, length: 1.75, width: 0.875, layers: ['leaf-dark', 'leaf-light'] },
-  ],
-  stems: [{ radius: 7.75, finishedWidth: 0.375, fabric: 'stem' }],
-  berries: [
-    { at: polar(7.75, 20), finishedDiameter: 0.625, fabric: 'berry' },
-    { at: polar(7.75, 70), finishedDiameter: 0.625, fabric: 'berry' },
-  ],
-  curls: [{ points: [polar(8.1, 40), polar(8.4, 44), polar(8.2, 49)] }],
-  colorways: [
-    { name: 'Holly', fabrics: { background: '#f4ecd8', band: '#c9d6b8', 'leaf-dark': '#2f5540', 'leaf-light': '#6f9a6a', stem: '#4a3a2a', berry: '#a3392b' } },
-    { name: 'Frost', fabrics: { background: '#eef2f5', band: '#c8d4de', 'leaf-dark': '#41607a', 'leaf-light': '#8fb0c8', stem: '#5b6670', berry: '#d9dee3' } },
-  ],
-  order: null,
-}
 
 /** Sixths with a centre opening, alternately mirrored: two bands and a split outer area. */
 const lanternMedallion: DesignFile = {
