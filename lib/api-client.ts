@@ -1,7 +1,11 @@
 /**
  * The browser's side of the JSON API: one fetch wrapper so every screen shows the server's
- * message and field paths the same way.
+ * message and field paths the same way, and reads answers through the zod schemas the server's
+ * answers are typed with (lib/schemas), so an answer of the wrong shape is an error here, not a
+ * crash somewhere in a component.
  */
+import type { z } from 'zod'
+
 export interface ApiIssue {
   readonly path: string
   readonly message: string
@@ -18,9 +22,29 @@ export class ApiError extends Error {
   }
 }
 
-export async function apiFetch<T>(url: string, init: RequestInit & { json?: unknown } = {}): Promise<T> {
-  const { json, headers, ...rest } = init
-  const response = await fetch(url, {
+/** What a successful answer that does not match its schema is called. */
+export const MALFORMED_ANSWER = 'The server’s answer made no sense.'
+
+export interface ApiRequest<T> extends RequestInit {
+  /** A body to send as JSON. */
+  readonly json?: unknown
+  /** The schema of a successful answer's body; without it the body is not checked. */
+  readonly schema?: z.ZodType<T>
+  /** The fetch to use (tests pass a fake); the browser's by default. */
+  readonly fetch?: typeof fetch
+}
+
+/**
+ * Sends a request and returns the answer's body, parsed with `schema` when one is given. A
+ * refusal (4xx, 5xx) throws an `ApiError` with the server's message, field issues and error body;
+ * so does an answer that does not match `schema` (status kept, message `MALFORMED_ANSWER`); a
+ * network failure rejects as fetch does.
+ *
+ * @example const { pattern } = await apiFetch(`/api/patterns/${id}`, { schema: patternAnswerSchema })
+ */
+export async function apiFetch<T>(url: string, init: ApiRequest<T> = {}): Promise<T> {
+  const { json, headers, schema, fetch: send = (input, options) => globalThis.fetch(input, options), ...rest } = init
+  const response = await send(url, {
     ...rest,
     headers: { accept: 'application/json', ...(json !== undefined ? { 'content-type': 'application/json' } : {}), ...headers },
     body: json !== undefined ? JSON.stringify(json) : rest.body,
@@ -29,11 +53,24 @@ export async function apiFetch<T>(url: string, init: RequestInit & { json?: unkn
   if (response.status === 204) return undefined as T
   const body = (await response.json().catch(() => ({}))) as Record<string, unknown>
   if (!response.ok) {
-    const error = (body.error ?? {}) as { message?: string; issues?: ApiIssue[] }
+    const error = (body?.error ?? {}) as { message?: string; issues?: ApiIssue[] }
     throw new ApiError(error.message ?? `Request failed (${response.status})`, response.status, error.issues ?? [], error)
   }
-  return body as T
+  if (!schema) return body as T
+  const parsed = schema.safeParse(body)
+  if (!parsed.success) {
+    const issues = parsed.error.issues.map((issue) => ({ path: issue.path.map(String).join('.') || '(body)', message: issue.message }))
+    throw new ApiError(MALFORMED_ANSWER, response.status, issues)
+  }
+  return parsed.data
 }
 
-/** SWR's fetcher: GET and return the JSON body. */
-export const getJson = <T,>(url: string): Promise<T> => apiFetch<T>(url)
+/**
+ * SWR's fetcher for an answer of a known shape: GET and return the parsed JSON body.
+ *
+ * @example useSWR('/api/patterns', getJsonOf(patternListAnswerSchema))
+ */
+export const getJsonOf =
+  <T,>(schema: z.ZodType<T>) =>
+  (url: string): Promise<T> =>
+    apiFetch<T>(url, { schema })

@@ -3,9 +3,10 @@
 import Link from 'next/link'
 import { useMemo, useState, type FormEvent } from 'react'
 import useSWR from 'swr'
-import { ApiError, apiFetch, getJson } from '@/lib/api-client'
-import { createPatternSchema, patternNameSchema } from '@/lib/schemas/pattern'
-import type { PatternSummary } from '@/lib/services/patterns'
+import { ApiError, apiFetch, getJsonOf } from '@/lib/api-client'
+import {
+  createPatternSchema, patternAnswerSchema, patternListAnswerSchema, patternNameSchema, type PatternSummary,
+} from '@/lib/schemas/pattern'
 import { sortPatterns, type ShelfColumn, type SortDirection } from './sort-patterns'
 
 const COLUMNS: readonly { key: ShelfColumn; label: string }[] = [
@@ -21,13 +22,16 @@ const STATE_LABELS: Record<PatternSummary['state'], string> = {
   retired: 'Retired',
 }
 
+/** The shelf's list, read through its schema: a malformed answer is an error shown, not a crash. */
+const getPatternList = getJsonOf(patternListAnswerSchema)
+
 function messageOf(error: unknown): string {
   return error instanceof ApiError ? error.message : 'Could not reach Wreathwright. Try again.'
 }
 
 /** The designer's patterns as a sortable table, with create, rename and delete. */
 export function PatternShelf() {
-  const { data, error, isLoading, mutate } = useSWR<{ patterns: PatternSummary[] }>('/api/patterns', getJson)
+  const { data, error, isLoading, mutate } = useSWR('/api/patterns', getPatternList)
   const [sort, setSort] = useState<{ column: ShelfColumn; direction: SortDirection }>({ column: 'updatedAt', direction: 'descending' })
   const [notice, setNotice] = useState<string | null>(null)
   const rows = useMemo(() => sortPatterns(data?.patterns ?? [], sort.column, sort.direction), [data, sort])
@@ -108,7 +112,7 @@ function CreatePatternForm({ onCreated }: { onCreated: (name: string) => Promise
     setError(null)
     setBusy(true)
     try {
-      await apiFetch('/api/patterns', { method: 'POST', json: parsed.data })
+      await apiFetch('/api/patterns', { method: 'POST', json: parsed.data, schema: patternAnswerSchema })
       formElement.reset()
       await onCreated(parsed.data.name)
     } catch (cause) {
@@ -164,7 +168,7 @@ function PatternRow({
     const parsed = patternNameSchema.safeParse(new FormData(event.currentTarget).get('name'))
     if (!parsed.success) return setError(parsed.error.issues[0]?.message ?? 'Check the name.')
     try {
-      await apiFetch(`/api/patterns/${pattern.id}`, { method: 'PATCH', json: { revision: pattern.revision, name: parsed.data } })
+      await apiFetch(`/api/patterns/${pattern.id}`, { method: 'PATCH', json: { revision: pattern.revision, name: parsed.data }, schema: patternAnswerSchema })
       setEditing(false)
       setError(null)
       await onRenamed(parsed.data)

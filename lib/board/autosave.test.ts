@@ -420,3 +420,31 @@ describe('two tabs of one pattern in the same browser', () => {
     expect(storage.items.get(draftKey(PATTERN_ID))).toContain('"repeats":8')
   })
 })
+
+describe('one phase field', () => {
+  it('walks waiting → saving → idle, and names failures, refusals and conflicts', async () => {
+    const { store, autosaver, server } = setup()
+    const phases: string[] = []
+    autosaver.subscribe(() => phases.push(autosaver.getState().phase))
+    store.run('setRing', { repeats: 6 })
+    await vi.advanceTimersByTimeAsync(1_000)
+    expect(phases).toEqual(['waiting', 'saving', 'idle'])
+    server.offline = true
+    store.run('setRing', { repeats: 8 })
+    await vi.advanceTimersByTimeAsync(1_000)
+    expect(autosaver.getState()).toMatchObject({ phase: 'retrying', status: 'error' })
+    server.offline = false
+    server.invalid = true
+    await autosaver.retryNow()
+    expect(autosaver.getState()).toMatchObject({ phase: 'refused', status: 'error' })
+    server.invalid = false
+    server.saveElsewhere(design({ name: 'Elsewhere' }))
+    store.run('setRing', { repeats: 10 })
+    await vi.advanceTimersByTimeAsync(1_000)
+    expect(autosaver.getState()).toMatchObject({ phase: 'conflict', status: 'conflict' })
+    const reloading = autosaver.reloadTheirs()
+    expect(autosaver.getState().phase).toBe('resolving')
+    await reloading
+    expect(autosaver.getState()).toMatchObject({ phase: 'idle', status: 'saved' })
+  })
+})

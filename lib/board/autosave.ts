@@ -1,6 +1,7 @@
 /**
- * Saving the drafting board through the pattern API, framework-free so it can be tested with a
- * fake fetch, a fake storage and fake timers; React reads it through getState/subscribe.
+ * Saving the drafting board: the save state machine. Framework-free so it can be tested with a
+ * fake fetch, a fake storage and fake timers; React reads it through getState/subscribe. It talks
+ * to the server through ./pattern-api.ts and keeps drafts by the rules of ./local-draft.ts.
  *
  * - A save goes out ~1 s after the last change, never mid-drag, one request at a time; changes
  *   made while a request is out are coalesced into the next one.
@@ -10,9 +11,17 @@
  *   saved (the pattern was only renamed or changed state), when the save simply goes on top.
  * - Every change is also written to localStorage as a draft, cleared once the server has it, so a
  *   crash or a closed tab loses nothing; the next visit offers the draft back.
+ *
+ * Where the machine is, is one field, `phase`:
+ *
+ *   idle ──change──▶ waiting ──quiet time──▶ saving ──saved──▶ idle (or waiting: changes made meanwhile)
+ *                                              ├──failed──▶ retrying ──retry time──▶ saving
+ *                                              ├──refused──▶ refused ──change──▶ waiting
+ *                                              └──409──▶ conflict ──reload / keep mine──▶ resolving ──▶ idle (or conflict)
  */
-import { designFileSchema, type DesignFile } from '@/lib/schemas/design'
-import { clearLocalDraft, findRecoverableDraft, isSameDesign, writeLocalDraft, type DraftStorage, type LocalDraft } from './local-draft'
+import type { DesignFile } from '@/lib/schemas/design'
+import { createLocalDrafts, isSameDesign, type DraftStorage, type LocalDraft } from './local-draft'
+import { createPatternApi, UNREACHABLE } from './pattern-api'
 
 /** The part of the board store (lib/board/store.ts) the autosaver needs. */
 export interface AutosaveStore {
@@ -27,21 +36,35 @@ export const SAVE_DELAY_MS = 1_000
 /** Waits before retrying a failed save: soon at first, then every 30 s while the network is out. */
 export const RETRY_DELAYS_MS: readonly number[] = [2_000, 5_000, 15_000, 30_000]
 
+/**
+ * Where the save machine is:
+ * - `idle`: nothing to send (saved, or a drag not yet let go);
+ * - `waiting`: a save goes out when the quiet time after the last change is over;
+ * - `saving`: a request is out (changes made meanwhile wait for it);
+ * - `retrying`: the last save failed (network, server, signed out) and is retried at `retryAt`;
+ * - `refused`: the server refused the design; the next change is saved anew;
+ * - `conflict`: saved elsewhere meanwhile; nothing is saved until the designer chooses;
+ * - `resolving`: the designer's choice (reload theirs, keep mine) is under way.
+ */
+export type SavePhase = 'idle' | 'waiting' | 'saving' | 'retrying' | 'refused' | 'conflict' | 'resolving'
+
+/** What the save indicator says, from the phase and whether the board differs from the server. */
 export type SaveStatus = 'saved' | 'unsaved' | 'saving' | 'error' | 'conflict'
 
 export interface AutosaveState {
+  readonly phase: SavePhase
   readonly status: SaveStatus
   /** The server revision the board's last saved design is; the next save starts from it. */
   readonly revision: number
   /** When the server last confirmed a save (ISO time), or null before the first one. */
   readonly lastSavedAt: string | null
-  /** Why the last save or resolution failed, in plain words, or null. */
+  /** Why the last save or resolution failed, in plain words, or null; kept until a save succeeds. */
   readonly problem: string | null
   /** When the next automatic retry goes out (ms since 1970), or null if none is planned. */
   readonly retryAt: number | null
-  /** In 'conflict': the revision now on the server, as the 409 named it. */
+  /** In a conflict: the revision now on the server, as the 409 named it. */
   readonly conflictRevision: number | null
-  /** A reload or keep-mine is under way. */
+  /** A reload or keep-mine is under way (phase `resolving`). */
   readonly resolving: boolean
   /** A draft left by an earlier visit that differs from the saved design, until restored or discarded. */
   readonly recoverableDraft: LocalDraft | null
@@ -80,38 +103,8 @@ export interface AutosaverOptions {
   readonly debounceMs?: number
 }
 
-// ---------------------------------------------------------------------------------------------
-// Talking to the pattern API
-
-type SaveOutcome =
-  | { readonly kind: 'saved'; readonly revision: number }
-  | { readonly kind: 'conflict'; readonly currentRevision: number | null }
-  | { readonly kind: 'invalid'; readonly message: string }
-  | { readonly kind: 'failed'; readonly message: string }
-
-const UNREACHABLE = 'Could not reach Wreathwright.'
-
-async function readJson(response: Response): Promise<Record<string, unknown>> {
-  try {
-    const body: unknown = await response.json()
-    return body && typeof body === 'object' ? (body as Record<string, unknown>) : {}
-  } catch {
-    return {}
-  }
-}
-
-function errorOf(body: Record<string, unknown>): { message?: unknown; currentRevision?: unknown; issues?: unknown } {
-  return (body.error && typeof body.error === 'object' ? body.error : {}) as Record<string, unknown>
-}
-
-function failureMessage(status: number, body: Record<string, unknown>): string {
-  if (status === 401) return 'You are signed out. Sign in again (in another tab) and saving carries on.'
-  const message = errorOf(body).message
-  return typeof message === 'string' ? message : `The server answered ${status}.`
-}
-
-// ---------------------------------------------------------------------------------------------
-// The controller
+/** Phases in which the machine sends nothing on its own: a request is out, or the designer must choose. */
+const BUSY: ReadonlySet<SavePhase> = new Set(['saving', 'conflict', 'resolving'])
 
 /**
  * Creates the board's autosaver. It does nothing until `start()`.
@@ -123,29 +116,22 @@ function failureMessage(status: number, body: Record<string, unknown>): string {
  */
 export function createAutosaver(options: AutosaverOptions): Autosaver {
   const { patternId, store } = options
-  const request = options.fetch ?? ((input: RequestInfo | URL, init?: RequestInit) => globalThis.fetch(input, init))
-  const storage = options.storage ?? null
+  const api = createPatternApi(patternId, options.fetch)
+  const drafts = createLocalDrafts(options.storage ?? null, patternId)
   const debounceMs = options.debounceMs ?? SAVE_DELAY_MS
-  const url = `/api/patterns/${encodeURIComponent(patternId)}`
-  // Not crypto.randomUUID: that exists only on secure origins, and a board may be opened over plain http on a LAN.
-  const writer = Math.random().toString(36).slice(2, 12)
 
+  let phase: SavePhase = 'idle'
   let revision = options.revision
   /** The design the server holds at `revision` (by reference: the store never mutates designs). */
   let savedDesign = store.getState().history.present
   let observed = savedDesign
   let observedDragging = store.getState().history.mark !== null
-  let inFlight = false
-  let resolving = false
+  let problem: string | null = null
   let conflictRevision: number | null = null
-  let inConflict = false
-  let failure: { message: string; retry: boolean } | null = null
   let failures = 0
   let timer: ReturnType<typeof setTimeout> | null = null
   let retryAt: number | null = null
   let lastSavedAt: string | null = null
-  let recoverableDraft: LocalDraft | null = null
-  let lookedForDraft = false
   let unsubscribe: (() => void) | null = null
   /** Set while the autosaver itself replaces the design with the server's, which is not a change. */
   let adopting = false
@@ -155,8 +141,11 @@ export function createAutosaver(options: AutosaverOptions): Autosaver {
 
   function snapshot(): AutosaveState {
     const dirty = store.getState().history.present !== savedDesign
-    const status: SaveStatus = inConflict ? 'conflict' : failure ? 'error' : inFlight ? 'saving' : dirty ? 'unsaved' : 'saved'
-    return { status, revision, lastSavedAt, problem: failure?.message ?? null, retryAt, conflictRevision, resolving, recoverableDraft }
+    const status: SaveStatus =
+      phase === 'conflict' || phase === 'resolving' ? 'conflict' : problem !== null ? 'error' : phase === 'saving' ? 'saving' : dirty ? 'unsaved' : 'saved'
+    return {
+      phase, status, revision, lastSavedAt, problem, retryAt, conflictRevision, resolving: phase === 'resolving', recoverableDraft: drafts.recoverable,
+    }
   }
 
   function publish() {
@@ -167,23 +156,15 @@ export function createAutosaver(options: AutosaverOptions): Autosaver {
     for (const listener of listeners) listener()
   }
 
-  // While an old draft waits for the designer's answer it stays in storage untouched: the current
-  // work is on its way to the server anyway, and the old one must survive another crash.
-  function keepDraft(design: DesignFile) {
-    if (recoverableDraft) return
-    writeLocalDraft(storage, { patternId, baseRevision: revision, savedAt: new Date().toISOString(), design, writer })
-  }
-  function dropDraft() {
-    if (!recoverableDraft) clearLocalDraft(storage, patternId, writer)
-  }
-
   function cancelTimer() {
     if (timer !== null) clearTimeout(timer)
     timer = null
     retryAt = null
   }
-  function schedule(delayMs: number) {
+  /** Sends a save after `delayMs`; while a request is out, the phase stays `saving` until it answers. */
+  function saveAfter(delayMs: number, next: 'waiting' | 'retrying' = 'waiting') {
     cancelTimer()
+    if (phase !== 'saving') phase = next
     timer = setTimeout(() => {
       timer = null
       retryAt = null
@@ -205,63 +186,19 @@ export function createAutosaver(options: AutosaverOptions): Autosaver {
     if (dragging) return publish()
     if (present === savedDesign) {
       // Undone back to what the server has: nothing is left to save or to retry.
-      if (!inFlight) {
-        dropDraft()
-        failure = null
+      if (phase !== 'saving') {
+        drafts.drop()
+        problem = null
         cancelTimer()
+        if (!BUSY.has(phase)) phase = 'idle'
       }
       return publish()
     }
-    keepDraft(present)
-    // In a conflict nothing is saved until the designer chooses; while retrying, the retry goes first.
-    if (!inConflict && !(failure?.retry && timer !== null)) schedule(debounceMs)
+    drafts.keep(present, revision)
+    // In a conflict nothing is saved until the designer chooses; while retrying, the retry goes
+    // first; while saving, the next save waits its quiet time and the answer.
+    if (phase !== 'conflict' && phase !== 'resolving' && phase !== 'retrying') saveAfter(debounceMs)
     publish()
-  }
-
-  async function patch(design: DesignFile, keepalive: boolean): Promise<SaveOutcome> {
-    let response: Response
-    try {
-      response = await request(url, {
-        method: 'PATCH',
-        headers: { 'content-type': 'application/json', accept: 'application/json' },
-        body: JSON.stringify({ revision, design }),
-        credentials: 'same-origin',
-        keepalive,
-      })
-    } catch {
-      return { kind: 'failed', message: UNREACHABLE }
-    }
-    const body = await readJson(response)
-    if (response.ok) {
-      const saved = (body.pattern as { revision?: unknown } | undefined)?.revision
-      return typeof saved === 'number' ? { kind: 'saved', revision: saved } : { kind: 'failed', message: 'The server’s answer made no sense.' }
-    }
-    if (response.status === 409) {
-      const current = errorOf(body).currentRevision
-      return { kind: 'conflict', currentRevision: typeof current === 'number' ? current : null }
-    }
-    if (response.status === 422) {
-      const issues = errorOf(body).issues
-      const first = Array.isArray(issues) ? (issues[0] as { path?: string; message?: string } | undefined) : undefined
-      const detail = first ? `${first.path ?? ''}: ${first.message ?? ''}` : failureMessage(422, body)
-      return { kind: 'invalid', message: `The server refused this design (${detail}).` }
-    }
-    return { kind: 'failed', message: failureMessage(response.status, body) }
-  }
-
-  async function fetchSaved(): Promise<{ revision: number; design: DesignFile }> {
-    let response: Response
-    try {
-      response = await request(url, { headers: { accept: 'application/json' }, credentials: 'same-origin' })
-    } catch {
-      throw new Error(UNREACHABLE)
-    }
-    const body = await readJson(response)
-    if (!response.ok) throw new Error(failureMessage(response.status, body))
-    const pattern = body.pattern as { revision?: unknown; design?: unknown } | undefined
-    const design = designFileSchema.safeParse(pattern?.design)
-    if (typeof pattern?.revision !== 'number' || !design.success) throw new Error('The saved pattern could not be read.')
-    return { revision: pattern.revision, design: design.data }
   }
 
   /**
@@ -270,7 +207,7 @@ export function createAutosaver(options: AutosaverOptions): Autosaver {
    */
   async function isOnlyDetailsChangedElsewhere(): Promise<boolean> {
     try {
-      const saved = await fetchSaved()
+      const saved = await api.load()
       if (!isSameDesign(saved.design, savedDesign)) return false
       revision = saved.revision
       return true
@@ -280,75 +217,71 @@ export function createAutosaver(options: AutosaverOptions): Autosaver {
   }
 
   async function save({ force = false, keepalive = false } = {}): Promise<void> {
-    if (inFlight || inConflict || resolving) return
+    if (BUSY.has(phase)) return
     const { present, mark } = store.getState().history
     if (mark !== null) return // the drag's end schedules the save
-    if (!force && present === savedDesign) {
-      failure = null
-      return publish()
-    }
-    if (!force && isSameDesign(present, savedDesign)) {
-      // A command that changed nothing (the same value typed again) makes no empty revision.
+    if (!force && (present === savedDesign || isSameDesign(present, savedDesign))) {
+      // Nothing to send; a command that changed nothing (the same value typed again) makes no empty revision.
+      if (present !== savedDesign) drafts.drop()
       savedDesign = present
-      failure = null
-      dropDraft()
+      problem = null
+      phase = timer !== null ? phase : 'idle'
       return publish()
     }
-    inFlight = true
+    phase = 'saving'
     publish()
-    const outcome = await patch(present, keepalive)
-    inFlight = false
+    const outcome = await api.save(revision, present, { keepalive })
+    phase = 'idle'
     if (outcome.kind === 'saved') {
       revision = outcome.revision
       savedDesign = present
       lastSavedAt = new Date().toISOString()
-      failure = null
+      problem = null
       failures = 0
-      if (timer !== null && retryAt !== null) cancelTimer()
       const now = store.getState().history.present
-      if (now === savedDesign) dropDraft()
-      else {
-        keepDraft(now)
-        // Changes made while this request was out: their quiet time may be over already.
-        if (timer === null) schedule(0)
-      }
+      if (now === savedDesign) drafts.drop()
+      else drafts.keep(now, revision)
+      // Changes made while this request was out: their quiet time may be over already.
+      if (timer !== null) phase = 'waiting'
+      else if (now !== savedDesign && store.getState().history.mark === null) saveAfter(0)
     } else if (outcome.kind === 'conflict' && !force && !keepalive && (await isOnlyDetailsChangedElsewhere())) {
       // Renamed or moved to another state elsewhere, the design untouched: nothing to choose
       // between, so the change goes out again on top of the newer revision.
-      failure = null
-      schedule(0)
+      problem = null
+      saveAfter(0)
     } else if (outcome.kind === 'conflict') {
-      inConflict = true
-      conflictRevision = outcome.currentRevision
-      failure = null
       cancelTimer()
+      phase = 'conflict'
+      conflictRevision = outcome.currentRevision
+      problem = null
     } else if (outcome.kind === 'invalid') {
       // Sending the same design again would be refused again; the next change tries anew.
-      failure = { message: outcome.message, retry: false }
       cancelTimer()
+      phase = 'refused'
+      problem = outcome.message
     } else {
-      failure = { message: outcome.message, retry: true }
+      problem = outcome.message
       failures += 1
       const delay = RETRY_DELAYS_MS[Math.min(failures, RETRY_DELAYS_MS.length) - 1] ?? SAVE_DELAY_MS
-      schedule(delay)
+      saveAfter(delay, 'retrying')
       retryAt = Date.now() + delay
     }
     publish()
   }
 
+  /** Runs the designer's answer to a conflict; if it fails, the conflict stays, with the reason. */
   async function resolve(work: () => Promise<void>) {
-    if (!inConflict || resolving || inFlight) return
-    resolving = true
-    failure = null
+    if (phase !== 'conflict') return
+    phase = 'resolving'
+    problem = null
     publish()
     try {
       await work()
     } catch (error) {
-      failure = { message: error instanceof Error ? error.message : UNREACHABLE, retry: false }
-    } finally {
-      resolving = false
-      publish()
+      phase = 'conflict'
+      problem = error instanceof Error ? error.message : UNREACHABLE
     }
+    publish()
   }
 
   function stop() {
@@ -365,12 +298,7 @@ export function createAutosaver(options: AutosaverOptions): Autosaver {
     },
     start() {
       if (unsubscribe) return stop
-      if (!lookedForDraft) {
-        // Read before this visit writes a draft of its own over it.
-        lookedForDraft = true
-        recoverableDraft = findRecoverableDraft(storage, patternId, savedDesign)
-        if (!recoverableDraft) clearLocalDraft(storage, patternId)
-      }
+      drafts.lookForRecoverable(savedDesign)
       unsubscribe = store.subscribe(onStoreChange)
       onStoreChange()
       publish()
@@ -382,13 +310,13 @@ export function createAutosaver(options: AutosaverOptions): Autosaver {
       return save()
     },
     retryNow() {
-      if (!failure) return Promise.resolve()
+      if (problem === null) return Promise.resolve()
       cancelTimer()
       return save()
     },
     reloadTheirs: () =>
       resolve(async () => {
-        const saved = await fetchSaved()
+        const saved = await api.load()
         adopting = true
         try {
           store.run('replaceDesign', { design: saved.design })
@@ -398,46 +326,40 @@ export function createAutosaver(options: AutosaverOptions): Autosaver {
         savedDesign = store.getState().history.present
         observed = savedDesign
         revision = saved.revision
-        inConflict = false
+        phase = 'idle'
         conflictRevision = null
         lastSavedAt = new Date().toISOString()
-        dropDraft()
+        drafts.drop()
       }),
     keepMine: () =>
       resolve(async () => {
-        const saved = await fetchSaved()
+        const saved = await api.load()
         revision = saved.revision
-        inConflict = false
+        phase = 'idle'
         conflictRevision = null
-        resolving = false
         // Forced: even if the board was undone back to the old design, the designer chose it.
         await save({ force: true })
       }),
     flushOnLeave() {
       const { present, mark } = store.getState().history
-      if (present !== savedDesign) keepDraft(present)
+      if (present !== savedDesign) drafts.keep(present, revision)
       // Mid-drag or mid-request the draft carries the change to the next visit instead; a second
       // request from the same revision would only meet the first one as a conflict.
-      if (mark !== null || inFlight || inConflict || resolving || present === savedDesign) return
+      if (mark !== null || BUSY.has(phase) || present === savedDesign) return
       cancelTimer()
       // keepalive lets the request outlive the page (its body must stay under 64 KiB).
       void save({ keepalive: true })
     },
     restoreDraft() {
-      const draft = recoverableDraft
+      const draft = drafts.takeRecoverable()
       if (!draft) return
-      recoverableDraft = null
       store.run('replaceDesign', { design: draft.design })
       publish()
     },
     discardDraft() {
-      if (!recoverableDraft) return
-      recoverableDraft = null
+      if (!drafts.recoverable) return
       const present = store.getState().history.present
-      // The stored draft is still the one offered (nothing was written over it meanwhile), so it
-      // goes whoever wrote it.
-      if (present === savedDesign) clearLocalDraft(storage, patternId)
-      else keepDraft(present)
+      drafts.discardRecoverable(present === savedDesign ? null : { design: present, baseRevision: revision })
       publish()
     },
   }

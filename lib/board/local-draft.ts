@@ -114,3 +114,73 @@ function canonicalJson(value: unknown): string {
       : item,
   )
 }
+
+/**
+ * The local-draft rules of one board (one autosaver):
+ * - every unsaved change is kept, and cleared once the server has it;
+ * - one tab never clears a draft another tab wrote (`writer`);
+ * - a draft an earlier visit left is offered back (`recoverable`) and, until the designer answers,
+ *   stays in storage untouched: the current work goes to the server anyway, and the old one must
+ *   survive another crash.
+ */
+export interface LocalDrafts {
+  /** A draft left by an earlier visit that differs from the saved design, until restored or discarded. */
+  readonly recoverable: LocalDraft | null
+  /** Looks once, before this board writes a draft of its own over it. */
+  lookForRecoverable(savedDesign: DesignFile): void
+  /** Keeps an unsaved design, made from `baseRevision`. */
+  keep(design: DesignFile, baseRevision: number): void
+  /** The server has the design: the draft goes. */
+  drop(): void
+  /** Hands the recoverable draft over (to put on the board) and forgets it. */
+  takeRecoverable(): LocalDraft | null
+  /** Forgets the recoverable draft; the board's own unsaved design, if any, is kept in its place. */
+  discardRecoverable(unsaved: { design: DesignFile; baseRevision: number } | null): void
+}
+
+/**
+ * The drafts of one board of a pattern. `storage` null keeps none (server rendering, storage off).
+ *
+ * @example
+ * const drafts = createLocalDrafts(localStorage, pattern.id)
+ * drafts.lookForRecoverable(pattern.design)
+ * if (drafts.recoverable) offerBack(drafts.recoverable)
+ */
+export function createLocalDrafts(storage: DraftStorage | null, patternId: string): LocalDrafts {
+  // Not crypto.randomUUID: that exists only on secure origins, and a board may be opened over plain http on a LAN.
+  const writer = Math.random().toString(36).slice(2, 12)
+  let recoverable: LocalDraft | null = null
+  let looked = false
+  const keep = (design: DesignFile, baseRevision: number) => {
+    if (recoverable) return
+    writeLocalDraft(storage, { patternId, baseRevision, savedAt: new Date().toISOString(), design, writer })
+  }
+  return {
+    get recoverable() {
+      return recoverable
+    },
+    lookForRecoverable(savedDesign) {
+      if (looked) return
+      looked = true
+      recoverable = findRecoverableDraft(storage, patternId, savedDesign)
+      if (!recoverable) clearLocalDraft(storage, patternId)
+    },
+    keep,
+    drop() {
+      if (!recoverable) clearLocalDraft(storage, patternId, writer)
+    },
+    takeRecoverable() {
+      const draft = recoverable
+      recoverable = null
+      return draft
+    },
+    discardRecoverable(unsaved) {
+      if (!recoverable) return
+      recoverable = null
+      // The stored draft is still the one offered (nothing was written over it meanwhile), so it
+      // goes whoever wrote it.
+      if (unsaved) keep(unsaved.design, unsaved.baseRevision)
+      else clearLocalDraft(storage, patternId)
+    },
+  }
+}

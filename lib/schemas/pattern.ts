@@ -44,3 +44,27 @@ export const updatePatternSchema = z
 export type UpdatePatternInput = z.infer<typeof updatePatternSchema>
 
 export const patternIdSchema = z.uuid({ error: 'No such pattern.' })
+
+// The API's answers, parsed by the browser (lib/api-client.ts) and typed on the server
+// (lib/services/patterns.ts) from the same schemas. Plain objects, not strict: an answer that
+// gains a field does not break an older page.
+
+/** A row of the pattern shelf, as `GET /api/patterns` lists it. */
+export const patternSummarySchema = z.object({
+  id: z.string(),
+  name: z.string(),
+  state: z.enum(PATTERN_STATES),
+  revision: z.number().int().positive(),
+  createdAt: z.string(),
+  updatedAt: z.string(),
+})
+export type PatternSummary = z.infer<typeof patternSummarySchema>
+
+/** One pattern with its design, as `GET`, `POST` and `PATCH` answer it. */
+export const patternViewSchema = patternSummarySchema.extend({ ownerId: z.string(), design: designFileSchema })
+export type PatternView = z.infer<typeof patternViewSchema>
+
+/** `GET /api/patterns`. */
+export const patternListAnswerSchema = z.object({ patterns: z.array(patternSummarySchema) })
+/** `GET`, `PATCH /api/patterns/:id` and `POST /api/patterns`. */
+export const patternAnswerSchema = z.object({ pattern: patternViewSchema })
