@@ -23,3 +23,4 @@ export { trimLine, sectionTrimLine, arcSweep, pathToPolygon, outlineFromPolygon,
 export type { LinePathSegment, ArcPathSegment, PathSegment, OutlinePath, TrimLine, TrimLineOptions } from './trim-line'
 export * from './leaf-template'
 export { smoothCurve, bezierPoint, sampleSmoothCurve, mapSmoothCurve, type SmoothCurve, type BezierPiece } from './smooth-curve'
+export { leafNames, areaUnderLeaf, leafBaseOnSeam } from './leaf-names'

@@ -4,6 +4,7 @@ import { buildBooklet, writeBooklet } from './booklet'
 import { pageFrame } from './paper'
 import { allText, openPdf, pagePaths, pageRectangles, pageSizes, pageText } from './test-support/read-pdf'
 import { asymmetricFile, designFrom, medallionFile, wreathFile } from './test-support/designs'
+import type { DesignFile } from '@/lib/schemas/design'
 
 const wreath = designFrom(wreathFile())
 
@@ -133,6 +134,37 @@ describe('tile names', () => {
       }
     }
     expect(tiledPages).toBeGreaterThan(1)
+  })
+})
+
+describe('leaf notes on the foundations', () => {
+  it('never overprint an area label (text positions read back)', async () => {
+    // Three strips of a quarter; a leaf on the upper seam whose tip reaches the middle strip's label point.
+    const strips = (leaves: DesignFile['leaves']) => designFrom(wreathFile({
+      seams: [{ id: 'low', from: [0, 2], to: [Math.sqrt(77), 2] }, { id: 'high', from: [0, 4], to: [Math.sqrt(65), 4] }],
+      fills: [{ at: [1, 1], fabric: 'background' }, { at: [1, 3], fabric: 'band' }, { at: [1, 5], fabric: 'sky' }],
+      leaves, stems: [], berries: [], curls: [],
+    }))
+    const bare = writeBooklet(strips([]), { paper: 'tabloid', parts: ['foundations'] })
+    const middle = bare.model.labelledAreas.find((area) => area.point[1] > 2 && area.point[1] < 4)!
+    const leaf = { id: 'l1', seam: 'high', at: middle.point[0] / Math.sqrt(65), side: 'right' as const, angle: 0, length: 4 - middle.point[1], width: 0.75, layers: ['leaf-dark', 'leaf-light'] }
+    const written = writeBooklet(strips([leaf]), { paper: 'tabloid', parts: ['foundations'] })
+    const pdf = await openPdf(new Uint8Array(written.doc.output('arraybuffer')))
+    const box = (item: { x: number; y: number; width: number; height: number }) => ({ minX: item.x, maxX: item.x + item.width, minY: item.y - 0.25 * item.height, maxY: item.y + 0.8 * item.height })
+    const meet = (a: ReturnType<typeof box>, b: ReturnType<typeof box>) => a.minX < b.maxX && b.minX < a.maxX && a.minY < b.maxY && b.minY < a.maxY
+    let notes = 0
+    for (let page = 1; page <= pdf.numPages; page += 1) {
+      const items = await pageText(pdf, page)
+      const labels = items.filter((item) => /^[A-Z]+\d+$/.test(item.text.trim()))
+      // Each label's fabric line is written 8 pt under it.
+      const fabrics = items.filter((item) => labels.some((label) => Math.abs(label.y - 8 - item.y) < 0.5 && Math.abs(label.x + label.width / 2 - item.x - item.width / 2) < 0.5))
+      const leafNotes = items.filter((item) => /^leaf \d+ of [A-Z]+\d+: baste$/.test(item.text.trim()) || item.text.trim() === 'leaf-dark, leaf-light (bottom first)')
+      notes += leafNotes.length
+      for (const note of leafNotes) {
+        for (const label of [...labels, ...fabrics]) expect(meet(box(note), box(label)), `"${note.text}" over "${label.text}" on page ${page}`).toBe(false)
+      }
+    }
+    expect(notes).toBeGreaterThan(0)
   })
 })
 

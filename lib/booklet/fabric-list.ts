@@ -4,6 +4,7 @@
  * not how much fabric to buy.
  */
 import { formatInches } from '@/lib/units'
+import { leafName, PIECES_PER_FOLDED_LEAF } from './leaves'
 import type { BookletModel } from './model'
 
 export interface CutLine {
@@ -43,8 +44,11 @@ export function cuttingList(model: BookletModel): Map<string, string[]> {
   }
   const { design } = model
   const repeats = design.ring.repeats
+  // Pieces, not leaves: each folded leaf is two pieces cut with its template (8 leaves = 16 pieces).
   for (const leaf of design.leaves) {
-    for (const fabric of leaf.layers) add(fabric, `leaf ${formatInches(leaf.length).replace(' in', '')} × ${formatInches(leaf.width)} (see the leaf template)`, repeats, leaf.id)
+    for (const fabric of leaf.layers) {
+      add(fabric, `leaf piece ${formatInches(leaf.length).replace(' in', '')} × ${formatInches(leaf.width)}, cut with the leaf template (${PIECES_PER_FOLDED_LEAF} per folded leaf)`, PIECES_PER_FOLDED_LEAF * repeats, leafName(model, leaf.id))
+    }
   }
   for (const berry of design.berries) {
     add(berry.fabric, `circle ${formatInches(2 * berry.finishedDiameter + BERRY_EXTRA_INCHES)} across for a ${formatInches(berry.finishedDiameter)} berry`, repeats, '')

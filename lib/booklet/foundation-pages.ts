@@ -16,6 +16,7 @@ import { POINTS_PER_INCH } from '@/lib/units'
 import { font } from './chrome'
 import type { BookletContext } from './context'
 import { dashedPen, solidPen, toPage, tracePath, tracePolygon, type View } from './draw'
+import { leafName } from './leaves'
 import { leavesInBooklet, sectionAreas, type BookletModel, type FoundationKind } from './model'
 import { pageFrame, type PageRect } from './paper'
 import { tileDrawing, writeTiledDrawing, type TiledDrawing } from './tiled-drawing'
@@ -104,19 +105,26 @@ function foundationSheet(model: BookletModel, kind: FoundationKind): FoundationS
       tracePath(doc, view, outlineFromPolygon(polygon, design.ring))
       doc.stroke()
     }
-    for (const leaf of leaves) drawLeafMarks(doc, view, window, leaf)
-    for (const { area } of printed) {
+    // Area labels are placed first, so the leaf notes can keep clear of them.
+    const labels = printed.flatMap(({ area }) => {
       const at = toPage(view, applyTransform(placement, area.point))
       const fabric = model.fabricOf.get(area.id) ?? ''
       font(doc, 6.5)
       const fabricWidth = doc.getTextWidth(fabric)
-      if (!fitsIn(window, at, Math.max(fabricWidth, 20) / 2 + 2, 12)) continue
+      if (!fitsIn(window, at, Math.max(fabricWidth, 20) / 2 + 2, 12)) return []
       font(doc, 10, 'bold')
-      // A white ground keeps the label legible over a seam or an alignment target.
       const groundWidth = Math.max(fabricWidth, doc.getTextWidth(area.label ?? '')) + 4
+      const ground: PageRect = { x: at[0] - groundWidth / 2, y: at[1] - 9, width: groundWidth, height: 19.5 }
+      return [{ label: area.label ?? '', fabric, at, ground }]
+    })
+    const taken = labels.map((label) => label.ground)
+    for (const leaf of leaves) drawLeafMarks(doc, view, window, leaf, taken)
+    for (const { label, fabric, at, ground } of labels) {
+      // A white ground keeps the label legible over a seam or an alignment target.
       doc.setFillColor(255, 255, 255)
-      doc.rect(at[0] - groundWidth / 2, at[1] - 9, groundWidth, 19.5, 'F')
-      doc.text(area.label ?? '', at[0], at[1], { align: 'center' })
+      doc.rect(ground.x, ground.y, ground.width, ground.height, 'F')
+      font(doc, 10, 'bold')
+      doc.text(label, at[0], at[1], { align: 'center' })
       font(doc, 6.5, 'normal', 50)
       doc.text(fabric, at[0], at[1] + 8, { align: 'center' })
     }
@@ -136,7 +144,8 @@ function foundationSheet(model: BookletModel, kind: FoundationKind): FoundationS
 
 /** A leaf as printed on a foundation: its outline, the marks on its seam, its layers. */
 interface PrintedLeaf {
-  readonly id: string
+  /** Its plain name ("leaf 1 of A2"), never its id. */
+  readonly name: string
   readonly layers: readonly string[]
   readonly outline: Polygon
   readonly ticks: readonly [Point, Point][]
@@ -155,7 +164,7 @@ function leavesOfSection(model: BookletModel, kind: FoundationKind, sheetPlaceme
       const ticks = rawEdge.map((end): [Point, Point] => [end, [end[0] + 2 * toSeam[0], end[1] + 2 * toSeam[1]]])
       const t = sheetPlacement
       return {
-        id: leaf.id,
+        name: leafName(model, leaf.id),
         layers: leaf.layers,
         outline: applyToPolygon(t, placement.finishedOutline),
         ticks: ticks.map(([a, b]): [Point, Point] => [applyTransform(t, a), applyTransform(t, b)]),
@@ -164,20 +173,55 @@ function leavesOfSection(model: BookletModel, kind: FoundationKind, sheetPlaceme
     })
 }
 
-function drawLeafMarks(doc: jsPDF, view: View, window: PageRect, leaf: PrintedLeaf): void {
+/** Room around a leaf note kept clear of area labels and other notes, points. */
+const NOTE_CLEARANCE_PT = 1.5
+/** How far from a leaf's tip its note may be written, nearest first, points. */
+const NOTE_GAPS_PT = [3, 16, 32, 56] as const
+
+const overlaps = (a: PageRect, b: PageRect): boolean =>
+  a.x < b.x + b.width + NOTE_CLEARANCE_PT && b.x < a.x + a.width + NOTE_CLEARANCE_PT
+  && a.y < b.y + b.height + NOTE_CLEARANCE_PT && b.y < a.y + a.height + NOTE_CLEARANCE_PT
+
+/**
+ * The leaf's dashed outline and tick marks, and its note (name and layers) beside its tip at the
+ * first place that stays inside the window and clear of every rectangle in `taken` (area labels,
+ * earlier notes); no place, no note (the sewing steps say the same in full). The note's box is
+ * added to `taken`.
+ */
+function drawLeafMarks(doc: jsPDF, view: View, window: PageRect, leaf: PrintedLeaf, taken: PageRect[]): void {
   dashedPen(doc, 0.5, [2, 1.5], [80, 80, 80])
   tracePolygon(doc, view, leaf.outline)
   doc.stroke()
   solidPen(doc, 1.4)
   for (const [a, b] of leaf.ticks) doc.line(...toPage(view, a), ...toPage(view, b))
+  doc.setLineDashPattern([], 0)
   const at = toPage(view, leaf.tip)
   font(doc, 6, 'italic', 30)
-  const lines = [`leaf ${leaf.id}: baste`, leaf.layers.join(', then ') + (leaf.layers.length > 1 ? ' on top' : '')]
+  const lines = [`${leaf.name}: baste`, leaf.layers.length > 1 ? `${leaf.layers.join(', ')} (bottom first)` : (leaf.layers[0] ?? '')]
   const width = Math.max(...lines.map((line) => doc.getTextWidth(line)))
-  const x = at[0] + 3
-  const y = at[1] - 2
-  if (x + width < window.x + window.width - 2 && x > window.x && y - 6 > window.y && y + 8 < window.y + window.height) {
-    doc.text(lines, x, y)
+  // Two lines of 6 pt: from the first cap height to below the second baseline's descenders.
+  const height = 6 + 7 + 2
+  // Beside the tip first, then farther out (with a leader line back to the tip) when labels crowd it.
+  for (const gap of NOTE_GAPS_PT) {
+    const candidates: [number, number][] = [
+      [at[0] + gap, at[1] - 6], [at[0] - gap - width, at[1] - 6], [at[0] - width / 2, at[1] - gap - height], [at[0] - width / 2, at[1] + gap],
+      [at[0] + gap, at[1] - gap - height], [at[0] - gap - width, at[1] - gap - height], [at[0] + gap, at[1] + gap], [at[0] - gap - width, at[1] + gap],
+    ]
+    for (const [x, top] of candidates) {
+      const box: PageRect = { x, y: top, width, height }
+      const inside = x > window.x && x + width < window.x + window.width - 2 && top > window.y && top + height < window.y + window.height
+      if (!inside || taken.some((other) => overlaps(box, other))) continue
+      taken.push(box)
+      if (gap > NOTE_GAPS_PT[0]!) {
+        solidPen(doc, 0.3, [90, 90, 90])
+        const nearX = Math.max(box.x, Math.min(at[0], box.x + box.width))
+        const nearY = Math.max(box.y, Math.min(at[1], box.y + box.height))
+        doc.line(at[0], at[1], nearX, nearY)
+      }
+      font(doc, 6, 'italic', 30)
+      doc.text(lines, x, top + 6)
+      return
+    }
   }
 }
 

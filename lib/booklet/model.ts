@@ -3,8 +3,8 @@
  * each area's fabric, the foundations to print and the fabric each repeat needs. Pure data.
  */
 import {
-  fabricsOfAreas, IDENTITY, isPointInPolygon, planDesign, printedSideTransform, scaleDesign,
-  tryPlaceLeaf, type AffineTransform, type Colorway, type Design, type Leaf, type LeafPlacement, type Plan, type PlanArea, type Point,
+  areaUnderLeaf, fabricsOfAreas, IDENTITY, leafNames, planDesign, printedSideTransform, scaleDesign,
+  tryPlaceLeaf, type AffineTransform, type Colorway, type Design, type Leaf, type LeafPlacement, type Plan, type PlanArea,
 } from '@/geometry'
 import type { BookletOptions } from '@/lib/schemas/booklet'
 
@@ -34,6 +34,8 @@ export interface BookletModel {
   readonly labelledAreas: readonly PlanArea[]
   readonly foundations: readonly FoundationKind[]
   readonly finishedDiameterInches: number
+  /** Every leaf's plain name by id ("leaf 1 of A2"), from geometry's one naming rule. */
+  readonly leafNames: ReadonlyMap<string, string>
 }
 
 /** The fabric role for an area nobody filled. */
@@ -78,7 +80,7 @@ export function bookletModel(original: Design, options: BookletOptions): Booklet
       })
     }
   }
-  return { design, plan, colorway, options, fabricOf, labelledAreas, foundations, finishedDiameterInches: diameter }
+  return { design, plan, colorway, options, fabricOf, labelledAreas, foundations, finishedDiameterInches: diameter, leafNames: leafNames(design, plan) }
 }
 
 /** "1, 3, 5" (from 1) or "2, 4, 6" (from 2): the repeats of one kind, counted from 1. */
@@ -114,6 +116,10 @@ export interface LeafInBooklet {
   readonly section: string | null
   /** The area sewn right after it is basted, or null when a section join catches it. */
   readonly basteBefore: string | null
+  /** The labelled area it lies over, or null. */
+  readonly over: PlanArea | null
+  /** The labelled area whose seam catches it, or null when a section join does. */
+  readonly catcher: PlanArea | null
 }
 
 /**
@@ -130,13 +136,10 @@ export function leavesInBooklet(model: BookletModel): LeafInBooklet[] {
     const placed = tryPlaceLeaf(leaf, seam)
     if (!placed.ok) continue // an impossible leaf is the plan's problem to report, not a reason to stop printing
     const { placement } = placed
-    const { base, tip } = placement
-    const length = Math.hypot(tip[0] - base[0], tip[1] - base[1]) || 1
-    // A point just off the seam on the leaf's side names the area it lies over.
-    const probe: Point = [base[0] + (0.05 * (tip[0] - base[0])) / length, base[1] + (0.05 * (tip[1] - base[1])) / length]
-    const over = model.labelledAreas.find((area) => isPointInPolygon(probe, area.polygon))
-    const caught = model.labelledAreas.find((area) => area.leavesBefore.includes(leaf.id))
-    result.push({ leaf, placement, section: over?.section ?? null, basteBefore: caught?.label ?? null })
+    // The same rule that names the leaf says which area it lies over.
+    const over = areaUnderLeaf(leaf, seam, model.labelledAreas)
+    const caught = model.labelledAreas.find((area) => area.leavesBefore.includes(leaf.id)) ?? null
+    result.push({ leaf, placement, section: over?.section ?? null, basteBefore: caught?.label ?? null, over, catcher: caught })
   }
   return result
 }

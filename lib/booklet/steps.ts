@@ -1,11 +1,11 @@
 /**
- * Sewing steps: for each section, each area in order with the leaves to baste first, its
- * rough-cut piece and a small diagram of where the piece lies before the flip; then how the
+ * Sewing steps: the leaves to make first; for each section, each area in order with the leaves
+ * to baste before it, its rough-cut piece and a small diagram of where the piece lies before the flip; then how the
  * sections and the repeats are joined, and the finishing order.
  */
 import type { jsPDF } from 'jspdf'
 import {
-  applyToPolygon, applyTransform, outlineFromPolygon, roughCutBeforeFlip, type JoinTree, type PlanArea, type Polygon,
+  applyToPolygon, applyTransform, outlineFromPolygon, roughCutBeforeFlip, type JoinTree, type PlanArea, type Point, type Polygon, type Segment,
 } from '@/geometry'
 import { formatInches } from '@/lib/units'
 import { font } from './chrome'
@@ -13,7 +13,11 @@ import type { BookletContext } from './context'
 import { dashedPen, fitView, rgb, solidPen, toPage, tracePath, tracePolygon } from './draw'
 import { BERRY_EXTRA_INCHES, STEM_OVERLAP_INCHES } from './fabric-list'
 import { startFlow, WRAP_SLACK_PT } from './flow'
-import { fabricColour, leavesInBooklet, sectionAreas, type BookletModel, type FoundationKind } from './model'
+import { layersInWords, leafBatches, leafName, leafPlace, PIECES_PER_FOLDED_LEAF } from './leaves'
+import { fabricColour, leavesInBooklet, sectionAreas, type BookletModel, type FoundationKind, type LeafInBooklet } from './model'
+
+/** A corner of an area this close to a seam's line lies on it, inches. */
+const SEAM_LINE_INCHES = 0.01
 
 /** Side of a step's diagram, points. */
 const DIAGRAM_PT = 92
@@ -41,19 +45,24 @@ export function joinSentences(tree: JoinTree | readonly []): string[] {
 function stepText(model: BookletModel, area: PlanArea, previous: PlanArea[]): string[] {
   const fabric = model.fabricOf.get(area.id) ?? ''
   const cut = `${formatInches(area.roughCut.widthIn).replace(' in', '')} × ${formatInches(area.roughCut.heightIn).replace(' in', '')}`
-  const lines: string[] = []
-  for (const leafId of area.leavesBefore) {
-    const leaf = model.design.leaves.find((l) => l.id === leafId)
-    const layers = leaf ? leaf.layers.join(', then ') : ''
-    lines.push(`First baste leaf ${leafId} (${layers} on top) on its marks, raw edges 1/4 in past the seam line, over ${previous.map((p) => p.label).join(', ') || 'the sewn areas'}.`)
-  }
   if (area.sewnAlong === null) {
-    lines.push(`${area.label}: ${fabric}. Cut ${cut} in. Lay it wrong side to the unprinted side of the paper, right side out, covering ${area.label} with at least 1/4 in to spare all round; pin or glue it in place.`)
-  } else {
-    const neighbours = previous.filter((p) => p.label).map((p) => p.label).join(', ')
-    lines.push(`${area.label}: ${fabric}. Cut ${cut} in (the first measure runs along the seam). Fold the paper back on the line between ${area.label} and ${neighbours || 'the sewn areas'} and trim the sewn fabric 1/4 in past the fold. Lay the piece right side down on it, edges matching, as the dashed frame shows; sew on the line with a short stitch, flip it over ${area.label} and press.`)
+    return [`${area.label}: ${fabric}. Cut ${cut} in. Lay it wrong side to the unprinted side of the paper, right side out, covering ${area.label} with at least 1/4 in to spare all round; pin or glue it in place.`]
   }
+  const neighbours = previous.filter((p) => p.label).map((p) => p.label).join(', ')
+  const lines = [`${area.label}: ${fabric}. Cut ${cut} in (the first measure runs along the seam). Fold the paper back on the line between ${area.label} and ${neighbours || 'the sewn areas'} and trim the sewn fabric 1/4 in past the fold.`]
+  const leaves = leavesInBooklet(model).filter((entry) => entry.catcher?.id === area.id)
+  for (const entry of leaves) lines.push(`Then baste ${leafBastingWords(model, entry, area.sewnAlong)}`)
+  lines.push(`Lay the ${area.label} piece right side down on the fabric side${leaves.length > 0 ? ' over the leaves' : ''}, edges matching the trimmed edge, as the dashed frame shows; sew on the line with a short stitch, flip it over ${area.label} and press.`)
   return lines
+}
+
+/**
+ * How to baste one leaf on its line, after that seam's fold-back-and-trim: where it lies, its
+ * layers, and the basting from the printed side that holds it and shows its place.
+ */
+function leafBastingWords(model: BookletModel, entry: LeafInBooklet, line: Segment): string {
+  const place = leafPlace(model, entry.leaf, line, entry.over, entry.catcher)
+  return `${place.name} (${layersInWords(entry.leaf)}): unfold the paper and lay the leaf on the fabric side ${place.words}, its raw edges on the trimmed edge (1/4 in past the line). From the printed side, baste on the line through it with long stitches, so it stays put and its place shows on the fabric side.`
 }
 
 /** The section seen from the printed side: sewn areas grey, this one in its colour, the piece before the flip dashed. */
@@ -100,6 +109,7 @@ export function writeSteps(context: BookletContext): void {
     flow.paragraph('The mirrored repeats have their own foundations, printed the other way round; sew them in the same order, area by area. The diagrams show the plain repeats.', { style: 'italic' })
   }
   flow.paragraph('Set a short stitch (about 1.5 mm, 16 to 18 stitches per inch) so the paper tears away cleanly. Sew on the printed lines with the fabric on the unprinted side; fabric pieces are right side down until they are flipped. Press after each seam.')
+  writeLeafPreparation(model, flow)
   const kind = model.foundations[0]
   for (const section of model.plan.sections) {
     if (!kind) break
@@ -127,13 +137,49 @@ export function writeSteps(context: BookletContext): void {
   joins.forEach((sentence, index) => flow.paragraph(`${index + 1}. ${sentence} Pin at the seam ends, sew on the line, press the seam open.`))
   const inJoins = leavesInBooklet(model).filter((entry) => entry.basteBefore === null && entry.section !== null)
   if (inJoins.length > 0) {
-    flow.paragraph('Leaves caught in a section join: before sewing that join, baste each on its marks at the edge of its section, raw edges 1/4 in past the seam line:', { style: 'bold', size: 8.5 })
-    for (const { leaf, section } of inJoins) flow.paragraph(`- leaf ${leaf.id} on section ${section}: ${leaf.layers.join(', then ')}${leaf.layers.length > 1 ? ' on top' : ''}.`, { indent: 10, size: 8.5 })
+    flow.paragraph('Leaves caught in a section join: once the section is trimmed, before sewing that join, baste each on its marks, raw edges on the trimmed edge (1/4 in past the seam line):', { style: 'bold', size: 8.5 })
+    for (const entry of inJoins) {
+      const seam = model.design.seams.find((s) => s.id === entry.leaf.seam)
+      const line = seam ? joinLine(entry, seam.from, seam.to) : null
+      const place = line ? leafPlace(model, entry.leaf, line, entry.over, null) : null
+      flow.paragraph(`- ${leafName(model, entry.leaf.id)} on section ${entry.section} (${layersInWords(entry.leaf)}): ${place ? `lay it on the fabric side ${place.words}; from the printed side, baste on the line through it.` : 'baste it on its marks.'}`, { indent: 10, size: 8.5 })
+    }
   }
   flow.heading('Joining the repeats')
   flow.paragraph(model.plan.ringAssembly.message)
   if (model.design.ring.repeatMode === 'mirror') flow.paragraph('Alternate the repeats: each mirrored repeat sits between two plain ones.')
   writeFinishing(context, flow)
+}
+
+/** The part of a seam line that bounds the area a join-caught leaf lies over: the area's edge along the seam. */
+function joinLine(entry: LeafInBooklet, from: Point, to: Point): Segment {
+  const over = entry.over
+  if (!over) return [from, to]
+  const direction: Point = [to[0] - from[0], to[1] - from[1]]
+  const length = Math.hypot(direction[0], direction[1]) || 1
+  // The area's corners on the seam line (within a hair of it), as the stretch of line it owns.
+  const onLine = over.polygon.filter((p) => Math.abs((p[0] - from[0]) * direction[1] - (p[1] - from[1]) * direction[0]) / length < SEAM_LINE_INCHES)
+  if (onLine.length < 2) return [from, to]
+  const t = (p: Point): number => ((p[0] - from[0]) * direction[0] + (p[1] - from[1]) * direction[1]) / length
+  const sorted = [...onLine].sort((a, b) => t(a) - t(b))
+  return [sorted[0]!, sorted[sorted.length - 1]!]
+}
+
+/**
+ * "Prepare the leaves": how many folded leaves of each fabric the whole ring needs, how each is
+ * made from two pieces cut with its template, and that they are all made before sewing starts.
+ */
+function writeLeafPreparation(model: BookletModel, flow: ReturnType<typeof startFlow>): void {
+  const batches = leafBatches(model)
+  if (batches.length === 0) return
+  const { design } = model
+  const perRepeat = design.leaves.reduce((sum, leaf) => sum + leaf.layers.length, 0)
+  flow.heading('Prepare the leaves')
+  flow.paragraph(`Make every folded leaf before you sew the foundations, one fabric at a time (batch them: cut all, sew all, turn and press all). The ring needs ${perRepeat * design.ring.repeats} folded leaves: ${perRepeat} per repeat × ${design.ring.repeats} repeats (each layer of a stacked leaf is a folded leaf of its own).`)
+  for (const batch of batches) {
+    flow.paragraph(`- ${batch.fabric}: ${batch.folded} folded leaves ${formatInches(batch.lengthIn).replace(' in', '')} × ${formatInches(batch.widthIn)}, from ${batch.pieces} pieces.`, { indent: 10 })
+  }
+  flow.paragraph(`Each folded leaf is made of ${PIECES_PER_FOLDED_LEAF} pieces cut from its leaf template (see the templates): lay two pieces of its fabric, a little larger than the template, right sides together; trace the template's solid sew line on the top one and sew on it, leaving the open end open; cut both on the dashed cut line; clip across the tip, turn right side out through the open end, push out the point and press flat.`)
 }
 
 function writeFinishing(context: BookletContext, flow: ReturnType<typeof startFlow>): void {

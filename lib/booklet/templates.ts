@@ -58,7 +58,7 @@ function leafTemplates(context: BookletContext): Template[] {
     templates.push({
       widthIn: box[2] - box[0],
       heightIn: box[3] - box[1],
-      caption: [`Leaf ${sizeInWords(length).replace(' in', '')} × ${sizeInWords(width)}`, `${count} leaves in all: ${[...fabrics].join(', ')}`],
+      caption: [`Leaf ${sizeInWords(length).replace(' in', '')} × ${sizeInWords(width)}`, `${count} folded leaves = ${2 * count} pieces: ${[...fabrics].join(', ')}`],
       draw: (doc, left, top) => {
         const view = trueScaleView(box[0], box[3], left, top)
         dashedPen(doc, 0.6, [4, 2])
