@@ -21,8 +21,12 @@ if (direction !== 'up' && direction !== 'down') {
 const sequelize = createSequelize(databaseUrl)
 const migrator = createMigrator(sequelize, { log: true })
 try {
-  if (direction === 'up') await migrator.up()
-  else await migrator.down(flag === '--all' ? { to: 0 } : undefined)
+  // Each migration that runs prints its own line (lib/migrator.ts); say so when none did.
+  if (direction === 'up') {
+    if ((await migrator.up()).length === 0) console.log('migrate: nothing to migrate, every migration is applied')
+  } else if ((await migrator.down(flag === '--all' ? { to: 0 } : undefined)).length === 0) {
+    console.log('migrate: nothing to undo, no migration is applied')
+  }
 } catch (error) {
   console.error(`migrate: ${error instanceof Error ? error.message : String(error)}`)
   process.exitCode = 1
