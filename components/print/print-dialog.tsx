@@ -1,17 +1,18 @@
 'use client'
 
 /**
- * The print room's dialog: paper, orientation, colourway, finished size and the parts to include.
- * The booklet is built here, in the browser, with the same lib/booklet code the command line
- * uses, so a large booklet never holds up the server for anyone else.
+ * The print room's dialog: paper, orientation, colourway, finished size and the parts to include,
+ * beside a preview of the booklet's pages. The booklet is built here, in the browser, with the same
+ * lib/booklet code the command line uses, so a large booklet never holds up the server for anyone
+ * else; it is rebuilt a moment after the options change, and the download saves the bytes shown.
  */
-import { useState, type FormEvent } from 'react'
+import { useMemo, useState, type FormEvent } from 'react'
 import { PAPERS } from '@/lib/booklet/paper'
 import { PAPER_NAMES, DEFAULT_MARGIN_INCHES, DEFAULT_OVERLAP_INCHES, type BookletPart, type PaperName } from '@/lib/schemas/booklet'
 import { parseDesign, type DesignFile } from '@/lib/schemas/design'
+import { BookletPreview } from './booklet-preview'
 import { ALL_PARTS, bookletFileName, PART_TITLES, printOptionsFrom } from './print-options'
-
-type Status = { kind: 'idle' } | { kind: 'building' } | { kind: 'done'; fileName: string; pages: number } | { kind: 'error'; message: string }
+import { optionsKey, useBookletPreview } from './use-booklet-preview'
 
 /** Starts a download of bytes as a PDF file. */
 function download(bytes: Uint8Array, fileName: string): void {
@@ -40,140 +41,133 @@ export function PrintDialog({ name, design }: { name: string; design: DesignFile
   const [parts, setParts] = useState<BookletPart[]>([...ALL_PARTS])
   const [margin, setMargin] = useState(String(DEFAULT_MARGIN_INCHES))
   const [overlap, setOverlap] = useState(String(DEFAULT_OVERLAP_INCHES))
-  const [status, setStatus] = useState<Status>({ kind: 'idle' })
+  const [downloaded, setDownloaded] = useState<string | null>(null)
 
   const toggle = (part: BookletPart): void =>
     setParts((current) => (current.includes(part) ? current.filter((p) => p !== part) : [...current, part]))
 
-  async function onSubmit(event: FormEvent<HTMLFormElement>): Promise<void> {
+  const parsed = useMemo(() => parseDesign(design), [design])
+  const options = useMemo(
+    () => printOptionsFrom({ paper, orientation, colorway, diameter, units: design.units, parts, margin, overlap }),
+    [paper, orientation, colorway, diameter, design.units, parts, margin, overlap],
+  )
+  const problem = !parsed.ok
+    ? `The saved design has a problem at ${parsed.issues[0]?.path}: ${parsed.issues[0]?.message}`
+    : options.ok ? null : options.message
+  const preview = useBookletPreview(parsed.ok ? parsed.design : null, options.ok ? options.options : null, problem)
+  const ready = preview.kind === 'built' && options.ok && preview.booklet.key === optionsKey(options.options) ? preview.booklet : null
+
+  function onSubmit(event: FormEvent<HTMLFormElement>): void {
     event.preventDefault()
-    const options = printOptionsFrom({ paper, orientation, colorway, diameter, units: design.units, parts, margin, overlap })
-    if (!options.ok) {
-      setStatus({ kind: 'error', message: options.message })
-      return
-    }
-    const parsed = parseDesign(design)
-    if (!parsed.ok) {
-      setStatus({ kind: 'error', message: `The saved design has a problem at ${parsed.issues[0]?.path}: ${parsed.issues[0]?.message}` })
-      return
-    }
-    setStatus({ kind: 'building' })
-    // Let the "building" message paint before the work starts.
-    await new Promise((resolve) => setTimeout(resolve, 30))
-    try {
-      const { writeBooklet } = await import('@/lib/booklet/booklet')
-      const written = writeBooklet(parsed.design, options.options)
-      const bytes = new Uint8Array(written.doc.output('arraybuffer'))
-      const fileName = bookletFileName(name, options.options)
-      download(bytes, fileName)
-      setStatus({ kind: 'done', fileName, pages: written.doc.getNumberOfPages() })
-    } catch (error) {
-      setStatus({ kind: 'error', message: `The booklet could not be built: ${error instanceof Error ? error.message : String(error)}` })
-    }
+    if (!ready) return
+    const fileName = bookletFileName(name, ready.options)
+    // The very bytes the thumbnails were drawn from.
+    download(ready.bytes, fileName)
+    setDownloaded(`Downloaded ${fileName} (${ready.pages.length} pages).`)
   }
 
   const unit = design.units
   return (
-    <form onSubmit={onSubmit} className="max-w-xl space-y-5" aria-describedby="print-status">
-      <fieldset className="space-y-2">
-        <legend className="text-sm font-medium text-stone-700">Paper</legend>
-        <select
-          id="print-paper"
-          aria-label="Paper"
-          value={paper}
-          onChange={(event) => setPaper(event.target.value as PaperName)}
-          className="rounded border border-stone-300 bg-white px-3 py-2"
-        >
-          {PAPER_NAMES.map((name) => (
-            <option key={name} value={name}>
-              {PAPERS[name].title}
-            </option>
-          ))}
-        </select>
-        <div className="flex gap-4 text-sm">
-          {(['portrait', 'landscape'] as const).map((value) => (
-            <label key={value} className="flex items-center gap-1">
-              <input type="radio" name="orientation" value={value} checked={orientation === value} onChange={() => setOrientation(value)} />
-              {value === 'portrait' ? 'Portrait' : 'Landscape'}
+    <div className="grid gap-8 lg:grid-cols-[minmax(0,24rem)_minmax(0,1fr)]">
+      <form onSubmit={onSubmit} className="max-w-xl space-y-5" aria-describedby="print-status">
+        <fieldset className="space-y-2">
+          <legend className="text-sm font-medium text-stone-700">Paper</legend>
+          <select
+            id="print-paper"
+            aria-label="Paper"
+            value={paper}
+            onChange={(event) => setPaper(event.target.value as PaperName)}
+            className="rounded border border-stone-300 bg-white px-3 py-2"
+          >
+            {PAPER_NAMES.map((name) => (
+              <option key={name} value={name}>
+                {PAPERS[name].title}
+              </option>
+            ))}
+          </select>
+          <div className="flex gap-4 text-sm">
+            {(['portrait', 'landscape'] as const).map((value) => (
+              <label key={value} className="flex items-center gap-1">
+                <input type="radio" name="orientation" value={value} checked={orientation === value} onChange={() => setOrientation(value)} />
+                {value === 'portrait' ? 'Portrait' : 'Landscape'}
+              </label>
+            ))}
+          </div>
+        </fieldset>
+
+        <div className="flex flex-col gap-1">
+          <label htmlFor="print-colorway" className="text-sm font-medium text-stone-700">
+            Colourway
+          </label>
+          <select
+            id="print-colorway"
+            value={colorway}
+            onChange={(event) => setColorway(event.target.value)}
+            disabled={colorways.length === 0}
+            className="rounded border border-stone-300 bg-white px-3 py-2"
+          >
+            {colorways.length === 0 && <option value="">No colourway yet (fabrics print grey)</option>}
+            {colorways.map((c) => (
+              <option key={c.name} value={c.name}>
+                {c.name}
+              </option>
+            ))}
+          </select>
+        </div>
+
+        <div className="flex flex-col gap-1">
+          <label htmlFor="print-diameter" className="text-sm font-medium text-stone-700">
+            Finished diameter ({unit})
+          </label>
+          <input
+            id="print-diameter"
+            inputMode="decimal"
+            value={diameter}
+            onChange={(event) => setDiameter(event.target.value)}
+            className="w-32 rounded border border-stone-300 bg-white px-3 py-2"
+          />
+          <p className="text-xs text-stone-500">Everything scales with it: foundations, templates and the cutting list.</p>
+        </div>
+
+        <fieldset className="space-y-1">
+          <legend className="text-sm font-medium text-stone-700">Include</legend>
+          {ALL_PARTS.map((part) => (
+            <label key={part} className="flex items-center gap-2 text-sm">
+              <input type="checkbox" checked={parts.includes(part)} onChange={() => toggle(part)} />
+              {PART_TITLES[part]}
             </label>
           ))}
-        </div>
-      </fieldset>
+        </fieldset>
 
-      <div className="flex flex-col gap-1">
-        <label htmlFor="print-colorway" className="text-sm font-medium text-stone-700">
-          Colourway
-        </label>
-        <select
-          id="print-colorway"
-          value={colorway}
-          onChange={(event) => setColorway(event.target.value)}
-          disabled={colorways.length === 0}
-          className="rounded border border-stone-300 bg-white px-3 py-2"
+        <details className="text-sm">
+          <summary className="cursor-pointer text-stone-700">Margin and overlap</summary>
+          <div className="mt-2 flex gap-4">
+            <label className="flex flex-col gap-1">
+              Printer margin (in)
+              <input value={margin} onChange={(event) => setMargin(event.target.value)} inputMode="decimal" className="w-24 rounded border border-stone-300 px-2 py-1" />
+            </label>
+            <label className="flex flex-col gap-1">
+              Tile overlap (in)
+              <input value={overlap} onChange={(event) => setOverlap(event.target.value)} inputMode="decimal" className="w-24 rounded border border-stone-300 px-2 py-1" />
+            </label>
+          </div>
+        </details>
+
+        <p className="text-sm text-stone-600">
+          Print the booklet at 100 % (actual size) and check the 1 in and 2 cm test squares before you cut.
+        </p>
+
+        <button
+          type="submit"
+          disabled={!ready}
+          className="rounded bg-thread-700 px-4 py-2 font-medium text-white hover:bg-thread-800 disabled:opacity-60"
         >
-          {colorways.length === 0 && <option value="">No colourway yet (fabrics print grey)</option>}
-          {colorways.map((c) => (
-            <option key={c.name} value={c.name}>
-              {c.name}
-            </option>
-          ))}
-        </select>
-      </div>
+          {ready ? `Download PDF (${ready.pages.length} page${ready.pages.length === 1 ? '' : 's'})` : 'Download PDF'}
+        </button>
 
-      <div className="flex flex-col gap-1">
-        <label htmlFor="print-diameter" className="text-sm font-medium text-stone-700">
-          Finished diameter ({unit})
-        </label>
-        <input
-          id="print-diameter"
-          inputMode="decimal"
-          value={diameter}
-          onChange={(event) => setDiameter(event.target.value)}
-          className="w-32 rounded border border-stone-300 bg-white px-3 py-2"
-        />
-        <p className="text-xs text-stone-500">Everything scales with it: foundations, templates and the cutting list.</p>
-      </div>
-
-      <fieldset className="space-y-1">
-        <legend className="text-sm font-medium text-stone-700">Include</legend>
-        {ALL_PARTS.map((part) => (
-          <label key={part} className="flex items-center gap-2 text-sm">
-            <input type="checkbox" checked={parts.includes(part)} onChange={() => toggle(part)} />
-            {PART_TITLES[part]}
-          </label>
-        ))}
-      </fieldset>
-
-      <details className="text-sm">
-        <summary className="cursor-pointer text-stone-700">Margin and overlap</summary>
-        <div className="mt-2 flex gap-4">
-          <label className="flex flex-col gap-1">
-            Printer margin (in)
-            <input value={margin} onChange={(event) => setMargin(event.target.value)} inputMode="decimal" className="w-24 rounded border border-stone-300 px-2 py-1" />
-          </label>
-          <label className="flex flex-col gap-1">
-            Tile overlap (in)
-            <input value={overlap} onChange={(event) => setOverlap(event.target.value)} inputMode="decimal" className="w-24 rounded border border-stone-300 px-2 py-1" />
-          </label>
-        </div>
-      </details>
-
-      <p className="text-sm text-stone-600">
-        Print the booklet at 100 % (actual size) and check the 1 in and 2 cm test squares before you cut.
-      </p>
-
-      <button
-        type="submit"
-        disabled={status.kind === 'building'}
-        className="rounded bg-thread-700 px-4 py-2 font-medium text-white hover:bg-thread-800 disabled:opacity-60"
-      >
-        {status.kind === 'building' ? 'Building the booklet…' : 'Build and download PDF'}
-      </button>
-
-      <p id="print-status" role="status" className="text-sm">
-        {status.kind === 'done' && `Downloaded ${status.fileName} (${status.pages} pages).`}
-        {status.kind === 'error' && <span className="text-madder-700">{status.message}</span>}
-      </p>
-    </form>
+        {downloaded && <p className="text-sm">{downloaded}</p>}
+      </form>
+      <BookletPreview state={preview} current={ready !== null} />
+    </div>
   )
 }

@@ -2,6 +2,7 @@
  * The print dialog's form state turned into booklet options through the shared schema, and the
  * file name the download gets. No React, so it can be tested on its own.
  */
+import type { BookletPage, FoundationTiling } from '@/lib/booklet/page-list'
 import { bookletOptionsSchema, BOOKLET_PARTS, type BookletOptions, type BookletPart, type PaperName } from '@/lib/schemas/booklet'
 import { centimetresToInches } from '@/lib/units'
 
@@ -70,4 +71,44 @@ export function bookletFileName(name: string, options: Pick<BookletOptions, 'pap
   const slug = (text: string): string => text.toLowerCase().replace(/[^a-z0-9]+/g, '-').replace(/^-+|-+$/g, '')
   const size = options.finishedDiameterInches ? `${Math.round(options.finishedDiameterInches * 100) / 100}in` : ''
   return `${[slug(name) || 'pattern', options.colorway ? slug(options.colorway) : '', size, options.paper].filter(Boolean).join('-')}.pdf`
+}
+
+/** What the preview says about a built booklet before it is downloaded. */
+export interface BookletSummary {
+  readonly pageCount: number
+  /** "13 pages" */
+  readonly headline: string
+  /** One line per foundation: "Foundation A for every repeat (all 4), make 4: 4 pages (2 rows × 2 columns)". */
+  readonly foundations: readonly string[]
+  /** Pages of each part written, for parts that wrote any. */
+  readonly parts: readonly { part: BookletPart; title: string; pages: number }[]
+}
+
+const plural = (count: number, word: string): string => `${count} ${word}${count === 1 ? '' : 's'}`
+
+/**
+ * The page count, the pages of each part and the tiles of each foundation of a built booklet.
+ *
+ * @example bookletSummary({ pages, tilings }).foundations[0] // 'Foundation A for every repeat (all 4), make 4: 4 pages (2 rows × 2 columns)'
+ */
+export function bookletSummary(booklet: { pages: readonly BookletPage[]; tilings: readonly FoundationTiling[] }): BookletSummary {
+  const { pages, tilings } = booklet
+  const parts = ALL_PARTS.flatMap((part) => {
+    const count = pages.filter((page) => page.part === part).length
+    return count > 0 ? [{ part, title: PART_TITLES[part], pages: count }] : []
+  })
+  const foundations = tilings.map((tiling) => {
+    const layout = tiling.pages > 1 ? ` (${plural(tiling.rows, 'row')} × ${plural(tiling.columns, 'column')})` : ''
+    return `Foundation ${tiling.section} for ${tiling.repeatName}, make ${tiling.count}: ${plural(tiling.pages, 'page')}${layout}`
+  })
+  return { pageCount: pages.length, headline: plural(pages.length, 'page'), foundations, parts }
+}
+
+/**
+ * A thumbnail's alternative text.
+ *
+ * @example thumbnailAlt({ number: 3, part: 'foundations', description: 'foundation A, sheet 2 of 4 (tile A2)' }) // 'page 3: foundation A, sheet 2 of 4 (tile A2)'
+ */
+export function thumbnailAlt(page: Pick<BookletPage, 'number' | 'description'>): string {
+  return `page ${page.number}: ${page.description}`
 }

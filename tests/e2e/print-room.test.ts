@@ -1,5 +1,5 @@
 import fs from 'node:fs'
-import type { Browser } from 'playwright-core'
+import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { planDesign } from '@/geometry'
 import { allText, openPdf, pageSizes } from '@/lib/booklet/test-support/read-pdf'
@@ -29,8 +29,9 @@ describe('the print room', () => {
     await page.getByRole('link', { name: 'Print the booklet' }).click()
     await page.getByLabel('Paper').selectOption('a4')
 
+    // The button waits for the A4 booklet: it downloads only the booklet previewed.
     const download = page.waitForEvent('download')
-    await page.getByRole('button', { name: 'Build and download PDF' }).click()
+    await page.getByRole('button', { name: 'Download PDF' }).click()
     const file = await (await download).path()
     const pdf = await openPdf(new Uint8Array(fs.readFileSync(file)))
 
@@ -55,10 +56,94 @@ describe('the print room', () => {
     // The print page of its own (for direct links) makes the same booklet, here on US Letter.
     await page.goto(`${baseUrl()}/patterns/${id}/print`)
     const letterDownload = page.waitForEvent('download')
-    await page.getByRole('button', { name: 'Build and download PDF' }).click()
+    await page.getByRole('button', { name: 'Download PDF' }).click()
     const letter = await openPdf(new Uint8Array(fs.readFileSync(await (await letterDownload).path())))
     // ANSI Letter: 8.5 × 11 in = 612 × 792 pt.
     for (const [width, height] of await pageSizes(letter)) expect([width, height]).toEqual([612, 792])
     await context.close()
   })
+
+  it('shows the pages as thumbnails that follow the options, and downloads the pages shown', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true })
+    const page = await context.newPage()
+    const pageErrors: string[] = []
+    page.on('pageerror', (error) => pageErrors.push(String(error)))
+    await signInThroughPage(page, 'marguerite@bramblelane.example', DEMO_PASSWORD)
+    await page.goto(`${baseUrl()}/patterns`)
+    await page.getByRole('link', { name: 'Hollyberry Wreath' }).click()
+    await page.getByRole('link', { name: 'Print the booklet' }).click()
+
+    // Without touching anything, the booklet of the saved size on Letter is previewed.
+    const first = await previewWhenReady(page)
+    expect(first.thumbnails).toBeGreaterThan(1)
+    expect(first.thumbnails).toBe(first.pageCount)
+    expect(first.tiling.length).toBeGreaterThan(0)
+    await expectDrawnThumbnails(page, first.thumbnails)
+    // Each thumbnail says which page it is and what it shows; foundation pages name the foundation and the sheet.
+    const alts = await page.getByTestId('page-thumbnail').evaluateAll((images) => images.map((image) => image.getAttribute('alt') ?? ''))
+    expect(alts[0]).toMatch(/^page 1: cover/)
+    expect(alts.some((alt) => /^page \d+: foundation A, sheet 1 of \d+/.test(alt))).toBe(true)
+
+    // Twice the diameter: each foundation is four times the area, so more pages and other tiles.
+    const diameter = page.getByLabel(/Finished diameter/)
+    const saved = Number(await diameter.inputValue())
+    await diameter.fill(String(2 * saved))
+    const larger = await previewWhenReady(page, first.pageCount)
+    expect(larger.thumbnails).toBe(larger.pageCount)
+    expect(larger.pageCount).toBeGreaterThan(first.pageCount)
+    expect(larger.tiling).not.toEqual(first.tiling)
+    await expectDrawnThumbnails(page, larger.thumbnails)
+
+    // Letter to Tabloid (ANSI: 8.5 × 11 in to 11 × 17 in, a Letter page fits inside either way up): fewer pages.
+    await page.getByLabel('Paper').selectOption('tabloid')
+    const tabloid = await previewWhenReady(page, larger.pageCount)
+    expect(tabloid.pageCount).toBeLessThan(larger.pageCount)
+    expect(tabloid.thumbnails).toBe(tabloid.pageCount)
+
+    // The download is the PDF previewed: as many pages as thumbnails, the same bytes.
+    const download = page.waitForEvent('download')
+    await page.getByRole('button', { name: 'Download PDF' }).click()
+    const file = fs.readFileSync(await (await download).path())
+    expect((await openPdf(new Uint8Array(file))).numPages).toBe(tabloid.thumbnails)
+    expect(String(file.length)).toBe(await page.getByTestId('print-preview').getAttribute('data-booklet-bytes'))
+    expect(pageErrors).toEqual([])
+    await context.close()
+  })
 })
+
+/**
+ * Waits until the preview is ready (every thumbnail drawn), with a page count other than
+ * `previousCount` when given, and reads it.
+ */
+async function previewWhenReady(page: Page, previousCount?: number): Promise<{ pageCount: number; thumbnails: number; tiling: string[] }> {
+  await page.waitForFunction((previous) => {
+    const match = /^Preview ready: (\d+) pages?\./.exec(document.querySelector('#print-status')?.textContent ?? '')
+    return match !== null && Number(match[1]) !== previous
+  }, previousCount ?? -1, { timeout: 30_000 })
+  const pageCount = Number((await page.getByTestId('print-page-count').textContent())?.match(/\d+/)?.[0])
+  const thumbnails = await page.getByTestId('page-thumbnail').count()
+  const tiling = await page.getByTestId('print-tiling').getByRole('listitem').allTextContents()
+  return { pageCount, thumbnails, tiling }
+}
+
+/** Every thumbnail is a loaded picture with pixels that are not white. */
+async function expectDrawnThumbnails(page: Page, count: number): Promise<void> {
+  await page.waitForFunction(() =>
+    [...document.querySelectorAll<HTMLImageElement>('[data-testid="page-thumbnail"]')].every((image) => image.complete && image.naturalWidth > 0))
+  const inked = await page.getByTestId('page-thumbnail').evaluateAll((images) =>
+    (images as HTMLImageElement[]).map((image) => {
+      if (!image.complete || image.naturalWidth === 0) return 0
+      const canvas = document.createElement('canvas')
+      canvas.width = image.naturalWidth
+      canvas.height = image.naturalHeight
+      const context = canvas.getContext('2d')!
+      context.drawImage(image, 0, 0)
+      const { data } = context.getImageData(0, 0, canvas.width, canvas.height)
+      let dark = 0
+      for (let i = 0; i < data.length; i += 4) if (data[i]! < 200 || data[i + 1]! < 200 || data[i + 2]! < 200) dark += 1
+      return dark
+    }),
+  )
+  expect(inked).toHaveLength(count)
+  for (const pixels of inked) expect(pixels).toBeGreaterThan(0)
+}

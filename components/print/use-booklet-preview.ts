@@ -1,0 +1,88 @@
+'use client'
+
+/**
+ * The booklet behind the print room's preview: rebuilt a moment after the options stop changing,
+ * a stale build dropped when the options change again, and the bytes kept so the download is
+ * exactly what the thumbnails show.
+ */
+import { useEffect, useRef, useState } from 'react'
+import type { BookletPage, FoundationTiling } from '@/lib/booklet/page-list'
+import type { BookletOptions } from '@/lib/schemas/booklet'
+import type { Design } from '@/geometry'
+
+/** Wait this long after the last change before building (typing a diameter is several changes). */
+export const PREVIEW_DEBOUNCE_MS = 300
+/** Show progress only when a step takes longer than this. */
+export const PROGRESS_DELAY_MS = 300
+
+export interface BuiltBooklet {
+  /** The options it was built from, as a key: a preview is current while the key matches. */
+  readonly key: string
+  readonly options: BookletOptions
+  readonly bytes: Uint8Array
+  readonly pages: readonly BookletPage[]
+  readonly tilings: readonly FoundationTiling[]
+}
+
+export type PreviewState =
+  | { readonly kind: 'waiting' }
+  /** `previous`: the last booklet built, still shown (dimmed) while the next one is made. */
+  | { readonly kind: 'building'; readonly key: string; readonly slow: boolean; readonly previous: BuiltBooklet | null }
+  | { readonly kind: 'built'; readonly booklet: BuiltBooklet }
+  | { readonly kind: 'error'; readonly message: string }
+
+/** A stable key for booklet options (the schema's field order is fixed). */
+export function optionsKey(options: BookletOptions): string {
+  return JSON.stringify(options)
+}
+
+/** Lets the browser paint before a long synchronous step. */
+const nextFrame = (): Promise<void> => new Promise((resolve) => setTimeout(resolve, 0))
+
+/**
+ * Builds the booklet for the current options, debounced; `options` null (invalid form) or an
+ * invalid design gives the error `problem`. Pass memoized options: a new object is a new request.
+ *
+ * @example const preview = useBookletPreview(design, options.ok ? options.options : null, options.ok ? null : options.message)
+ */
+export function useBookletPreview(design: Design | null, options: BookletOptions | null, problem: string | null): PreviewState {
+  const [state, setState] = useState<PreviewState>({ kind: 'waiting' })
+  const key = options ? optionsKey(options) : null
+  // The latest request; a build that finishes after another was asked for is thrown away.
+  const latest = useRef(0)
+
+  useEffect(() => {
+    // Any change makes a build under way stale, even one to options that cannot be built.
+    const request = ++latest.current
+    if (problem || !design || !options || key === null) return
+    let slowTimer: ReturnType<typeof setTimeout> | undefined
+    const build = async (): Promise<void> => {
+      if (request !== latest.current) return
+      setState((current) => ({ kind: 'building', key, slow: false, previous: current.kind === 'built' ? current.booklet : current.kind === 'building' ? current.previous : null }))
+      slowTimer = setTimeout(() => {
+        if (request === latest.current) setState((current) => (current.kind === 'building' ? { ...current, slow: true } : current))
+      }, PROGRESS_DELAY_MS)
+      try {
+        const { buildBookletFile } = await import('@/lib/booklet/booklet')
+        await nextFrame()
+        if (request !== latest.current) return
+        const file = buildBookletFile(design, options)
+        if (request !== latest.current) return
+        setState({ kind: 'built', booklet: { key, options, bytes: file.bytes, pages: file.pages, tilings: file.tilings } })
+      } catch (error) {
+        if (request !== latest.current) return
+        setState({ kind: 'error', message: `The booklet could not be built: ${error instanceof Error ? error.message : String(error)}` })
+      } finally {
+        clearTimeout(slowTimer)
+      }
+    }
+    const debounce = setTimeout(() => void build(), PREVIEW_DEBOUNCE_MS)
+    return () => {
+      clearTimeout(debounce)
+      clearTimeout(slowTimer)
+    }
+  }, [key, options, problem, design])
+
+  if (problem || !design || !options) return { kind: 'error', message: problem ?? 'The booklet cannot be built from these options.' }
+  return state
+}
