@@ -8,20 +8,34 @@
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { isPortTaken, run, startProcess, stopProcess, waitForHttp } from './processes'
-import { projectClusterFolder, startCluster } from './postgres'
+import { isClusterRunning, projectClusterFolder, startCluster, type Cluster } from './postgres'
 
 const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..')
 const databasePort = Number(process.env.WREATHWRIGHT_DB_PORT ?? 54329)
 const appPort = Number(process.env.PORT ?? 3000)
 
-if (await isPortTaken(appPort)) {
-  console.error(`demo: something already listens on 127.0.0.1:${appPort}; stop it or set PORT`)
+/** A problem the person running the demo can fix: one line on stderr, exit code 2, no stack trace. */
+function refuse(message: string): never {
+  console.error(`demo: ${message}`)
   process.exit(2)
 }
 
-const clusterWasRunning = await isPortTaken(databasePort)
-const cluster = startCluster(projectClusterFolder(projectRoot, databasePort), databasePort)
-cluster.createDatabase('wreathwright')
+if (await isPortTaken(appPort)) refuse(`something already listens on 127.0.0.1:${appPort}; stop it or set PORT`)
+const clusterFolder = projectClusterFolder(projectRoot, databasePort)
+// The demo's own PostgreSQL from an earlier run may still listen there: that one is reused.
+const clusterWasRunning = isClusterRunning(clusterFolder)
+if (!clusterWasRunning && (await isPortTaken(databasePort))) {
+  refuse(`something else already listens on 127.0.0.1:${databasePort}, where the demo's PostgreSQL goes; stop it or set WREATHWRIGHT_DB_PORT`)
+}
+
+let cluster: Cluster
+try {
+  cluster = startCluster(clusterFolder, databasePort)
+  cluster.createDatabase('wreathwright')
+} catch (error) {
+  console.error(`demo: could not start PostgreSQL: ${(error as Error).message.trim()}`)
+  process.exit(1)
+}
 const env = {
   ...process.env,
   DATABASE_URL: cluster.url('wreathwright'),

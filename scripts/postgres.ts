@@ -63,6 +63,15 @@ export interface Cluster {
   stop(): void
 }
 
+/** Whether a PostgreSQL server of this data folder is running (false when the folder holds no cluster). */
+export function isClusterRunning(folder: string): boolean {
+  if (!fs.existsSync(path.join(folder, 'PG_VERSION'))) return false
+  const pgCtl = path.join(postgresBinaries(), 'pg_ctl')
+  const status = spawnSync(isRoot ? 'runuser' : pgCtl, isRoot ? ['-u', 'postgres', '--', pgCtl, 'status', '-D', folder] : ['status', '-D', folder],
+    { cwd: '/', encoding: 'utf8' })
+  return status.status === 0
+}
+
 /** Creates the cluster if the folder holds none, then starts it (or finds it already running). */
 export function startCluster(folder: string, port: number, options: { throwaway?: boolean } = {}): Cluster {
   fs.mkdirSync(folder, { recursive: true })
@@ -71,10 +80,7 @@ export function startCluster(folder: string, port: number, options: { throwaway?
   if (!fs.existsSync(path.join(folder, 'PG_VERSION'))) {
     run('initdb', ['-D', folder, '-U', 'postgres', '--auth=trust', '-E', 'UTF8', '--locale=C.UTF-8'], { quiet: true })
   }
-  const status = spawnSync(isRoot ? 'runuser' : path.join(postgresBinaries(), 'pg_ctl'),
-    isRoot ? ['-u', 'postgres', '--', path.join(postgresBinaries(), 'pg_ctl'), 'status', '-D', folder] : ['status', '-D', folder],
-    { cwd: '/', encoding: 'utf8' })
-  if (status.status !== 0) {
+  if (!isClusterRunning(folder)) {
     // A throwaway test cluster need not survive a power cut, so it skips fsync for speed.
     const settings = `-p ${port} -c listen_addresses=127.0.0.1 -c unix_socket_directories=''${options.throwaway ? ' -c fsync=off' : ''}`
     run('pg_ctl', ['-w', '-t', '30', '-D', folder, '-l', path.join(folder, 'server.log'), '-o', settings, 'start'], {
