@@ -107,7 +107,7 @@ export interface BookletFile {
  * The booklet as PDF bytes with the description of each page beside them (the print room shows
  * and downloads these same bytes).
  *
- * @example buildBookletFile(design, { paper: 'a4' }).pages[0] // { number: 1, part: 'cover', description: 'cover, fabric and cutting list' }
+ * @example buildBookletFile(design, { paper: 'a4' }).pages[0]?.description // 'cover, fabric and cutting list, page 1 of 2' (a cover of two pages)
  */
 export function buildBookletFile(design: Design, options: BookletOptionsInput): BookletFile {
   const written = writeBooklet(design, options)
