@@ -6,6 +6,8 @@ set -euo pipefail
 cd "$(dirname "$0")/.."
 mode="${1:-test}"
 
+bash scripts/check-node.sh
+
 missing=()
 compgen -G '/usr/lib/postgresql/*/bin/initdb' >/dev/null || missing+=(postgresql)
 if [ "$mode" = test ]; then
