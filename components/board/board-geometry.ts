@@ -3,7 +3,7 @@
  * repeat 0 and every other repeat of the ring, leaves as they lie, fabric colours per area.
  */
 import { applyTransform, repeatTransforms, type AffineTransform } from '@/geometry'
-import { tryPlaceLeaf } from '@/geometry/leaf-template'
+import { tryPlaceLeafLayers } from '@/geometry/leaf-template'
 import type { BoardPlan } from '@/lib/board/board-plan'
 import type { BoardDesign } from '@/lib/board/commands'
 
@@ -19,7 +19,7 @@ export interface AreaShape {
 
 export interface LeafShape {
   readonly id: string
-  /** Outlines of the stacked layers, bottom first, each a little smaller so all show. */
+  /** Outlines of the stacked layers, bottom first, each turned and sized by its offset so all show. */
   readonly layers: readonly { readonly outline: readonly Point[]; readonly fabric: string }[]
 }
 
@@ -28,31 +28,19 @@ export function areaShapes(plan: BoardPlan): AreaShape[] {
   return plan.areas.map(({ id, label, polygon, labelAt, fabric }) => ({ id, label, polygon, labelAt, fabric }))
 }
 
-/** Each leaf as it lies on its seam, its layers shrinking towards the seam so every layer shows. */
+/**
+ * Each leaf as it lies on its seam, every stacked layer with its own turn and size (the
+ * geometry the booklet prints: `tryPlaceLeafLayers`), bottom first, so every layer shows.
+ */
 export function leafShapes(design: BoardDesign): LeafShape[] {
   const shapes: LeafShape[] = []
   for (const leaf of design.leaves) {
     const seam = design.seams.find((s) => s.id === leaf.seam)
     if (!seam) continue
     // A leaf too wide for its length cannot be pointed: the plan reports it, the board skips it.
-    const placement = tryPlaceLeaf({ ...leaf, angle: leaf.angle ?? 0 }, seam)
-    if (!placement.ok) continue
-    const placed = placement.placement
-    const count = leaf.layers.length
-    shapes.push({
-      id: leaf.id,
-      layers: leaf.layers.map((fabric, index) => {
-        // Upper layers are drawn a little shorter, as a stacked pair of folded leaves shows.
-        const shrink = 1 - (0.22 * index) / Math.max(1, count - 1 || 1)
-        return {
-          fabric,
-          outline: placed.finishedOutline.map((p) => [
-            placed.base[0] + (p[0] - placed.base[0]) * shrink,
-            placed.base[1] + (p[1] - placed.base[1]) * shrink,
-          ] as Point),
-        }
-      }),
-    })
+    const placed = tryPlaceLeafLayers({ ...leaf, angle: leaf.angle ?? 0 }, seam)
+    if (!placed.ok) continue
+    shapes.push({ id: leaf.id, layers: placed.layers.map((layer) => ({ fabric: layer.fabric, outline: layer.placement.finishedOutline })) })
   }
   return shapes
 }

@@ -4,12 +4,14 @@
  * input. The mouse, the keyboard, the panels and the tests all go through this table.
  */
 import { scaleDesignLengths } from '@/geometry/design-lengths'
+import { LAYER_SCALE_RANGE, LAYER_TURN_LIMIT_DEGREES } from '@/geometry/leaf-template'
 import type { DesignFile } from '@/lib/schemas/design'
 import { unitsPerInch } from '@/lib/units'
 
 type Point = [number, number]
 type Seam = DesignFile['seams'][number]
 type Leaf = NonNullable<DesignFile['leaves']>[number]
+type LayerOffset = NonNullable<Leaf['layerOffsets']>[number]
 type Berry = NonNullable<DesignFile['berries']>[number]
 type StemRing = NonNullable<DesignFile['stems']>[number]
 type Colorway = NonNullable<DesignFile['colorways']>[number]
@@ -191,6 +193,69 @@ export const flipLeafSide = defineCommand({
   }),
 })
 
+/** A leaf's layer offsets, one per layer (`{}` for a layer on the default fan). */
+const offsetsOf = (leaf: Leaf): LayerOffset[] => leaf.layers.map((_, index) => leaf.layerOffsets?.[index] ?? {})
+
+/**
+ * The leaf with new layers and their offsets, kept one per layer. When every layer is on the
+ * default fan the offsets are left out, so the file reads the same to a reader from before offsets.
+ */
+function withLayers(leaf: Leaf, layers: readonly string[], offsets: readonly LayerOffset[]): Leaf {
+  const { layerOffsets: _dropped, ...rest } = leaf
+  const kept = layers.map((_, index) => offsets[index] ?? {})
+  return kept.some((offset) => offset.turn !== undefined || offset.scale !== undefined) ? { ...rest, layers: [...layers], layerOffsets: kept } : { ...rest, layers: [...layers] }
+}
+
+const changeLeaf = (design: BoardDesign, leafId: string, change: (leaf: Leaf) => Leaf): BoardDesign => ({
+  ...design,
+  leaves: design.leaves.map((leaf) => (leaf.id === leafId ? change(leaf) : leaf)),
+})
+
+const clamp = (value: number, low: number, high: number) => Math.min(high, Math.max(low, value))
+
+/**
+ * Turns (degrees) and sizes (a ratio) one stacked layer against the leaf as drawn; `null` puts
+ * that member back on the default fan, `undefined` leaves it. Values are kept to the file's range.
+ */
+export const setLeafLayerOffset = defineCommand({
+  name: 'set-leaf-layer-offset',
+  run: (design, { leafId, index, turn, scale }: { leafId: string; index: number; turn?: number | null; scale?: number | null }) =>
+    changeLeaf(design, leafId, (leaf) => {
+      if (index < 0 || index >= leaf.layers.length) return leaf
+      const offsets = offsetsOf(leaf)
+      const next: { turn?: number; scale?: number } = { ...offsets[index] }
+      if (turn === null) delete next.turn
+      else if (turn !== undefined) next.turn = round(clamp(turn, -LAYER_TURN_LIMIT_DEGREES, LAYER_TURN_LIMIT_DEGREES))
+      if (scale === null) delete next.scale
+      else if (scale !== undefined) next.scale = round(clamp(scale, LAYER_SCALE_RANGE[0], LAYER_SCALE_RANGE[1]))
+      return withLayers(leaf, leaf.layers, offsets.map((offset, i) => (i === index ? next : offset)))
+    }),
+})
+
+/** Changes the fabric of one stacked layer. */
+export const setLeafLayerFabric = defineCommand({
+  name: 'set-leaf-layer-fabric',
+  run: (design, { leafId, index, fabric }: { leafId: string; index: number; fabric: string }) =>
+    changeLeaf(design, leafId, (leaf) => (index < 0 || index >= leaf.layers.length ? leaf : withLayers(leaf, leaf.layers.map((f, i) => (i === index ? fabric : f)), offsetsOf(leaf)))),
+})
+
+/** Adds a layer on top of the stack, on the default fan. */
+export const addLeafLayer = defineCommand({
+  name: 'add-leaf-layer',
+  run: (design, { leafId, fabric }: { leafId: string; fabric: string }) =>
+    changeLeaf(design, leafId, (leaf) => withLayers(leaf, [...leaf.layers, fabric], [...offsetsOf(leaf), {}])),
+})
+
+/** Removes one layer and its offset; the last layer of a leaf stays. */
+export const removeLeafLayer = defineCommand({
+  name: 'remove-leaf-layer',
+  run: (design, { leafId, index }: { leafId: string; index: number }) =>
+    changeLeaf(design, leafId, (leaf) =>
+      leaf.layers.length <= 1 || index < 0 || index >= leaf.layers.length
+        ? leaf
+        : withLayers(leaf, leaf.layers.filter((_, i) => i !== index), offsetsOf(leaf).filter((_, i) => i !== index))),
+})
+
 export const deleteLeaf = defineCommand({
   name: 'delete-leaf',
   run: (design, { leafId }: { leafId: string }) => ({ ...design, leaves: design.leaves.filter((leaf) => leaf.id !== leafId) }),
@@ -277,6 +342,10 @@ export const commands = {
   updateLeaf,
   flipLeafSide,
   deleteLeaf,
+  setLeafLayerOffset,
+  setLeafLayerFabric,
+  addLeafLayer,
+  removeLeafLayer,
   setStemRing,
   addBerry,
   updateBerry,
