@@ -11,7 +11,7 @@ import { comparePoints, distance, distanceToSegment, interiorPoint, polygonCentr
 import { repeatOutline, type RepeatOutline } from './ring'
 import { dropDangling, dropFloating, dropOutside, type Piece } from './seam-pieces'
 import { snapOutline, snapSeamEnds } from './seam-snapping'
-import { ANGLE_NOISE_DEGREES, ID_DECIMALS, ON_SEGMENT_INCHES, SHARP_ANGLE_DEGREES, SLIVER_AREA_SQ_IN, VERTEX_MERGE_INCHES } from './tolerances'
+import { ANGLE_NOISE_DEGREES, ID_DECIMALS, LABEL_ORDER_DIGITS, ON_SEGMENT_INCHES, SHARP_ANGLE_DEGREES, SLIVER_AREA_SQ_IN, VERTEX_MERGE_INCHES } from './tolerances'
 import type { Point, Polygon, Problem, Ring, Seam } from './types'
 import { mergeVertices } from './vertex-merge'
 
@@ -28,7 +28,11 @@ export interface ArrangementEdge {
 }
 
 export interface Area {
-  /** Position in the arrangement's canonical order (sorted by id). */
+  /**
+   * Position in the arrangement's canonical order: by the centroid of the area's true corners
+   * (chord joints left out) as a fraction of the outer radius, so the same design at any size,
+   * in any units and with its seams listed in any order has its areas in the same order.
+   */
   readonly index: number
   /** Stable id from the area's centroid in thousandths of an inch: same design, same id. */
   readonly id: string
@@ -48,7 +52,7 @@ export interface Arrangement {
   readonly vertices: readonly Point[]
   readonly vertexOnOutline: readonly boolean[]
   readonly edges: readonly ArrangementEdge[]
-  /** Sorted by id, so the order never depends on the order the seams were listed in. */
+  /** In canonical order (see `Area.index`): never by list order, size or units. */
   readonly areas: readonly Area[]
   readonly problems: readonly Problem[]
 }
@@ -77,6 +81,9 @@ export function buildArrangement(ring: Ring, seams: readonly Seam[]): Arrangemen
   // Ends snapped onto a true arc become corners of the outline, so they lie on it exactly.
   const onArcs = snappedEnds.flatMap((s) => [s.seam.from, s.seam.to].filter((_, end) => s.onArc[end]))
   const outline = repeatOutline(ring, onArcs)
+  // A chord joint is where one arc's chords meet, not a point a seam ends on: no true corner.
+  const isArc = (part: string | undefined): boolean => part === 'outer-arc' || part === 'inner-arc'
+  const chordJoint = outline.polygon.map((p, i) => isArc(outline.parts[i]) && outline.parts[(i - 1 + outline.parts.length) % outline.parts.length] === outline.parts[i] && !onArcs.includes(p))
   const segments: Segment[] = outline.polygon.map((a, i) => ({ a, b: outline.polygon[(i + 1) % outline.polygon.length] as Point, seamId: null, splits: [] }))
   const outlineCount = segments.length
   for (const seam of snapped) {
@@ -106,7 +113,14 @@ export function buildArrangement(ring: Ring, seams: readonly Seam[]): Arrangemen
       )
     }
   }
-  return buildFaces(outline, snapped, segments, outlineCount, problems)
+  return buildFaces(outline, snapped, segments, outlineCount, problems, { chordJoint, unit: ring.outerRadius })
+}
+
+/** What the canonical order of areas needs: which outline corners are chord joints, and the length unit. */
+interface OrderBasis {
+  readonly chordJoint: readonly boolean[]
+  /** The outer radius: keys are fractions of it, so they do not change with the design's size. */
+  readonly unit: number
 }
 
 /** Records where two segments meet; returns a point of their overlap when they run along each other. */
@@ -155,12 +169,13 @@ function intersect(first: Segment, second: Segment): Point | null {
   return null
 }
 
-function buildFaces(outline: RepeatOutline, seams: readonly Seam[], segments: readonly Segment[], outlineCount: number, problems: Problem[]): Arrangement {
+function buildFaces(outline: RepeatOutline, seams: readonly Seam[], segments: readonly Segment[], outlineCount: number, problems: Problem[], basis: OrderBasis): Arrangement {
   const allPoints: Point[] = []
   for (const segment of segments) allPoints.push(segment.a, segment.b, ...segment.splits)
-  const merged = mergeVertices(allPoints)
+  const merged = mergeVertices(allPoints, basis.unit)
   const vertices = merged.vertices
   const vertexOnOutline = vertices.map(() => false)
+  const vertexIsChordJoint = vertices.map(() => false)
   const edgeByKey = new Map<string, { from: number; to: number; seamIds: string[]; onOutline: boolean }>()
   let pointIndex = 0
   for (let s = 0; s < segments.length; s += 1) {
@@ -173,6 +188,8 @@ function buildFaces(outline: RepeatOutline, seams: readonly Seam[], segments: re
     const along = (id: number): number => ((vertices[id] as Point)[0] - segment.a[0]) * dx + ((vertices[id] as Point)[1] - segment.a[1]) * dy
     const ordered = [...new Set(ids)].sort((p, q) => along(p) - along(q))
     if (s < outlineCount) for (const id of ordered) vertexOnOutline[id] = true
+    // Outline segment s starts at outline corner s.
+    if (s < outlineCount && basis.chordJoint[s]) vertexIsChordJoint[ids[0] as number] = true
     for (let k = 0; k + 1 < ordered.length; k += 1) {
       const from = ordered[k] as number
       const to = ordered[k + 1] as number
@@ -191,7 +208,24 @@ function buildFaces(outline: RepeatOutline, seams: readonly Seam[], segments: re
   pieces = dropOutside(pieces, vertices, vertexOnOutline, outline.polygon, problems)
   pieces = dropDangling(pieces, vertices, vertexOnOutline, problems)
   pieces = dropFloating(pieces, vertices, vertexOnOutline, problems)
-  return traceFaces(outline, seams, vertices, vertexOnOutline, pieces, problems)
+  return traceFaces(outline, seams, vertices, vertexOnOutline, pieces, problems, orderKey(vertices, vertexIsChordJoint, basis.unit))
+}
+
+/**
+ * The key that orders areas: the mean of an area's true corners (its chord joints dropped, so the
+ * number of chords an arc gets at this size changes nothing) as a fraction of the outer radius,
+ * rounded to LABEL_ORDER_DIGITS so that coordinates equal but for floating-point noise (a design
+ * scaled by 1.37, or read in cm) compare equal and the next coordinate decides. The mean of the
+ * corners, not the centroid of their polygon: a cap cut off an arc by one straight seam has all
+ * its true corners on that seam, a polygon of no area whose centroid is noise.
+ */
+function orderKey(vertices: readonly Point[], isChordJoint: readonly boolean[], unit: number): (ids: readonly number[]) => readonly [number, number] {
+  const scale = 10 ** LABEL_ORDER_DIGITS / unit
+  return (ids) => {
+    const corners = ids.filter((id) => !isChordJoint[id]).map((id) => vertices[id] as Point)
+    const mean = corners.reduce<Point>((sum, p) => [sum[0] + p[0], sum[1] + p[1]], [0, 0])
+    return [Math.round((mean[0] / corners.length) * scale), Math.round((mean[1] / corners.length) * scale)]
+  }
 }
 
 function areaId(centroid: Point): string {
@@ -203,7 +237,10 @@ function areaId(centroid: Point): string {
   return `area-${part(centroid[0])}-${part(centroid[1])}`
 }
 
-function traceFaces(outline: RepeatOutline, seams: readonly Seam[], vertices: readonly Point[], vertexOnOutline: boolean[], pieces: readonly Piece[], problems: Problem[]): Arrangement {
+function traceFaces(
+  outline: RepeatOutline, seams: readonly Seam[], vertices: readonly Point[], vertexOnOutline: boolean[], pieces: readonly Piece[], problems: Problem[],
+  keyOf: (ids: readonly number[]) => readonly [number, number],
+): Arrangement {
   // Half-edge 2e runs from → to, 2e + 1 runs back; each face lies on the left of its half-edges.
   const outgoing = vertices.map((): number[] => [])
   pieces.forEach((piece, e) => {
@@ -247,8 +284,9 @@ function traceFaces(outline: RepeatOutline, seams: readonly Seam[], vertices: re
     const area = signedArea(polygon)
     if (area > 0) bounded.push({ cycle: index, vertices: ids, polygon, area, centroid: polygonCentroid(polygon) })
   })
-  const withIds = bounded.map((face) => ({ ...face, id: areaId(face.centroid) }))
-  withIds.sort((p, q) => (p.id < q.id ? -1 : p.id > q.id ? 1 : comparePoints(p.centroid, q.centroid)))
+  const withIds = bounded.map((face) => ({ ...face, id: areaId(face.centroid), key: keyOf(face.vertices) }))
+  // Never by id: ids are thousandths of an inch compared as strings, which a change of size reorders.
+  withIds.sort((p, q) => p.key[0] - q.key[0] || p.key[1] - q.key[1] || comparePoints(p.centroid, q.centroid))
   const seen = new Map<string, number>()
   const areaOfCycle = new Map<number, number>()
   const areas: Area[] = withIds.map((face, index) => {

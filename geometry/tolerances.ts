@@ -45,6 +45,15 @@ export const ON_SEGMENT_INCHES = 1e-7
  */
 export const STRAIGHT_LINE_INCHES = 1e-3
 
+/**
+ * Areas are ordered (and so labelled) by the mean of their true corners, and vertices numbered by
+ * their position, as fractions of the outer radius rounded to this many decimals: far coarser
+ * than floating-point noise (about 1e-15 of the radius, from scaling a design or reading it in
+ * centimetres), so coordinates equal on paper compare equal; far finer than any two corners a
+ * designer draws differ. Unitless (decimal digits).
+ */
+export const LABEL_ORDER_DIGITS = 9
+
 /** Ids and fixture output round coordinates to this many decimals (a thousandth of an inch for ids). */
 export const ID_DECIMALS = 3
 /** Plan output rounds coordinates and areas to this many decimals: stable fixtures, no noise. */
