@@ -2,7 +2,7 @@
  * What lies under the pointer on the board, found in the ring's frame (inches) rather than by the
  * canvas, so the same answer serves the mouse, the keyboard and the tests.
  */
-import { tryPlaceLeaf } from '@/geometry/leaf-template'
+import { tryPlaceLeafLayers } from '@/geometry/leaf-template'
 import { sampleSmoothCurve, smoothCurve } from '@/geometry/smooth-curve'
 import type { BoardDesign } from './commands'
 
@@ -57,8 +57,9 @@ export function hitTest(design: BoardDesign, point: Point, tolerance: number): H
     const seam = design.seams.find((s) => s.id === leaf.seam)
     if (!seam) continue
     // A leaf too wide for its length has no outline to hit (the plan reports it).
-    const placement = tryPlaceLeaf({ ...leaf, angle: leaf.angle ?? 0 }, seam)
-    if (placement.ok && isInsidePolygon(point, placement.placement.finishedOutline)) return { kind: 'leaf', leafId: leaf.id }
+    // Any layer of the stack picks the leaf: a turned layer can reach past the bottom one.
+    const placed = tryPlaceLeafLayers({ ...leaf, angle: leaf.angle ?? 0 }, seam)
+    if (placed.ok && placed.layers.some((layer) => isInsidePolygon(point, layer.placement.finishedOutline))) return { kind: 'leaf', leafId: leaf.id }
   }
   for (let index = design.berries.length - 1; index >= 0; index -= 1) {
     const berry = design.berries[index]!

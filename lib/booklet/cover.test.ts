@@ -1,10 +1,11 @@
+import * as pdfjs from 'pdfjs-dist/legacy/build/pdf.mjs'
 import { describe, expect, it } from 'vitest'
 import { smoothCurve, type Point } from '@/geometry'
 import { bookletOptionsSchema } from '@/lib/schemas/booklet'
 import { buildBooklet } from './booklet'
 import { missingFabrics } from './cover'
 import { bookletModel } from './model'
-import { allText, openPdf, pagePaths } from './test-support/read-pdf'
+import { allText, openPdf, pagePaths, type PdfDocument } from './test-support/read-pdf'
 import { designFrom, wreathFile } from './test-support/designs'
 
 /** PDF coordinates are written with four decimals (context.ts); the fitted scale adds a little. */
@@ -60,5 +61,37 @@ describe('the cover picture', () => {
       }
     }
     expect(found).toBe(1)
+  })
+})
+
+/** How many shapes of each fill colour a page paints (pdfjs gives colours as #rrggbb). */
+async function filledColours(doc: PdfDocument, pageNumber: number): Promise<Map<string, number>> {
+  const list = await (await doc.getPage(pageNumber)).getOperatorList()
+  const counts = new Map<string, number>()
+  let fill = ''
+  list.fnArray.forEach((fn, index) => {
+    const args = list.argsArray[index] as unknown[]
+    if (fn === pdfjs.OPS.setFillRGBColor) {
+      fill = typeof args[0] === 'string' ? args[0] : `#${(args as number[]).slice(0, 3).map((v) => Math.round(v).toString(16).padStart(2, '0')).join('')}`
+    } else if (fn === pdfjs.OPS.constructPath && [pdfjs.OPS.fill, pdfjs.OPS.eoFill, pdfjs.OPS.fillStroke, pdfjs.OPS.eoFillStroke].includes(args[0] as number)) {
+      counts.set(fill, (counts.get(fill) ?? 0) + 1)
+    }
+  })
+  return counts
+}
+
+/** jsPDF writes colours as fractions of 1 with a few decimals: a channel may read back one step off. */
+const COLOUR_STEP = 2
+const channels = (hex: string): number[] => [1, 3, 5].map((i) => parseInt(hex.slice(i, i + 2), 16))
+const paintedIn = (counts: Map<string, number>, colour: string): number =>
+  [...counts].filter(([painted]) => channels(painted).every((value, i) => Math.abs(value - channels(colour)[i]!) <= COLOUR_STEP)).reduce((sum, [, n]) => sum + n, 0)
+
+describe('the cover picture of stacked leaves', () => {
+  it('paints every layer of every leaf in its own fabric, not only the top one', async () => {
+    // Test wreath: 2 leaves of 2 layers (leaf-dark under leaf-light) in each of 4 repeats.
+    const doc = await openPdf(buildBooklet(designFrom(wreathFile()), { paper: 'letter', parts: ['cover'] }))
+    const counts = await filledColours(doc, 1)
+    expect(paintedIn(counts, '#2f5540')).toBe(8) // leaf-dark, Holly
+    expect(paintedIn(counts, '#6f9a6a')).toBe(8) // leaf-light, Holly
   })
 })

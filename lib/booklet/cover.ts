@@ -3,7 +3,7 @@
  * its size, and the fabric and cutting list that follows it.
  */
 import type { jsPDF } from 'jspdf'
-import { applyToPolygon, applyTransform, mapSmoothCurve, outlineFromPolygon, repeatTransforms, smoothCurve, tryPlaceLeaf, type AffineTransform, type Point } from '@/geometry'
+import { applyToPolygon, applyTransform, mapSmoothCurve, outlineFromPolygon, repeatTransforms, smoothCurve, tryPlaceLeafLayers, type AffineTransform, type Point } from '@/geometry'
 import { formatInches, inchesToCentimetres } from '@/lib/units'
 import { font } from './chrome'
 import { startPage, type BookletContext } from './context'
@@ -57,14 +57,15 @@ function drawDecorations(doc: jsPDF, model: BookletModel, view: View, transform:
     const seam = design.seams.find((s) => s.id === leaf.seam)
     if (!seam) continue
     // An impossible leaf is reported by the plan; the preview leaves it out.
-    const placed = tryPlaceLeaf(leaf, seam)
+    const placed = tryPlaceLeafLayers(leaf, seam)
     if (!placed.ok) continue
-    const { placement } = placed
-    // The top layer shows; the ones beneath peek out only at the edges.
-    doc.setFillColor(...rgb(fabricColour(model, leaf.layers[leaf.layers.length - 1] ?? '')))
-    solidPen(doc, 0.3, [40, 40, 40])
-    tracePolygon(doc, view, applyToPolygon(transform, placement.finishedOutline))
-    doc.fillStroke()
+    // Bottom first, each layer turned and sized by its offset, so the ones beneath show.
+    for (const layer of placed.layers) {
+      doc.setFillColor(...rgb(fabricColour(model, layer.fabric)))
+      solidPen(doc, 0.3, [40, 40, 40])
+      tracePolygon(doc, view, applyToPolygon(transform, layer.placement.finishedOutline))
+      doc.fillStroke()
+    }
   }
   for (const berry of design.berries) {
     const [x, y] = toPage(view, applyTransform(transform, berry.at))

@@ -89,3 +89,14 @@ describe('the placement guide', () => {
     expect(found).toBeGreaterThan(0)
   })
 })
+
+describe('templates of stacked leaves', () => {
+  it('gives each layer size its own template: the leaf as drawn, and its 10 % smaller top layer', async () => {
+    // 1 3/4 × 7/8 in leaves; the default top layer is × 0.9 = 1.575 × 0.7875 in, labelled
+    // (and drawn) 1 5/8 × 3/4 in, to the nearest 1/8 in.
+    const doc = await openPdf(buildBooklet(designFrom(wreathFile()), { paper: 'letter', parts: ['templates'] }))
+    const text = (await Promise.all((await templatePages(doc)).map(async (page) => (await pageText(doc, page)).map((item) => item.text).join(' ')))).join(' ')
+    expect(text).toMatch(/Leaf 1 3\/4 × 7\/8 in 8 [^:]*: leaf-dark\b/)
+    expect(text).toMatch(/Leaf 1 5\/8 × 3\/4 in 8 [^:]*: leaf-light\b/)
+  })
+})

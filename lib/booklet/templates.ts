@@ -3,7 +3,7 @@
  * the curls and the berries. Templates are symmetric, so they read the same on either side.
  */
 import type { jsPDF } from 'jspdf'
-import { leafShapeProblem, leafTemplate, outlineFromPolygon, pathToPolygon, repeatOutlinePath, smoothCurve, tryPlaceLeaf } from '@/geometry'
+import { leafLayers, leafShapeProblem, leafTemplate, outlineFromPolygon, pathToPolygon, repeatOutlinePath, smoothCurve, tryPlaceLeafLayers } from '@/geometry'
 import { formatInches, POINTS_PER_INCH } from '@/lib/units'
 import { drawHeader, drawTestSquares, font, HEADER_HEIGHT_PT, TEST_BAND_HEIGHT_PT } from './chrome'
 import { startPage, type BookletContext } from './context'
@@ -34,17 +34,17 @@ const labelledSize = (inches: number): number => Math.max(LABEL_STEP_INCHES, Mat
 function leafTemplates(context: BookletContext): Template[] {
   const { design } = context.model
   const sizes = new Map<string, { length: number; width: number; fabrics: Set<string>; count: number }>()
-  for (const leaf of design.leaves) {
-    // An impossible leaf is an error of the plan; it gets no template.
-    if (leafShapeProblem(leaf.length, leaf.width)) continue
-    let length = labelledSize(leaf.length)
-    let width = labelledSize(leaf.width)
+  // Each stacked layer is a folded leaf of its own size (its scale of the leaf's): one template per size.
+  for (const layer of design.leaves.flatMap((leaf) => (leafShapeProblem(leaf.length, leaf.width) ? [] : leafLayers(leaf)))) {
+    // (An impossible leaf is an error of the plan; it gets no template.)
+    let length = labelledSize(layer.length)
+    let width = labelledSize(layer.width)
     // A leaf so near half a disc that rounding would blunt it keeps its exact size (and label).
-    if (leafShapeProblem(length, width)) [length, width] = [leaf.length, leaf.width]
+    if (leafShapeProblem(length, width)) [length, width] = [layer.length, layer.width]
     const key = `${length}x${width}`
     const entry = sizes.get(key) ?? { length, width, fabrics: new Set<string>(), count: 0 }
-    leaf.layers.forEach((fabric) => entry.fabrics.add(fabric))
-    entry.count += leaf.layers.length * design.ring.repeats
+    entry.fabrics.add(layer.fabric)
+    entry.count += design.ring.repeats
     sizes.set(key, entry)
   }
   const sizeInWords = (inches: number): string =>
@@ -194,10 +194,11 @@ export function writePlacementGuide(context: BookletContext): void {
     for (const leaf of design.leaves) {
       const seam = design.seams.find((s) => s.id === leaf.seam)
       if (!seam) continue
-      const placement = tryPlaceLeaf(leaf, seam)
-      if (!placement.ok) continue // reported by the plan
+      const placed = tryPlaceLeafLayers(leaf, seam)
+      if (!placed.ok) continue // reported by the plan
+      // Every stacked layer where it lies, each turned and sized by its offset.
       dashedPen(doc, 0.4, [2, 2], [120, 120, 120])
-      tracePolygon(doc, view, placement.placement.finishedOutline)
+      for (const layer of placed.layers) tracePolygon(doc, view, layer.placement.finishedOutline)
       doc.stroke()
     }
     doc.setLineDashPattern([], 0)
