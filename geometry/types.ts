@@ -104,6 +104,17 @@ export interface HandSetOrder {
 }
 
 /**
+ * How the ring's curved edges are bound: double-fold bias strips. Both fields are optional; the
+ * booklet fills in its defaults (lib/booklet/finishing.ts: 2 1/4 in wide, cut from the "binding" role).
+ */
+export interface Binding {
+  /** Cut width of the strips, inches (a length: scaled with the design). */
+  readonly cutWidth?: number
+  /** The colourway's fabric role the strips are cut from. */
+  readonly fabric?: string
+}
+
+/**
  * A design as the core sees it: already validated and converted to inches.
  * The file format (`wreathwright-design`, version 1) is parsed by lib/schemas/design.ts.
  */
@@ -118,6 +129,8 @@ export interface Design {
   readonly curls: readonly Curl[]
   readonly colorways: readonly Colorway[]
   readonly order: HandSetOrder | null
+  /** Absent in designs that never set it: the defaults apply. */
+  readonly binding?: Binding
 }
 
 export type ProblemSeverity = 'error' | 'warning'

@@ -3,7 +3,7 @@ import { describe, expect, it } from 'vitest'
 import { buildBooklet, writeBooklet } from './booklet'
 import { joinSentences } from './steps'
 import { allText, openPdf } from './test-support/read-pdf'
-import { designFrom, wreathFile } from './test-support/designs'
+import { designFrom, medallionFile, wreathFile } from './test-support/designs'
 import type { DesignFile } from '@/lib/schemas/design'
 
 const fixture = (name: string) => designFrom(JSON.parse(readFileSync(`geometry/fixtures/${name}/design.json`, 'utf8')) as DesignFile)
@@ -25,7 +25,9 @@ describe('booklet text', () => {
     expect(text).toMatch(/A2: unassigned\. Cut 9 1\/4 × 5 3\/4 in/)
     expect(text).toMatch(/Finishing, in this order/)
     // The leaf by its plain name, over the one area it lies over, its layers bottom first.
-    expect(text).toMatch(/baste leaf 1 of A1 \(layers bottom first: leaf-dark, leaf-light\)/)
+    // Layers bottom first, each at its own size: the second is 0.9 of the first and turned 10° (the default fan):
+    // 1.5 × 0.9 = 1.35 → 1 3/8 in, 0.75 × 0.9 = 0.675 → 5/8 in to the nearest 1/8.
+    expect(text).toMatch(/baste leaf 1 of A1 \(layers bottom first: leaf-dark 1 1\/2 × 3\/4 in, leaf-light 1 3\/8 × 5\/8 in turned 10° counter-clockwise\)/)
     expect(text).not.toMatch(/leaf l1/)
     // Seam "high" runs from (0, 4) to the outer arc at (√(81 − 16), 4) = (8.062, 4); the leaf sits at
     // 0.4 of it, x = 3.225, so 8.062 − 3.225 = 4.837 in from the outer end: 4 7/8 in to the nearest 1/8.
@@ -45,11 +47,13 @@ describe('booklet text', () => {
     // 2 × 4 = 8 folded leaves of each fabric; 2 pieces per folded leaf gives 16 pieces each.
     expect(text).toMatch(/The ring needs 16 folded leaves: 4 per repeat × 4 repeats/)
     expect(text).toMatch(/- leaf-dark: 8 folded leaves 1 3\/4 × 7\/8 in, from 16 pieces\./)
-    expect(text).toMatch(/- leaf-light: 8 folded leaves 1 3\/4 × 7\/8 in, from 16 pieces\./)
+    // The top layer is 0.9 of the leaf (the default fan): 1.75 × 0.9 = 1.575 → 1 5/8 in, 0.875 × 0.9 = 0.7875 → 3/4 in.
+    expect(text).toMatch(/- leaf-light: 8 folded leaves 1 5\/8 × 3\/4 in, from 16 pieces\./)
     expect(text).toMatch(/sew on it, leaving the open end open; cut both on the dashed cut line; clip across the tip, turn right side out/)
-    expect(text).toMatch(/16 × leaf piece 1 3\/4 × 7\/8 in, cut with the leaf template \(2 per folded leaf\)/)
-    // The leaf template's caption counts both fabrics of its size: 8 + 8 = 16 folded leaves, 32 pieces.
-    expect(text).toMatch(/16 folded leaves = 32 pieces: leaf-dark, leaf-light/)
+    expect(text).toMatch(/leaf-dark 16 × leaf piece 1 3\/4 × 7\/8 in, cut with the leaf template of that size \(2 per folded leaf\)/)
+    expect(text).toMatch(/leaf-light 16 × leaf piece 1 5\/8 × 3\/4 in, cut with the leaf template of that size \(2 per folded leaf\)/)
+    expect(text).toMatch(/Leaf 1 3\/4 × 7\/8 in 8 folded leaves = 16 pieces: leaf-dark/)
+    expect(text).toMatch(/Leaf 1 5\/8 × 3\/4 in 8 folded leaves = 16 pieces: leaf-light/)
     expect(text.indexOf('Prepare the leaves')).toBeGreaterThan(0)
     expect(text.indexOf('Prepare the leaves')).toBeLessThan(text.indexOf('Section A'))
   })
@@ -65,7 +69,7 @@ describe('booklet text', () => {
   it('names leaves caught in a section join and the finishing order', async () => {
     const text = await textOf(buildBooklet(designFrom(wreathFile()), { paper: 'letter', parts: ['steps'] }))
     expect(text).toMatch(/Join A and B along their shared seam/)
-    expect(text).toMatch(/leaf 1 of A2 on section A \(layers bottom first: leaf-dark, leaf-light\): lay it on the fabric side over A2/)
+    expect(text).toMatch(/leaf 1 of A2 on section A \(layers bottom first: leaf-dark 1 3\/4 × 7\/8 in, leaf-light 1 5\/8 × 3\/4 in turned 10° counter-clockwise\): lay it on the fabric side over A2/)
     const order = ['Stem ring', 'Curling stems', 'quilt it', 'Berries', 'Bind the curved edge'].map((words) => text.indexOf(words))
     expect(order.every((at) => at >= 0)).toBe(true)
     expect([...order].sort((a, b) => a - b)).toEqual(order)
@@ -76,6 +80,43 @@ describe('booklet text', () => {
     for (const fabric of ['background', 'band', 'sky', 'leaf-dark', 'leaf-light', 'stem', 'berry']) expect(text).toContain(fabric)
     expect(text).toContain('Colourway: Frost')
     expect(text).toMatch(/Finished diameter: 18 in/)
+  })
+
+  it('gives the binding its cut width, fabric and a strip for each curved edge', async () => {
+    const wedge = await textOf(buildBooklet(designFrom(wreathFile()), { paper: 'letter', parts: ['cover', 'steps'] }))
+    // Default 2 1/4 in (common practice for double-fold binding); the "binding" role of the colourway.
+    expect(wedge).toMatch(/Double-fold bias binding, cut 2 1\/4 in wide from binding: 67 in in all/)
+    // 2π × 9 in = 56.5 in, + 10 in for joining (common practice) = 67 in, rounded up.
+    expect(wedge).toMatch(/Outer edge: 2 × 3\.14 × 9 in = 56\.5 in, plus 10 in for joining the ends: 67 in\./)
+    expect(wedge).toMatch(/1 × bias strip 2 1\/4 in wide, 67 in long in all \(binding, outer edge\)/)
+    expect(wedge).not.toMatch(/Inner edge/)
+    expect(wedge).toMatch(/Bind the curved edge with double-fold bias binding cut 2 1\/4 in wide from binding \(67 in for the outer edge/)
+    const ring = await textOf(buildBooklet(designFrom(medallionFile()), { paper: 'letter', parts: ['cover', 'steps'] }))
+    // outer 2π × 10 in = 62.8 in + 10 in → 73 in; inner 2π × 3 in = 18.8 in + 10 in → 29 in; 102 in in all.
+    expect(ring).toMatch(/Outer edge: 2 × 3\.14 × 10 in = 62\.8 in, plus 10 in for joining the ends: 73 in\./)
+    expect(ring).toMatch(/Inner edge: 2 × 3\.14 × 3 in = 18\.8 in, plus 10 in for joining the ends: 29 in\./)
+    expect(ring).toMatch(/102 in in all/)
+    expect(ring).toMatch(/Bind the outer and inner curved edges .*\(73 in for the outer edge and 29 in for the inner edge/)
+  })
+
+  it("keeps the design's binding width and fabric at any printed size, and reads it from a centimetre file", async () => {
+    const file = wreathFile({ binding: { cutWidth: 2.5, fabric: 'band' } })
+    // Printed at 36 in (twice the size), the strips stay 2 1/2 in wide: binding is not part of the drawing.
+    const text = await textOf(buildBooklet(designFrom(file), { paper: 'letter', parts: ['cover'], finishedDiameterInches: 36 }))
+    expect(text).toMatch(/cut 2 1\/2 in wide from band/)
+    // 6.35 cm = 2.5 in exactly (1 in = 2.54 cm, 1959 agreement).
+    const centimetres = designFrom({ ...wreathFile(), units: 'cm', ring: { innerRadius: 0, outerRadius: 22.86, repeats: 4, repeatMode: 'rotate' }, seams: [], leaves: [], stems: [], berries: [], curls: [], fills: [], binding: { cutWidth: 6.35 } })
+    expect(centimetres.binding?.cutWidth).toBeCloseTo(2.5, 12)
+    expect(designFrom(wreathFile()).binding).toBeUndefined()
+  })
+
+  it('says on which side of the traced circle the stem strip lies, so it lands on the drawn stem', async () => {
+    const text = await textOf(buildBooklet(designFrom(wreathFile()), { paper: 'letter', parts: ['steps'] }))
+    // Stem of 3/8 in finished: cut 2 × 3/8 + 1/2 = 1 1/4 in (derivable), folded 5/8 in.
+    expect(text).toMatch(/cut bias strips 1 1\/4 in wide/)
+    expect(text).toMatch(/wrong sides together \(5\/8 in wide\)/)
+    expect(text).toMatch(/Lay the strip on the centre side of the inner traced circle, its raw edges toward the outer edge and 1\/4 in beyond that circle, and sew 1\/4 in from the raw edges, so the stitching runs on the inner traced circle/)
+    expect(text).toMatch(/Press the strip over the seam toward the outer edge: it covers the raw edges and its fold lies on the outer traced circle, 3\/8 in from the stitching/)
   })
 
   it('prints the mirrored repeats of an alternately mirrored ring as their own foundations', () => {

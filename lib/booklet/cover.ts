@@ -9,6 +9,7 @@ import { font } from './chrome'
 import { startPage, type BookletContext } from './context'
 import { fitView, rgb, solidPen, toPage, traceCurve, tracePath, tracePolygon, type View } from './draw'
 import { bindingLengthInches, cuttingList } from './fabric-list'
+import { BINDING_JOIN_INCHES, bindingPlan } from './finishing'
 import { fabricColour, UNASSIGNED_FABRIC, type BookletModel } from './model'
 import { PAPERS } from './paper'
 import { startFlow } from './flow'
@@ -184,5 +185,9 @@ function writeFabricPages(context: BookletContext): void {
   }
   flow.gap(8)
   flow.heading('Binding')
-  flow.paragraph(`About ${bindingLengthInches(model)} in of bias binding for the curved edge${model.design.ring.innerRadius > 0 ? 's (outer and inner)' : ''}: a curved edge must be bound with strips cut on the bias.`)
+  const binding = bindingPlan(model.design)
+  flow.paragraph(`Double-fold bias binding, cut ${formatInches(binding.cutWidthIn)} wide from ${binding.fabric}: ${bindingLengthInches(model)} in in all, a strip for each curved edge (a curved edge must be bound with strips cut on the bias). Fold each strip in half lengthwise, wrong sides together, and press.`)
+  for (const edge of binding.edges) {
+    flow.paragraph(`- ${edge.edge === 'outer' ? 'Outer' : 'Inner'} edge: 2 × 3.14 × ${formatInches(edge.radiusIn)} = ${edge.circumferenceIn.toFixed(1)} in, plus ${BINDING_JOIN_INCHES} in for joining the ends: ${edge.stripLengthIn} in.`, { indent: 10 })
+  }
 }

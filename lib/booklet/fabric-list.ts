@@ -1,9 +1,12 @@
 /**
- * The cutting list by fabric, from the plan's rough-cut pieces, the leaves, berries and stem ring.
+ * The cutting list by fabric, from the plan's rough-cut pieces, the leaves, berries, stem ring and
+ * binding.
  * A stand-in until the fabric-math issue lands (yardage, fat quarters): it says what to cut,
  * not how much fabric to buy.
  */
+import { leafLayers } from '@/geometry'
 import { formatInches } from '@/lib/units'
+import { bindingPlan } from './finishing'
 import { leafName, PIECES_PER_FOLDED_LEAF } from './leaves'
 import type { BookletModel } from './model'
 
@@ -17,8 +20,6 @@ export interface CutLine {
 export const BERRY_EXTRA_INCHES = 0.25
 /** Extra bias strip for joining the stem ring's ends, inches (common practice: a few inches). */
 export const STEM_OVERLAP_INCHES = 4
-/** Extra binding for joining its ends, inches (common practice). */
-export const BINDING_EXTRA_INCHES = 10
 
 /**
  * Every piece to cut, grouped by fabric, in first-seen order of fabrics.
@@ -46,8 +47,8 @@ export function cuttingList(model: BookletModel): Map<string, string[]> {
   const repeats = design.ring.repeats
   // Pieces, not leaves: each folded leaf is two pieces cut with its template (8 leaves = 16 pieces).
   for (const leaf of design.leaves) {
-    for (const fabric of leaf.layers) {
-      add(fabric, `leaf piece ${formatInches(leaf.length).replace(' in', '')} × ${formatInches(leaf.width)}, cut with the leaf template (${PIECES_PER_FOLDED_LEAF} per folded leaf)`, PIECES_PER_FOLDED_LEAF * repeats, leafName(model, leaf.id))
+    for (const { fabric, length, width } of leafLayers(leaf)) {
+      add(fabric, `leaf piece ${formatInches(length).replace(' in', '')} × ${formatInches(width)}, cut with the leaf template of that size (${PIECES_PER_FOLDED_LEAF} per folded leaf)`, PIECES_PER_FOLDED_LEAF * repeats, leafName(model, leaf.id))
     }
   }
   for (const berry of design.berries) {
@@ -58,6 +59,11 @@ export function cuttingList(model: BookletModel): Map<string, string[]> {
     // Folded bias stem: cut width = 2 × finished width + 1/2 in (derivable: fold, sew 1/4 in from the raw edges).
     add(stem.fabric, `bias strip ${formatInches(2 * stem.finishedWidth + 0.5)} wide, ${formatInches(Math.ceil(length))} long in all (stem ring)`, 1, '')
   }
+  // Binding: one bias strip per curved edge, each with its own joining allowance.
+  const binding = bindingPlan(design)
+  for (const edge of binding.edges) {
+    add(binding.fabric, `bias strip ${formatInches(binding.cutWidthIn)} wide, ${formatInches(edge.stripLengthIn)} long in all (binding, ${edge.edge} edge)`, 1, '')
+  }
   const result = new Map<string, string[]>()
   for (const [fabric, byWhat] of pieces) {
     result.set(fabric, [...byWhat].map(([what, { count, labels }]) => `${count} × ${what}${labels.length ? ` (${labels.join(', ')})` : ''}`))
@@ -66,12 +72,11 @@ export function cuttingList(model: BookletModel): Map<string, string[]> {
 }
 
 /**
- * Binding for the ring's curved edges: bias strips (common practice for curves), 2πr plus a join.
+ * All the binding for the ring's curved edges, inches: the strips of `bindingPlan`, one per edge,
+ * each 2πr plus its own joining allowance, rounded up.
  *
- * @example bindingLengthInches(model) // 86 for an 18 in wedge ring
+ * @example bindingLengthInches(model) // 67 for an 18 in wedge ring: 2π × 9 + 10 = 66.5, rounded up
  */
 export function bindingLengthInches(model: BookletModel): number {
-  const { ring } = model.design
-  const edges = 2 * Math.PI * ring.outerRadius + (ring.innerRadius > 0 ? 2 * Math.PI * ring.innerRadius : 0)
-  return Math.ceil(edges + BINDING_EXTRA_INCHES)
+  return bindingPlan(model.design).edges.reduce((sum, edge) => sum + edge.stripLengthIn, 0)
 }

@@ -4,7 +4,7 @@
  * along the line from a named end, which way its tip points and its layers, bottom first. Leaves
  * are named by the one rule of `leafNames` (geometry), never by their ids.
  */
-import { leafBaseOnSeam, type Leaf, type PlanArea, type Point, type Segment } from '@/geometry'
+import { leafBaseOnSeam, leafLayers, type Leaf, type PlanArea, type Point, type Segment } from '@/geometry'
 import { formatInches } from '@/lib/units'
 import type { BookletModel } from './model'
 
@@ -39,9 +39,10 @@ export function leafBatches(model: BookletModel): LeafBatch[] {
   const repeats = model.design.ring.repeats
   const batches = new Map<string, { fabric: string; lengthIn: number; widthIn: number; folded: number }>()
   for (const leaf of model.design.leaves) {
-    for (const fabric of leaf.layers) {
-      const key = `${fabric}\u0000${leaf.length.toFixed(4)}\u0000${leaf.width.toFixed(4)}`
-      const batch = batches.get(key) ?? { fabric, lengthIn: leaf.length, widthIn: leaf.width, folded: 0 }
+    // Each layer at its own size (its offset's scale of the leaf's).
+    for (const { fabric, length, width } of leafLayers(leaf)) {
+      const key = `${fabric}\u0000${formatInches(length)}\u0000${formatInches(width)}`
+      const batch = batches.get(key) ?? { fabric, lengthIn: length, widthIn: width, folded: 0 }
       batch.folded += repeats
       batches.set(key, batch)
     }
@@ -58,9 +59,18 @@ export function leafName(model: BookletModel, leafId: string): string {
   return model.leafNames.get(leafId) ?? 'leaf'
 }
 
-/** The layers in words, bottom first. */
-export function layersInWords(leaf: Pick<Leaf, 'layers'>): string {
-  return leaf.layers.length > 1 ? `layers bottom first: ${leaf.layers.join(', ')}` : `one layer: ${leaf.layers[0] ?? ''}`
+/**
+ * The layers in words, bottom first, with each layer's size and any turn of its own (as seen on
+ * the fabric side).
+ *
+ * @example layersInWords(leaf) // 'layers bottom first: leaf-dark 1 3/4 × 7/8 in, leaf-light 1 5/8 × 3/4 in turned 10° counter-clockwise'
+ */
+export function layersInWords(leaf: Leaf): string {
+  const words = leafLayers(leaf).map(({ fabric, length, width, turn }) => {
+    const turned = Math.abs(turn) < SQUARE_DEGREES ? '' : ` turned ${Math.round(Math.abs(turn))}° ${turn > 0 ? 'counter-clockwise' : 'clockwise'}`
+    return `${fabric} ${formatInches(length).replace(' in', '')} × ${formatInches(width)}${turned}`
+  })
+  return words.length > 1 ? `layers bottom first: ${words.join(', ')}` : `one layer: ${words[0] ?? ''}`
 }
 
 const distance = (a: Point, b: Point): number => Math.hypot(a[0] - b[0], a[1] - b[1])

@@ -6,6 +6,7 @@ import {
   areaUnderLeaf, fabricsOfAreas, IDENTITY, leafNames, planDesign, printedSideTransform, scaleDesign,
   tryPlaceLeaf, type AffineTransform, type Colorway, type Design, type Leaf, type LeafPlacement, type Plan, type PlanArea,
 } from '@/geometry'
+import { SAME_SIZE_INCHES } from '@/geometry/tolerances'
 import type { BookletOptions } from '@/lib/schemas/booklet'
 
 /** One foundation to print: a section of a kind of repeat, how many to make and how it is mirrored. */
@@ -50,7 +51,10 @@ export const UNASSIGNED_FABRIC = 'unassigned'
  */
 export function bookletModel(original: Design, options: BookletOptions): BookletModel {
   const diameter = options.finishedDiameterInches ?? 2 * original.ring.outerRadius
-  const design = Math.abs(diameter - 2 * original.ring.outerRadius) < 1e-9 ? original : scaleDesign(original, diameter)
+  const resized = Math.abs(diameter - 2 * original.ring.outerRadius) < SAME_SIZE_INCHES ? original : scaleDesign(original, diameter)
+  // Printing at another size draws the ring larger, but binding strips stay as wide as the
+  // designer set them (2 1/4 in is right for any ring), so the binding is kept as it was.
+  const design = original.binding ? { ...resized, binding: original.binding } : resized
   const plan = planDesign(design)
   const colorway = (options.colorway ? design.colorways.find((c) => c.name === options.colorway) : design.colorways[0]) ?? null
   const filled = fabricsOfAreas(design.fills, plan.areas)

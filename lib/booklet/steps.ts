@@ -13,6 +13,7 @@ import type { BookletContext } from './context'
 import { dashedPen, fitView, rgb, solidPen, toPage, tracePath, tracePolygon } from './draw'
 import { BERRY_EXTRA_INCHES, STEM_OVERLAP_INCHES } from './fabric-list'
 import { startFlow, WRAP_SLACK_PT } from './flow'
+import { bindingPlan, stemSewing } from './finishing'
 import { layersInWords, leafBatches, leafName, leafPlace, PIECES_PER_FOLDED_LEAF } from './leaves'
 import { fabricColour, leavesInBooklet, sectionAreas, type BookletModel, type FoundationKind, type LeafInBooklet } from './model'
 
@@ -187,13 +188,17 @@ function writeFinishing(context: BookletContext, flow: ReturnType<typeof startFl
   flow.heading('Finishing, in this order')
   const steps: string[] = ['Press the joined ring and tear away the foundation papers, starting from the outside seams.']
   for (const stem of design.stems) {
-    steps.push(`Stem ring (once the repeats are joined): cut bias strips ${formatInches(2 * stem.finishedWidth + 0.5)} wide, about ${formatInches(Math.ceil(2 * Math.PI * stem.radius + STEM_OVERLAP_INCHES))} long in all; fold in half wrong sides together, lay the raw edges on the marked circle of radius ${formatInches(stem.radius)} (see the placement guide), sew 1/4 in from them, fold the strip over the seam and stitch its folded edge down by hand.`)
+    const sewing = stemSewing(stem)
+    const trim = sewing.trimAllowance ? ` Trim the seam allowance to less than ${formatInches(stem.finishedWidth)} first, so the strip hides it.` : ''
+    steps.push(`Stem ring (once the repeats are joined): cut bias strips ${formatInches(sewing.cutWidthIn)} wide, about ${formatInches(Math.ceil(2 * Math.PI * stem.radius + STEM_OVERLAP_INCHES))} long in all, join them into one and fold it in half lengthwise, wrong sides together (${formatInches(sewing.foldedWidthIn)} wide). Trace the stem's two solid circles from the placement guide. Lay the strip on the centre side of the inner traced circle, its raw edges toward the outer edge and 1/4 in beyond that circle, and sew 1/4 in from the raw edges, so the stitching runs on the inner traced circle. Press the strip over the seam toward the outer edge: it covers the raw edges and its fold lies on the outer traced circle, ${formatInches(stem.finishedWidth)} from the stitching.${trim} Stitch the fold down by hand.`)
   }
   if (design.curls.length > 0) steps.push('Curling stems: trace them from the placement guide, then embroider them in outline stitch with 2 or 3 strands of floss.')
   steps.push('Layer the top with batting and backing and quilt it.')
   for (const berry of design.berries.slice(0, 1)) {
     steps.push(`Berries: cut circles ${formatInches(2 * berry.finishedDiameter + BERRY_EXTRA_INCHES)} across (see the templates), run a gathering stitch near the edge, stuff lightly, draw up and stitch each at its mark on the placement guide.`)
   }
-  steps.push('Bind the curved edge with bias binding.')
+  const binding = bindingPlan(design)
+  const edges = binding.edges.map((edge) => `${edge.stripLengthIn} in for the ${edge.edge} edge`).join(' and ')
+  steps.push(`Bind the ${binding.edges.length > 1 ? 'outer and inner curved edges' : 'curved edge'} with double-fold bias binding cut ${formatInches(binding.cutWidthIn)} wide from ${binding.fabric} (${edges}, see the cutting list); join each strip's ends on its own edge.`)
   steps.forEach((step, index) => flow.paragraph(`${index + 1}. ${step}`))
 }

@@ -46,6 +46,7 @@ const everyField: DesignFile = {
     sections: [{ label: 'A', areas: [[5.5, 1], [3.5, 3.5]] }, { label: 'B', areas: [[7.5, 4]] }],
     assembly: ['A', 'B'],
   },
+  binding: { cutWidth: 2.25, fabric: 'binding' },
 }
 
 interface NumberAt {

@@ -43,6 +43,8 @@ const leaf = z.strictObject({
 })
 
 const stem = z.strictObject({ radius: positive, finishedWidth: positive, fabric: z.string().min(1) })
+/** Double-fold bias binding: its cut width (a length, file units) and the fabric role it is cut from; either may be left out. */
+const binding = z.strictObject({ cutWidth: positive.optional(), fabric: z.string().min(1).optional() })
 const berry = z.strictObject({ at: point, finishedDiameter: positive, fabric: z.string().min(1) })
 const curl = z.strictObject({ points: z.array(point).min(2) })
 const colorway = z.strictObject({
@@ -101,6 +103,7 @@ export const designFileSchema = z
     curls: z.array(curl).optional(),
     colorways: z.array(colorway).optional(),
     order: handSetOrder.nullable().optional(),
+    binding: binding.optional(),
   })
   .superRefine((file, context) => {
     const seamIds = new Set<string>()
@@ -207,5 +210,6 @@ function toInchesDesign(original: DesignFile): Design {
     curls: (file.curls ?? []).map((c) => ({ points: c.points.map(at) })),
     colorways: (file.colorways ?? []).map((c) => ({ name: c.name, fabrics: { ...c.fabrics } })),
     order,
+    ...(file.binding && { binding: { ...file.binding } }),
   }
 }
