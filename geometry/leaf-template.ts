@@ -23,7 +23,7 @@
 import { DEFAULT_MITRE_LIMIT } from './offset'
 import { pathToPolygon, type ArcPathSegment, type OutlinePath, type PathSegment } from './trim-line'
 import type { LayerOffset, Leaf, Point, Polygon, Seam, Segment } from './types'
-import { add, cross, scale, type Vector } from './vector'
+import { add, cross, scale } from './vector'
 
 /** Cut line outside the sew line, inches (common practice for small turned pieces; a setting). */
 export const DEFAULT_LEAF_CUT_ALLOWANCE_INCHES = 1 / 8
@@ -127,8 +127,8 @@ export function leafTemplate(length: number, width: number, options: LeafTemplat
   const offCentre = sideRadius(length, width) - half
   const meetingHeight = Math.sqrt(grownRight.radius ** 2 - offCentre ** 2)
   const tipSegments: PathSegment[] = []
-  let rightEnd = grownRight.endAngle
-  let leftStart = grownLeft.startAngle
+  let rightEnd: number
+  let leftStart: number
   if (meetingHeight - length > mitreLimit * cut) {
     const cutHeight = length + cut
     const across = Math.sqrt(grownRight.radius ** 2 - cutHeight ** 2) - offCentre
