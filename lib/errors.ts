@@ -42,6 +42,27 @@ export class ConflictError extends ServiceError {
   }
 }
 
+/**
+ * A pattern's stored design no longer reads as a design (a hand edit of the database, or a format
+ * change without a migration). Names the pattern and the fields, so it can be found and repaired;
+ * the answer is deliberate JSON, never a stack trace. 500: the fault is the server's data, not
+ * the request.
+ */
+export class StoredDesignError extends ServiceError {
+  readonly details: { readonly patternId: string; readonly patternName: string; readonly issues: readonly FieldIssue[] }
+
+  constructor(pattern: { readonly id: string; readonly name: string }, issues: readonly FieldIssue[]) {
+    const first = issues[0]
+    super(
+      `The saved design of the pattern “${pattern.name}” (${pattern.id}) can no longer be read` +
+        (first ? ` (design.${first.path}: ${first.message}).` : '.') +
+        ' Nothing was changed; save a valid design over it to repair it.',
+      500,
+    )
+    this.details = { patternId: pattern.id, patternName: pattern.name, issues }
+  }
+}
+
 export interface FieldIssue {
   /** Dotted path of the offending field, e.g. `design.ring.outerRadius`. */
   readonly path: string

@@ -1,7 +1,7 @@
 import { verifyRequestOrigin } from 'lucia'
 import { z } from 'zod'
 import { checkSession, sessionIdFromRequest, type CurrentUser } from '@/lib/auth/session'
-import { ConflictError, ServiceError, ValidationError, type FieldIssue } from '@/lib/errors'
+import { ConflictError, ServiceError, StoredDesignError, ValidationError, type FieldIssue } from '@/lib/errors'
 
 /**
  * The one wrapper every API route handler goes through. It
@@ -61,6 +61,7 @@ export function route<Params = Record<string, never>>(handler: Handler<Params>) 
 function errorResponse(error: unknown): Response {
   if (error instanceof ValidationError) return jsonError(422, error.message, { issues: error.issues })
   if (error instanceof ConflictError) return jsonError(409, error.message, error.details)
+  if (error instanceof StoredDesignError) return jsonError(error.status, error.message, error.details)
   if (error instanceof ServiceError) return jsonError(error.status, error.message)
   console.error(error)
   return jsonError(500, 'Something went wrong on our side; nothing was changed.')

@@ -2,32 +2,22 @@ import 'server-only'
 import { Transaction } from 'sequelize'
 import { authorize, type Actor } from '@/lib/authorization'
 import { database } from '@/lib/db'
-import { ConflictError, NotFoundError, ValidationError } from '@/lib/errors'
+import { ConflictError, NotFoundError, StoredDesignError, ValidationError } from '@/lib/errors'
 import { emptyDesign } from '@/lib/new-design'
-import type { DesignFile } from '@/lib/schemas/design'
+import { parseDesign, type DesignFile } from '@/lib/schemas/design'
 import {
   PATTERN_STATE_CHANGES,
   patternIdSchema,
   type CreatePatternInput,
   type PatternState,
+  type PatternSummary,
+  type PatternView,
   type UpdatePatternInput,
 } from '@/lib/schemas/pattern'
 import { Pattern, PatternRevision } from '@/models'
 
-/** A row of the pattern shelf. */
-export interface PatternSummary {
-  readonly id: string
-  readonly name: string
-  readonly state: PatternState
-  readonly revision: number
-  readonly createdAt: string
-  readonly updatedAt: string
-}
-
-export interface PatternView extends PatternSummary {
-  readonly ownerId: string
-  readonly design: DesignFile
-}
+// The answers' shapes are the schemas the browser parses them with (lib/schemas/pattern.ts).
+export type { PatternSummary, PatternView }
 
 function toSummary(pattern: Pattern): PatternSummary {
   return {
@@ -40,8 +30,15 @@ function toSummary(pattern: Pattern): PatternSummary {
   }
 }
 
+/** A stored design read through the design schema; one that no longer parses names its pattern. */
+function storedDesign(pattern: Pattern): DesignFile {
+  const parsed = parseDesign(pattern.design)
+  if (!parsed.ok) throw new StoredDesignError(pattern, parsed.issues)
+  return parsed.file
+}
+
 function toView(pattern: Pattern): PatternView {
-  return { ...toSummary(pattern), ownerId: pattern.ownerId, design: pattern.design as DesignFile }
+  return { ...toSummary(pattern), ownerId: pattern.ownerId, design: storedDesign(pattern) }
 }
 
 /** The designer's own patterns, most recently changed first. */

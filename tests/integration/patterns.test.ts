@@ -216,3 +216,46 @@ describe('pattern revisions', () => {
     ])
   })
 })
+
+describe('a stored design that no longer reads as a design', () => {
+  async function corrupted() {
+    const owner = await personWith(['designer'])
+    const pattern = await createPatternRow(owner.user, { name: 'Damaged wreath' })
+    // A hand edit of the database: an outer radius no ring can have.
+    await database().query(`UPDATE patterns SET design = jsonb_set(design, '{ring,outerRadius}', '-3') WHERE id = :id`, {
+      replacements: { id: pattern.id },
+    })
+    return { ...owner, pattern }
+  }
+
+  it('is a clear error naming the pattern and the field, not a crash', async () => {
+    const { cookie, pattern } = await corrupted()
+    const response = await call(readPattern, { cookie, params: { id: pattern.id } })
+    expect(response.status).toBe(500)
+    const error = (response.json as { error: { message: string; patternId: string; patternName: string; issues: { path: string }[] } }).error
+    expect(error.message).toContain('Damaged wreath')
+    expect(error.message).toContain(pattern.id)
+    expect(error.message).toContain('design.ring.outerRadius')
+    expect(error).toMatchObject({ patternId: pattern.id, patternName: 'Damaged wreath' })
+    expect(error.issues).toContainEqual(expect.objectContaining({ path: 'ring.outerRadius' }))
+    expect(error.message).not.toMatch(/Something went wrong/)
+  })
+
+  it('refuses a rename over it and changes nothing, but a valid design saved over it repairs it', async () => {
+    const { cookie, pattern } = await corrupted()
+    const renamed = await call(updatePattern, { method: 'PATCH', cookie, params: { id: pattern.id }, body: { revision: 1, name: 'Renamed' } })
+    expect(renamed.status).toBe(500)
+    await pattern.reload()
+    expect([pattern.name, pattern.revision]).toEqual(['Damaged wreath', 1])
+    const repaired = await call(updatePattern, { method: 'PATCH', cookie, params: { id: pattern.id }, body: { revision: 1, design: ring() } })
+    expect(repaired.status).toBe(200)
+    expect((await call(readPattern, { cookie, params: { id: pattern.id } })).status).toBe(200)
+  })
+
+  it('still lists on the shelf, which shows no designs', async () => {
+    const { cookie } = await corrupted()
+    const response = await call(listPatterns, { cookie })
+    expect(response.status).toBe(200)
+    expect((response.json as { patterns: { name: string }[] }).patterns.map((p) => p.name)).toEqual(['Damaged wreath'])
+  })
+})

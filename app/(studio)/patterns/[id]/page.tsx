@@ -3,7 +3,8 @@ import Link from 'next/link'
 import { notFound } from 'next/navigation'
 import { PrintDialog } from '@/components/print/print-dialog'
 import { requireUser } from '@/lib/auth/current-user'
-import { NotFoundError } from '@/lib/errors'
+import { UnreadableDesign } from '@/components/patterns/unreadable-design'
+import { NotFoundError, StoredDesignError } from '@/lib/errors'
 import { getPattern, listRevisions } from '@/lib/services/patterns'
 
 export const metadata: Metadata = { title: 'Pattern' }
@@ -13,8 +14,10 @@ export default async function PatternPage({ params }: { params: Promise<{ id: st
   const user = await requireUser(undefined, `/patterns/${id}`)
   const loaded = await Promise.all([getPattern(user, id), listRevisions(user, id)]).catch((error: unknown) => {
     if (error instanceof NotFoundError) notFound()
+    if (error instanceof StoredDesignError) return error
     throw error
   })
+  if (loaded instanceof StoredDesignError) return <UnreadableDesign error={loaded} />
   const [pattern, revisions] = loaded
   const { ring } = pattern.design
   const unit = pattern.design.units

@@ -3,7 +3,8 @@ import Link from 'next/link'
 import { notFound } from 'next/navigation'
 import { PrintDialog } from '@/components/print/print-dialog'
 import { requireUser } from '@/lib/auth/current-user'
-import { NotFoundError } from '@/lib/errors'
+import { UnreadableDesign } from '@/components/patterns/unreadable-design'
+import { NotFoundError, StoredDesignError } from '@/lib/errors'
 import { getPattern } from '@/lib/services/patterns'
 
 export const metadata: Metadata = { title: 'Print room' }
@@ -14,8 +15,10 @@ export default async function PrintPage({ params }: { params: Promise<{ id: stri
   const user = await requireUser(undefined, `/patterns/${id}/print`)
   const pattern = await getPattern(user, id).catch((error: unknown) => {
     if (error instanceof NotFoundError) notFound()
+    if (error instanceof StoredDesignError) return error
     throw error
   })
+  if (pattern instanceof StoredDesignError) return <UnreadableDesign error={pattern} />
   return (
     <article className="mx-auto max-w-6xl space-y-6">
       <Link href={`/patterns/${pattern.id}`} className="text-sm text-thread-700 hover:underline">
