@@ -1,7 +1,7 @@
 'use client'
 
 import { useState } from 'react'
-import { isPointedLeaf } from '@/geometry/leaf-template'
+import { isPointedLeaf, LAYER_SCALE_RANGE, LAYER_TURN_LIMIT_DEGREES, leafLayers } from '@/geometry/leaf-template'
 import type { BoardDesign } from '@/lib/board/commands'
 import { design as designOf, type BoardStore } from '@/lib/board/store'
 import { designFileSchema } from '@/lib/schemas/design'
@@ -114,32 +114,70 @@ function LeafEditor({ store, design, leaf, fabrics }: { store: BoardStore; desig
       <button type="button" className={small} onClick={() => store.run('flipLeafSide', { leafId: leaf.id })}>
         Flip to the other side
       </button>
-      <fieldset className="space-y-1">
-        <legend className="text-xs font-medium text-stone-600">Layers, bottom first</legend>
-        {leaf.layers.map((fabric, index) => (
-          <div key={index} className="flex items-center gap-1">
-            <FabricSelect
-              id={`leaf-layer-${index}`}
-              label={`${index + 1}.`}
-              value={fabric}
-              fabrics={fabrics}
-              onChange={(next) => change({ layers: leaf.layers.map((f, i) => (i === index ? next : f)) })}
-            />
-            {leaf.layers.length > 1 && (
-              <button type="button" className={small} aria-label={`Remove layer ${index + 1}`} onClick={() => change({ layers: leaf.layers.filter((_, i) => i !== index) })}>
-                ×
-              </button>
-            )}
-          </div>
-        ))}
-        <button type="button" className={small} onClick={() => change({ layers: [...leaf.layers, fabrics[0] ?? leaf.layers[0]!] })}>
-          Add a layer on top
-        </button>
-      </fieldset>
+      <LayerEditor store={store} leaf={leaf} fabrics={fabrics} />
       <button type="button" className={small} onClick={() => store.run('deleteLeaf', { leafId: leaf.id })}>
         Delete leaf
       </button>
     </div>
+  )
+}
+
+/**
+ * The stacked layers of a leaf, bottom first: each layer's fabric, its turn (degrees, on top of
+ * the leaf's tilt) and its size (% of the leaf), so the layers beneath show. Unset values show the
+ * default fan; "Default" puts a layer back on it.
+ */
+function LayerEditor({ store, leaf, fabrics }: { store: BoardStore; leaf: Leaf; fabrics: string[] }) {
+  const layers = leafLayers({ ...leaf, angle: leaf.angle ?? 0 })
+  const leafId = leaf.id
+  return (
+    <fieldset className="space-y-1" data-testid="leaf-layers">
+      <legend className="text-xs font-medium text-stone-600">Layers, bottom first</legend>
+      <p className="text-xs text-stone-500">Turn and size each layer against the leaf so the ones beneath show.</p>
+      {layers.map((layer, index) => {
+        const own = leaf.layerOffsets?.[index]
+        return (
+          <div key={index} className="space-y-1 rounded border border-linen-200 p-1">
+            <div className="flex items-center gap-1">
+              <FabricSelect id={`leaf-layer-${index}`} label={`${index + 1}.`} value={layer.fabric} fabrics={fabrics} onChange={(fabric) => store.run('setLeafLayerFabric', { leafId, index, fabric })} />
+              {leaf.layers.length > 1 && (
+                <button type="button" className={small} aria-label={`Remove layer ${index + 1}`} onClick={() => store.run('removeLeafLayer', { leafId, index })}>
+                  ×
+                </button>
+              )}
+            </div>
+            <div className="grid grid-cols-[1fr_1fr_auto] items-end gap-1">
+              <NumberField
+                id={`leaf-layer-${index}-turn`}
+                label="Turn (°)"
+                value={layer.turn}
+                min={-LAYER_TURN_LIMIT_DEGREES}
+                max={LAYER_TURN_LIMIT_DEGREES}
+                step={5}
+                onCommit={(turn) => store.run('setLeafLayerOffset', { leafId, index, turn })}
+              />
+              <NumberField
+                id={`leaf-layer-${index}-size`}
+                label="Size (%)"
+                value={Math.round(layer.scale * 100)}
+                min={LAYER_SCALE_RANGE[0] * 100}
+                max={LAYER_SCALE_RANGE[1] * 100}
+                step={5}
+                onCommit={(percent) => store.run('setLeafLayerOffset', { leafId, index, scale: percent / 100 })}
+              />
+              {(own?.turn !== undefined || own?.scale !== undefined) && (
+                <button type="button" className={small} aria-label={`Put layer ${index + 1} back on the default fan`} onClick={() => store.run('setLeafLayerOffset', { leafId, index, turn: null, scale: null })}>
+                  Default
+                </button>
+              )}
+            </div>
+          </div>
+        )
+      })}
+      <button type="button" className={small} onClick={() => store.run('addLeafLayer', { leafId, fabric: fabrics[0] ?? leaf.layers[0]! })}>
+        Add a layer on top
+      </button>
+    </fieldset>
   )
 }
 
