@@ -53,7 +53,9 @@ function browserStorage(): DraftStorage | null {
  * if (autosave.state.status === 'conflict') … // <ConflictDialog autosave={autosave} /> shows itself
  */
 export function useAutosave({ patternId, revision, store, debounceMs }: UseAutosaveOptions): UseAutosave {
-  // The revision is read once: after that the autosaver knows better than the page's props.
+  // The revision (and the quiet time) are read once: after that the autosaver knows better than
+  // the page's props, and a new autosaver for a new revision would meet its own saves as conflicts.
+  // eslint-disable-next-line react-hooks/exhaustive-deps
   const autosaver = useMemo(() => createAutosaver({ patternId, revision, store, storage: browserStorage(), debounceMs }), [patternId, store])
 
   useEffect(() => {

@@ -32,7 +32,7 @@ export const draftKey = (patternId: string) => `wreathwright:draft:${patternId}`
  * @example const draft = readLocalDraft(window.localStorage, pattern.id)
  */
 export function readLocalDraft(storage: DraftStorage | null, patternId: string): LocalDraft | null {
-  let text: string | null = null
+  let text: string | null
   try {
     text = storage?.getItem(draftKey(patternId)) ?? null
   } catch {

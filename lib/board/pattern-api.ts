@@ -74,7 +74,7 @@ export function createPatternApi(patternId: string, fetch?: typeof globalThis.fe
         const { pattern } = await apiFetch(url, { schema: savedAnswerSchema, fetch })
         return { revision: pattern.revision, design: pattern.design }
       } catch (error) {
-        throw new Error(error instanceof ApiError && error.status < 300 ? 'The saved pattern could not be read.' : messageOf(error))
+        throw new Error(error instanceof ApiError && error.status < 300 ? 'The saved pattern could not be read.' : messageOf(error), { cause: error })
       }
     },
   }
