@@ -2,7 +2,7 @@ import fc from 'fast-check'
 import polygonClipping from 'polygon-clipping'
 import { EndType, inflatePathsD, JoinType } from 'clipper2-ts'
 import { describe, expect, it } from 'vitest'
-import { ROUNDING_SLACK_INCHES } from './allowance-tolerances'
+import { ROUNDING_SLACK_INCHES } from './tolerances'
 import { cuttingShape, isSimpleRing, polygonArea } from './offset'
 import type { Point, Polygon } from './types'
 

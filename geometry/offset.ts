@@ -22,7 +22,7 @@
 import { FillRule, unionD } from 'clipper2-ts'
 import polygonClipping from 'polygon-clipping'
 import { orientation } from './orientation'
-import { CLIPPER_PRECISION_DIGITS, DUPLICATE_POINT_INCHES, REVERSAL_COSINE, STRAIGHT_TURN_SINE } from './allowance-tolerances'
+import { CLIPPER_PRECISION_DIGITS, DUPLICATE_POINT_INCHES, REVERSAL_COSINE, STRAIGHT_TURN_SINE } from './tolerances'
 import type { Point, Polygon } from './types'
 import { add, cross, dot, scale, subtract, type Vector } from './vector'
 

@@ -21,7 +21,7 @@
  */
 import {
   DUPLICATE_POINT_INCHES, MARGIN_ROUNDING_SLACK_INCHES, RECTANGLE_AREA_TIE_SQ_IN, ROUNDING_SLACK_INCHES,
-} from './allowance-tolerances'
+} from './tolerances'
 import { cuttingShape, DEFAULT_SEAM_ALLOWANCE_INCHES } from './offset'
 import { orientation } from './orientation'
 import type { Point, Polygon, Segment } from './types'

@@ -2,7 +2,7 @@
  * Mirroring and repeats: the printed side of a foundation, the transforms that place every repeat
  * of the ring, and scaling a design to another finished size.
  */
-import { SIMILARITY_SLACK } from './allowance-tolerances'
+import { SIMILARITY_SLACK } from './tolerances'
 import { scaleDesignLengths } from './design-lengths'
 import type { OutlinePath, PathSegment } from './trim-line'
 import type { Design, Point, Polygon, Ring } from './types'

@@ -18,12 +18,11 @@
  * means the angle increases along the arc. A printer whose page y axis points down must negate
  * the angles and flip the flag (as canvas `arc()` and SVG's sweep flag read it).
  */
-import { ON_CIRCLE_INCHES, STRAIGHT_TURN_SINE } from './allowance-tolerances'
 import {
   cuttingShape, DEFAULT_MITRE_LIMIT, DEFAULT_SEAM_ALLOWANCE_INCHES, isSimpleRing, polygonArea,
 } from './offset'
 import { sectionOutline } from './section-outline'
-import { ARC_CHORD_TOLERANCE_INCHES } from './tolerances'
+import { ARC_CHORD_TOLERANCE_INCHES, ON_CIRCLE_INCHES, STRAIGHT_TURN_SINE } from './tolerances'
 import type { Point, Polygon, Ring } from './types'
 import { add, cross, dot, scale, subtract, type Vector } from './vector'
 

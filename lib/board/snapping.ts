@@ -3,6 +3,7 @@
  * on the outline or another seam, along a 15° direction from the seam's other end, or on the
  * grid — in that order of preference. All in design units (the file's inches or centimetres).
  */
+import { ANGLE_NOISE_RADIANS } from '@/geometry/tolerances'
 import type { BoardDesign } from './commands'
 import type { Snapping } from './store'
 
@@ -104,7 +105,7 @@ function rayCircle(origin: Point, direction: Point, radius: number): Point[] {
 
 function isOnArcSweep(p: Point, sweep: number): boolean {
   const angle = Math.atan2(p[1], p[0])
-  return angle >= -1e-9 && angle <= sweep + 1e-9
+  return angle >= -ANGLE_NOISE_RADIANS && angle <= sweep + ANGLE_NOISE_RADIANS
 }
 
 /**

@@ -11,6 +11,7 @@
  */
 import type { jsPDF } from 'jspdf'
 import { arcSweep, type ArcPathSegment, type OutlinePath, type Point, type Polygon, type SmoothCurve } from '@/geometry'
+import { COUNT_SLACK, DEGENERATE_EXTENT_INCHES } from '@/geometry/tolerances'
 import { POINTS_PER_INCH } from '@/lib/units'
 
 /** Where design inches land on the page: `scale` points per inch (72 at true scale). */
@@ -41,7 +42,7 @@ export function trueScaleView(originX: number, originY: number, left: number, to
  */
 export function fitView(box: readonly [number, number, number, number], into: { x: number; y: number; width: number; height: number }): View {
   const [minX, minY, maxX, maxY] = box
-  const scale = Math.min(into.width / Math.max(maxX - minX, 1e-9), into.height / Math.max(maxY - minY, 1e-9))
+  const scale = Math.min(into.width / Math.max(maxX - minX, DEGENERATE_EXTENT_INCHES), into.height / Math.max(maxY - minY, DEGENERATE_EXTENT_INCHES))
   const left = into.x + (into.width - (maxX - minX) * scale) / 2
   const top = into.y + (into.height - (maxY - minY) * scale) / 2
   return { scale, originX: minX, originY: maxY, left, top }
@@ -64,7 +65,7 @@ export function toPage(view: View, p: Point): [number, number] {
  */
 export function arcToBeziers(arc: ArcPathSegment): [Point, Point, Point][] {
   const sweep = arcSweep(arc)
-  const pieces = Math.max(1, Math.ceil(sweep / (Math.PI / 2) - 1e-9))
+  const pieces = Math.max(1, Math.ceil(sweep / (Math.PI / 2) - COUNT_SLACK))
   const step = ((arc.anticlockwise ? 1 : -1) * sweep) / pieces
   const k = (4 / 3) * Math.tan(step / 4)
   const [cx, cy] = arc.center

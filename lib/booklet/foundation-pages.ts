@@ -10,8 +10,9 @@
 import type { jsPDF } from 'jspdf'
 import {
   applyToPolygon, applyTransform, compose, convexHull, outlineFromPolygon, rotationAboutCentre, sectionTrimLine,
-  type AffineTransform, type Point, type Polygon,
+  type AffineTransform, type Point, type Polygon, type Segment,
 } from '@/geometry'
+import { SHEET_AREA_TIE_SQ_IN } from '@/geometry/tolerances'
 import { POINTS_PER_INCH } from '@/lib/units'
 import { font } from './chrome'
 import type { BookletContext } from './context'
@@ -81,7 +82,7 @@ function fewestPagesTurn(model: BookletModel, outline: readonly Point[]): number
     const box = sheetBox(applyToPolygon(rotationAboutCentre(turn), outline))
     const pages = tileDrawing(frame, box, overlapPt).tiles.length
     const area = (box[2] - box[0]) * (box[3] - box[1])
-    if (pages < best.pages || (pages === best.pages && area < best.area - 1e-6 && best.turn !== 0)) best = { turn, pages, area }
+    if (pages < best.pages || (pages === best.pages && area < best.area - SHEET_AREA_TIE_SQ_IN && best.turn !== 0)) best = { turn, pages, area }
   }
   return best.turn
 }
@@ -138,8 +139,28 @@ function foundationSheet(model: BookletModel, kind: FoundationKind): FoundationS
     title: `${design.name} - ${title}`,
     box,
     trimPolygon: trim.polygon,
-    drawing: { title: `${design.name} - ${title}`, note, box, outline: trim.polygon, draw },
+    drawing: { title: `${design.name} - ${title}`, note, box, outline: trim.polygon, draw, keepClear: seamLines(printed.map((p) => p.polygon)) },
   }
+}
+
+/**
+ * Every solid line of a foundation (each area's edges, arcs as their chords), each shared edge
+ * once: the lines the tiling keeps out of the overlaps.
+ */
+function seamLines(polygons: readonly Polygon[]): Segment[] {
+  const seen = new Set<string>()
+  const key = (p: Point): string => `${p[0].toFixed(4)},${p[1].toFixed(4)}`
+  const lines: Segment[] = []
+  for (const polygon of polygons) {
+    polygon.forEach((a, i) => {
+      const b = polygon[(i + 1) % polygon.length]!
+      const id = [key(a), key(b)].sort().join(' ')
+      if (seen.has(id)) return
+      seen.add(id)
+      lines.push([a, b])
+    })
+  }
+  return lines
 }
 
 /** A leaf as printed on a foundation: its outline, the marks on its seam, its layers. */

@@ -4,6 +4,7 @@
  * page's drawing area; neighbouring windows share `overlap` points, so the printed pages can be
  * laid over each other along the overlap and taped. Nothing is ever scaled to fit.
  */
+import { COUNT_SLACK } from '@/geometry/tolerances'
 import type { PageRect } from './paper'
 
 export interface Tile {
@@ -52,7 +53,7 @@ export function sheetName(sheet: number, sheets?: number): string {
 /** How many windows of `size`, stepping by `size − overlap`, cover `length`. */
 function countAlong(length: number, size: number, overlap: number): number {
   if (length <= size) return 1
-  return Math.ceil((length - overlap) / (size - overlap) - 1e-9)
+  return Math.ceil((length - overlap) / (size - overlap) - COUNT_SLACK)
 }
 
 /**
