@@ -1,7 +1,10 @@
 import polygonClipping, { type Polygon as ClipPolygon } from 'polygon-clipping'
 import { describe, expect, it } from 'vitest'
 import { buildBooklet, writeBooklet } from './booklet'
+import { applyTransform } from '@/geometry'
 import { pageFrame } from './paper'
+import { drawingWindow, onSheet } from './tiled-drawing'
+import { layoutTiles, seamLengthInOverlaps } from './tiling'
 import { allText, openPdf, pagePaths, pageRectangles, pageSizes, pageText } from './test-support/read-pdf'
 import { asymmetricFile, designFrom, medallionFile, wreathFile } from './test-support/designs'
 import type { DesignFile } from '@/lib/schemas/design'
@@ -105,6 +108,25 @@ describe('tiling a foundation', () => {
     }
     // A 24 in ring's quarter does not fit one Letter page: the check above saw real tiles.
     expect(tiled).toBeGreaterThan(0)
+  })
+})
+
+describe('tile origins', () => {
+  it('keeps a seam out of the overlaps where centring would lay it along one (the test wreath at 18 in on Letter)', () => {
+    const written = writeBooklet(wreath, { paper: 'letter', parts: ['foundations'] })
+    const frame = pageFrame({ paper: 'letter', orientation: 'portrait', marginInches: 0.4 })
+    const vein = wreath.seams.find((seam) => seam.id === 'vein')!
+    let worstCentred = 0
+    for (const { sheet, layout } of written.foundations) {
+      const line = onSheet(sheet.box, [[applyTransform(sheet.placement, vein.from), applyTransform(sheet.placement, vein.to)]])
+      const centred = layoutTiles((sheet.box[2] - sheet.box[0]) * 72, (sheet.box[3] - sheet.box[1]) * 72, drawingWindow(frame), 36)
+      worstCentred = Math.max(worstCentred, seamLengthInOverlaps(centred, line))
+      // The chosen origin keeps all of the vein clear, on the same number of pages.
+      expect(seamLengthInOverlaps(layout, line)).toBe(0)
+      expect(layout.tiles).toHaveLength(centred.tiles.length)
+    }
+    // Centred tiles lay the vein ((3.5, 3.5) to 9 in at 45°) along an overlap strip of one foundation, over 3 in (216 pt) of it.
+    expect(worstCentred).toBeGreaterThan(3 * 72)
   })
 })
 

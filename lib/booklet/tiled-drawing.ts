@@ -5,13 +5,13 @@
  * neighbour, a page map of all tiles, and the test squares.
  */
 import type { jsPDF } from 'jspdf'
-import type { Point, Polygon } from '@/geometry'
+import type { Point, Polygon, Segment } from '@/geometry'
 import { POINTS_PER_INCH } from '@/lib/units'
 import { drawHeader, drawTestSquares, font, HEADER_HEIGHT_PT, TEST_BAND_HEIGHT_PT } from './chrome'
 import { startPage, type BookletContext } from './context'
 import { dashedPen, solidPen, toPage, trueScaleView, type View } from './draw'
 import type { PageFrame, PageRect } from './paper'
-import { layoutTiles, overlapStrips, sheetName, type Tile, type TileLayout } from './tiling'
+import { layoutTiles, overlapStrips, sheetName, type SheetSegment, type Tile, type TileLayout } from './tiling'
 
 export interface TiledDrawing {
   readonly title: string
@@ -23,6 +23,8 @@ export interface TiledDrawing {
   readonly outline: Polygon
   /** Draws the content through `view`; `window` is the page rectangle the content is clipped to. */
   readonly draw: (doc: jsPDF, view: View, window: PageRect) => void
+  /** Lines to keep out of the tiles' overlaps where a shift can (the seams), design inches. */
+  readonly keepClear?: readonly Segment[]
 }
 
 /** Space between the drawing window and the test-square band, points. */
@@ -41,13 +43,24 @@ export function drawingWindow(frame: PageFrame): PageRect {
 }
 
 /**
- * The tiles of a drawing of the given design-inch box on pages of this frame.
+ * Design-inch lines of a drawing's box on its sheet: points, origin at the box's top left, y down.
+ *
+ * @example onSheet([0, 0, 10, 10], [[[1, 10], [1, 0]]]) // [[[72, 0], [72, 720]]]
+ */
+export function onSheet(box: readonly [number, number, number, number], lines: readonly Segment[]): SheetSegment[] {
+  const at = (p: Point): [number, number] => [(p[0] - box[0]) * POINTS_PER_INCH, (box[3] - p[1]) * POINTS_PER_INCH]
+  return lines.map(([a, b]) => [at(a), at(b)] as const)
+}
+
+/**
+ * The tiles of a drawing of the given design-inch box on pages of this frame, shifted to keep the
+ * `keepClear` lines (design inches) out of the overlaps where the spare room allows.
  *
  * @example tileDrawing(frame, [0, 0, 12, 12], 36).tiles.length // 4 on Letter portrait
  */
-export function tileDrawing(frame: PageFrame, box: readonly [number, number, number, number], overlapPt: number): TileLayout {
+export function tileDrawing(frame: PageFrame, box: readonly [number, number, number, number], overlapPt: number, keepClear: readonly Segment[] = []): TileLayout {
   const window = drawingWindow(frame)
-  return layoutTiles((box[2] - box[0]) * POINTS_PER_INCH, (box[3] - box[1]) * POINTS_PER_INCH, window, overlapPt)
+  return layoutTiles((box[2] - box[0]) * POINTS_PER_INCH, (box[3] - box[1]) * POINTS_PER_INCH, window, overlapPt, onSheet(box, keepClear))
 }
 
 /**
@@ -67,7 +80,7 @@ export function tileView(box: readonly [number, number, number, number], tile: T
 export function writeTiledDrawing(context: BookletContext, drawing: TiledDrawing): TileLayout {
   const { doc, frame } = context
   const overlapPt = context.model.options.overlapInches * POINTS_PER_INCH
-  const layout = tileDrawing(frame, drawing.box, overlapPt)
+  const layout = tileDrawing(frame, drawing.box, overlapPt, drawing.keepClear)
   const window = drawingWindow(frame)
   for (const tile of layout.tiles) {
     const page = startPage(context)

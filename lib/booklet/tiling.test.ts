@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { layoutTiles, overlapStrips, sheetName, tileLabel } from './tiling'
+import { layoutTiles, overlapStrips, seamLengthInOverlaps, sheetName, tileLabel, type SheetSegment } from './tiling'
 
 describe('tile layout', () => {
   it('names tiles so no name can be read as an area label (capital letters then digits)', () => {
@@ -31,5 +31,30 @@ describe('tile layout', () => {
     expect(a1.window.x + a1.window.width - a2.window.x).toBeCloseTo(36, 9)
     expect(a1.window.y + a1.window.height - b1.window.y).toBeCloseTo(36, 9)
     expect(overlapStrips(layout, a1).map((strip) => strip.neighbour)).toEqual(['sheet 2', 'sheet 3'])
+  })
+
+  it('shifts the tiles within their spare room to keep a seam out of an overlap, on as many pages', () => {
+    // 2 columns of 540 pt stepping 504 pt cover 2 × 504 + 36 = 1044 pt: 44 pt spare on a 1000 pt sheet.
+    // Centred, the overlap strip runs from −22 + 504 = 482 pt to 518 pt: a seam along x = 485 lies in it
+    // (within the first row: rows step 664 pt from −32 pt, so the row overlap starts at 632 pt).
+    const seam: SheetSegment = [[485, 50], [485, 550]]
+    const centred = layoutTiles(1000, 1300, { width: 540, height: 700 }, 36)
+    expect(centred.tiles[1]!.window.x).toBe(482)
+    expect(seamLengthInOverlaps(centred, [seam])).toBe(500)
+    const shifted = layoutTiles(1000, 1300, { width: 540, height: 700 }, 36, [seam])
+    expect(seamLengthInOverlaps(shifted, [seam])).toBe(0)
+    expect(shifted.tiles).toHaveLength(centred.tiles.length)
+    // Still covers the sheet, and neighbours still share exactly the overlap.
+    const [first, second] = [shifted.tiles[0]!.window, shifted.tiles[1]!.window]
+    expect(first.x).toBeLessThanOrEqual(0)
+    expect(second.x + second.width).toBeGreaterThanOrEqual(1000)
+    expect(first.x + first.width - second.x).toBeCloseTo(36, 9)
+    // The seam is clear of the strip and of its 4 pt margin where the targets' crosses reach.
+    expect(second.x - 4 > 485 || first.x + first.width + 4 < 485).toBe(true)
+  })
+
+  it('stays centred when no shift helps, and on one page', () => {
+    expect(layoutTiles(1000, 1300, { width: 540, height: 700 }, 36, [[[0, 650], [1000, 650]]]).tiles[0]!.window.x).toBe(-22)
+    expect(layoutTiles(100, 200, { width: 500, height: 600 }, 36, [[[50, 0], [50, 200]]]).tiles[0]!.window.x).toBe(-200)
   })
 })
