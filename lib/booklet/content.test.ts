@@ -70,6 +70,11 @@ describe('booklet text', () => {
     const text = await textOf(buildBooklet(designFrom(wreathFile()), { paper: 'letter', parts: ['steps'] }))
     expect(text).toMatch(/Join A and B along their shared seam/)
     expect(text).toMatch(/leaf 1 of A2 on section A \(layers bottom first: leaf-dark 1 3\/4 × 7\/8 in, leaf-light 1 5\/8 × 3\/4 in turned 10° counter-clockwise\): lay it on the fabric side over A2/)
+    // The band seam runs (7, 0) to (0, 7), 7√2 = 9.899 in, between A2's two corners on the foundation's
+    // side edges; the leaf at 0.3 of it: 0.3 × 9.899 = 2.97 → 3 in from one end, 0.7 × 9.899 = 6.93 → 6 7/8 in
+    // from the other. Section B's areas lie beyond the paper's edge, so they do not name the ends.
+    expect(text).toMatch(/over A2, the middle of its open end 3 in from one end of the line and 6 7\/8 in from the other \(both ends at the edge of the foundation\), tip into A2, square to the line \(toward the centre\)/)
+    expect(text).not.toMatch(/corner of B/)
     const order = ['Stem ring', 'Curling stems', 'quilt it', 'Berries', 'Bind the curved edge'].map((words) => text.indexOf(words))
     expect(order.every((at) => at >= 0)).toBe(true)
     expect([...order].sort((a, b) => a - b)).toEqual(order)

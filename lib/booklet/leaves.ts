@@ -47,7 +47,11 @@ export function leafBatches(model: BookletModel): LeafBatch[] {
       batches.set(key, batch)
     }
   }
-  return [...batches.values()].map((batch) => ({ ...batch, pieces: PIECES_PER_FOLDED_LEAF * batch.folded }))
+  // Grouped by fabric (in first-seen order), larger leaves first within a fabric.
+  const fabrics = [...new Set([...batches.values()].map((batch) => batch.fabric))]
+  return [...batches.values()]
+    .sort((a, b) => fabrics.indexOf(a.fabric) - fabrics.indexOf(b.fabric) || b.lengthIn - a.lengthIn || b.widthIn - a.widthIn)
+    .map((batch) => ({ ...batch, pieces: PIECES_PER_FOLDED_LEAF * batch.folded }))
 }
 
 /**
@@ -84,8 +88,14 @@ function distanceToSegment(p: Point, [a, b]: Segment): number {
   return distance(p, [a[0] + t * dx, a[1] + t * dy])
 }
 
-/** How the maker finds a seam end: on the ring's edges, or by the areas meeting there. */
-function endName(model: BookletModel, end: Point, skip: readonly (string | null)[]): string {
+/** End names a maker finds less readily on the foundation in hand; an end with another name is preferred. */
+const VAGUE_END_NAMES = new Set(['the edge of the foundation', 'the straight side edge'])
+
+/**
+ * How the maker finds a seam end on the foundation in hand: on the ring's edges, by the areas of
+ * the same section meeting there, or else at the foundation's edge.
+ */
+function endName(model: BookletModel, end: Point, section: string | null, skip: readonly (string | null)[]): string {
   const { ring } = model.design
   const radius = Math.hypot(end[0], end[1])
   if (radius < ON_EDGE_INCHES) return 'the centre point'
@@ -94,11 +104,11 @@ function endName(model: BookletModel, end: Point, skip: readonly (string | null)
   const touching = model.labelledAreas
     .filter((area) => !skip.includes(area.label))
     .filter((area) => area.polygon.some((p, i) => distanceToSegment(end, [p, area.polygon[(i + 1) % area.polygon.length]!]) < ON_EDGE_INCHES))
-    .map((area) => area.label!)
-    .sort()
-  if (touching.length === 1) return `the corner of ${touching[0]}`
-  if (touching.length > 1) return `where ${touching.slice(0, -1).join(', ')} and ${touching[touching.length - 1]} meet`
-  return 'the straight side edge'
+  const here = touching.filter((area) => area.section === section).map((area) => area.label!).sort()
+  if (here.length === 1) return `the corner of ${here[0]}`
+  if (here.length > 1) return `where ${here.slice(0, -1).join(', ')} and ${here[here.length - 1]} meet`
+  // Another section's areas lie beyond the paper's edge: the maker sees only that edge.
+  return touching.length > 0 ? 'the edge of the foundation' : 'the straight side edge'
 }
 
 /** Where a leaf sits, in the maker's words, and the facts behind them (for tests). */
@@ -128,9 +138,10 @@ export function leafPlace(model: BookletModel, leaf: Leaf, line: Segment, over: 
   const seam = model.design.seams.find((s) => s.id === leaf.seam)
   const { base, normal } = seam ? leafBaseOnSeam(leaf, seam) : { base: line[0], normal: [0, 1] as Point }
   const skip = [over?.label ?? null, catcher?.label ?? null]
-  const ends = line.map((end) => ({ end, name: endName(model, end, skip), distanceIn: distance(base, end) }))
+  const section = over?.section ?? catcher?.section ?? null
+  const ends = line.map((end) => ({ end, name: endName(model, end, section, skip), distanceIn: distance(base, end) }))
   const [first, second] = ends as [(typeof ends)[0], (typeof ends)[0]]
-  const unclear = (name: string) => name === 'the straight side edge'
+  const unclear = (name: string) => VAGUE_END_NAMES.has(name)
   let chosen = first.distanceIn <= second.distanceIn ? first : second
   if (unclear(chosen.name) && !unclear((chosen === first ? second : first).name)) chosen = chosen === first ? second : first
   const other = chosen === first ? second : first
