@@ -77,6 +77,15 @@ describe('a designer drafts a ring on the board', () => {
     expect(leaves[0]).toMatchObject({ seam: 's2', side: 'right' })
     await expect.poll(planStatus).toBe('Sewable: 4 areas in 1 section.')
 
+    // A second layer on top, turned and sized in the inspector so the layer beneath shows.
+    await page.getByRole('button', { name: 'Add a layer on top' }).click()
+    await expect.poll(async () => (await boardDesign(page)).leaves[0]?.layers.length).toBe(2)
+    for (const [id, value] of [['#leaf-layer-1-turn', -15], ['#leaf-layer-1-size', 80]] as const) {
+      await page.locator(id).fill(String(value))
+      await page.locator(id).press('Enter')
+    }
+    await expect.poll(async () => (await boardDesign(page)).leaves[0]?.layerOffsets).toEqual([{}, { turn: -15, scale: 0.8 }])
+
     // Fill two areas: the centre with the background, the band with a new fabric.
     await page.getByRole('button', { name: 'Fill with background' }).click()
     await clickAt(page, [2, 1])
