@@ -7,7 +7,7 @@
  * scale and that is not listed there as unitless.
  */
 
-type XY = readonly [number, number]
+import type { Point } from './types'
 
 /**
  * The fields of a design that hold lengths, as both the design file and the core's `Design`
@@ -16,13 +16,13 @@ type XY = readonly [number, number]
  */
 export interface DesignLengths {
   readonly ring: { readonly innerRadius: number; readonly outerRadius: number }
-  readonly seams: readonly { readonly from: XY; readonly to: XY }[]
-  readonly fills?: readonly { readonly at: XY }[]
+  readonly seams: readonly { readonly from: Point; readonly to: Point }[]
+  readonly fills?: readonly { readonly at: Point }[]
   readonly leaves?: readonly { readonly length: number; readonly width: number }[]
   readonly stems?: readonly { readonly radius: number; readonly finishedWidth: number }[]
-  readonly berries?: readonly { readonly at: XY; readonly finishedDiameter: number }[]
-  readonly curls?: readonly { readonly points: readonly XY[] }[]
-  readonly order?: { readonly sections: readonly { readonly areas: readonly XY[] }[] } | null
+  readonly berries?: readonly { readonly at: Point; readonly finishedDiameter: number }[]
+  readonly curls?: readonly { readonly points: readonly Point[] }[]
+  readonly order?: { readonly sections: readonly { readonly areas: readonly Point[] }[] } | null
   /** The binding strip's cut width (issue 9, item 8), when the design has one. */
   readonly binding?: { readonly cutWidth?: number } | null
 }
@@ -36,7 +36,7 @@ export interface DesignLengths {
  */
 export function scaleDesignLengths<T extends DesignLengths>(design: T, factor: number, round: (value: number) => number = (value) => value): T {
   const length = (value: number) => round(value * factor)
-  const point = (p: XY): [number, number] => [length(p[0]), length(p[1])]
+  const point = (p: Point): [number, number] => [length(p[0]), length(p[1])]
   const scaled: DesignLengths = {
     ...design,
     ring: { ...design.ring, innerRadius: length(design.ring.innerRadius), outerRadius: length(design.ring.outerRadius) },

@@ -1,20 +1,14 @@
 /**
  * The core's shared vocabulary. Every length is in inches, every point is in repeat 0's frame
- * (origin at the ring's centre, x right, y up) unless its type says otherwise.
+ * (origin at the ring's centre, x right, y up) unless its documentation says otherwise. Lengths
+ * and angles are plain numbers: their unit is in their name (`seamAllowanceInches`, `widthIn`) or
+ * their doc comment, not in a brand no caller used.
  */
 
-declare const inchesBrand: unique symbol
-declare const radiansBrand: unique symbol
-
-/** A length in inches. Centimetre designs are converted once, at the edge (the design schema). */
-export type Inches = number & { readonly [inchesBrand]: true }
-/** An angle in radians, counter-clockwise from +x. */
-export type Radians = number & { readonly [radiansBrand]: true }
-
-export const inches = (value: number): Inches => value as Inches
-export const radians = (value: number): Radians => value as Radians
-
-/** A point in repeat 0's frame, in inches. */
+/**
+ * The one point type of the code base: (x, y) in repeat 0's frame, in inches inside the core;
+ * the drafting board (lib/board) uses it for the design's own units, the booklet for page points.
+ */
 export type Point = readonly [x: number, y: number]
 /** A straight segment from one point to another. */
 export type Segment = readonly [from: Point, to: Point]
@@ -135,9 +129,25 @@ export interface Design {
 
 export type ProblemSeverity = 'error' | 'warning'
 
+/**
+ * Every problem code the plan can report, exactly the list in geometry/README.md
+ * (`problem-codes.test.ts` checks the two agree). Errors first, then the six warnings.
+ */
+export const PROBLEM_CODES = [
+  'dangling-seam-end', 'seam-outside', 'overlapping-seams', 'zero-length-seam', 'floating-seams',
+  'set-in-seam', 'bent-seam', 'seam-cycle', 'insert-not-caught', 'impossible-leaf',
+  'order-point-outside', 'order-area-repeated', 'order-area-missing', 'order-no-assembly',
+  'step-no-seam', 'step-two-lines', 'step-broken-line', 'insert-order',
+  'join-not-straight', 'join-unknown-section', 'join-repeated-section', 'join-missing-section',
+  'search-gave-up',
+  'small-area', 'sharp-angle', 'odd-wedge-centre', 'insert-conflict', 'search-limit', 'rough-cut-failed',
+] as const
+
+export type ProblemCode = (typeof PROBLEM_CODES)[number]
+
 /** An unsewable or doubtful place in a design: a result, never an exception. */
 export interface Problem {
-  readonly code: string
+  readonly code: ProblemCode
   readonly severity: ProblemSeverity
   /** Plain words a designer understands, naming the place. */
   readonly message: string

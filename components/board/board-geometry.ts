@@ -2,12 +2,13 @@
  * Shapes of the board in design units, computed from the design and its plan for drawing:
  * repeat 0 and every other repeat of the ring, leaves as they lie, fabric colours per area.
  */
-import { applyTransform, repeatTransforms, type AffineTransform } from '@/geometry'
+import { applyTransform, repeatTransforms, type AffineTransform, type Point } from '@/geometry'
 import { tryPlaceLeafLayers } from '@/geometry/leaf-template'
 import type { BoardPlan } from '@/lib/board/board-plan'
 import type { BoardDesign } from '@/lib/board/commands'
 
-export type Point = readonly [number, number]
+/** The one point type (geometry/types.ts), re-exported for the canvas components. */
+export type { Point }
 
 export interface AreaShape {
   readonly id: string

@@ -2,7 +2,7 @@
 
 import { useMemo } from 'react'
 import { Circle, Label, Line, Rect, Tag, Text } from 'react-konva'
-import { smoothCurve } from '@/geometry'
+import { sectionLetter, smoothCurve } from '@/geometry'
 import type { BoardPlan } from '@/lib/board/board-plan'
 import type { BoardDesign } from '@/lib/board/commands'
 import { formatSize } from '@/lib/units'
@@ -107,7 +107,7 @@ export function OverlayShapes({ store, design, plan, view, width }: { store: Boa
         section.map((point, index) => {
           const [x, y] = toScreen(point, view, repeats)
           return (
-            <Text key={`${s}-${index}`} x={x - 20} y={y + 10} width={40} align="center" text={`${String.fromCharCode(65 + s)}${index + 1}?`} fontSize={13} fill="#a3392b" fontStyle="bold" />
+            <Text key={`${s}-${index}`} x={x - 20} y={y + 10} width={40} align="center" text={`${sectionLetter(s)}${index + 1}?`} fontSize={13} fill="#a3392b" fontStyle="bold" />
           )
         }),
       )}

@@ -4,7 +4,7 @@ import { useDeferredValue, useMemo } from 'react'
 import { boardPlan } from '@/lib/board/board-plan'
 import { formatSize } from '@/lib/units'
 import { design as designOf, type BoardStore } from '@/lib/board/store'
-import type { JoinTree } from '@/geometry'
+import { sectionLetter, type JoinTree } from '@/geometry'
 import { useBoard } from './use-board'
 
 const small = 'rounded border border-stone-300 bg-white px-2 py-1 text-xs hover:bg-linen-100 disabled:opacity-40'
@@ -45,7 +45,7 @@ export function PlanPanel({ store }: { store: BoardStore }) {
     const sections = (handOrder ?? []).filter((section) => section.length > 0)
     if (sections.length === 0) return
     store.run('setHandOrder', {
-      sections: sections.map((areas, index) => ({ label: String.fromCharCode(65 + index), areas: areas.map((p) => [p[0], p[1]] as [number, number]) })),
+      sections: sections.map((areas, index) => ({ label: sectionLetter(index), areas: areas.map((p) => [p[0], p[1]] as [number, number]) })),
       assembly: null,
     })
     store.endHandOrder()

@@ -4,12 +4,10 @@
  * outlines) to the design's own units once, here, so no component converts on its own. Computed
  * from the design; it is never a state of its own and never undone.
  */
-import { fabricsOfAreas, planDesign, roughCutBeforeFlip, sectionOutline, type Plan, type PlanArea, type Problem } from '@/geometry'
+import { fabricsOfAreas, isPointInPolygon, planDesign, roughCutBeforeFlip, sectionOutline, type Plan, type PlanArea, type Point, type Problem } from '@/geometry'
 import { parseDesign, type DesignIssue } from '@/lib/schemas/design'
 import { unitsPerInch } from '@/lib/units'
 import type { BoardDesign } from './commands'
-
-type Point = readonly [number, number]
 
 /** An area of the plan as the board draws it: every point in design units. */
 export interface BoardArea {
@@ -84,17 +82,7 @@ function inDesignUnits(plan: Plan, fillsInInches: Parameters<typeof fabricsOfAre
 
 /** The area of the plan that contains a point (design units), if any. */
 export function areaAt(result: BoardPlan, point: Point): BoardArea | null {
-  return result.areas.find((area) => isInside(point, area.polygon)) ?? null
-}
-
-function isInside(point: Point, polygon: readonly Point[]): boolean {
-  let inside = false
-  for (let i = 0, j = polygon.length - 1; i < polygon.length; j = i++) {
-    const [xi, yi] = polygon[i]!
-    const [xj, yj] = polygon[j]!
-    if (yi > point[1] !== yj > point[1] && point[0] < ((xj - xi) * (point[1] - yi)) / (yj - yi) + xi) inside = !inside
-  }
-  return inside
+  return result.areas.find((area) => isPointInPolygon(point, area.polygon)) ?? null
 }
 
 export interface SectionOutline {

@@ -5,10 +5,10 @@
  */
 import { scaleDesignLengths } from '@/geometry/design-lengths'
 import { LAYER_SCALE_RANGE, LAYER_TURN_LIMIT_DEGREES } from '@/geometry/leaf-template'
+import type { Point } from '@/geometry'
 import type { DesignFile } from '@/lib/schemas/design'
 import { unitsPerInch } from '@/lib/units'
 
-type Point = [number, number]
 type Seam = DesignFile['seams'][number]
 type Leaf = NonNullable<DesignFile['leaves']>[number]
 type LayerOffset = NonNullable<Leaf['layerOffsets']>[number]
@@ -60,7 +60,7 @@ export function nextId(prefix: string, taken: readonly { id: string }[]): string
 }
 
 const round = (value: number) => Math.round(value * 10_000) / 10_000
-const roundPoint = (p: readonly [number, number]): Point => [round(p[0]), round(p[1])]
+const roundPoint = (p: Point): [number, number] => [round(p[0]), round(p[1])]
 const samePoint = (a: readonly number[], b: readonly number[]) => a[0] === b[0] && a[1] === b[1]
 
 /**

@@ -2,11 +2,10 @@
  * What lies under the pointer on the board, found in the ring's frame (inches) rather than by the
  * canvas, so the same answer serves the mouse, the keyboard and the tests.
  */
+import { isPointInPolygon, type Point } from '@/geometry'
 import { tryPlaceLeafLayers } from '@/geometry/leaf-template'
 import { sampleSmoothCurve, smoothCurve } from '@/geometry/smooth-curve'
 import type { BoardDesign } from './commands'
-
-export type Point = readonly [number, number]
 
 export type Hit =
   | { readonly kind: 'seam-end'; readonly seamId: string; readonly end: 'from' | 'to' }
@@ -29,16 +28,6 @@ export function projectOntoSeam(p: Point, a: Point, b: Point) {
   return { distance: distance(p, closest), fraction: t, side: cross >= 0 ? ('left' as const) : ('right' as const) }
 }
 
-export function isInsidePolygon(point: Point, polygon: readonly Point[]): boolean {
-  let inside = false
-  for (let i = 0, j = polygon.length - 1; i < polygon.length; j = i++) {
-    const [xi, yi] = polygon[i]!
-    const [xj, yj] = polygon[j]!
-    if (yi > point[1] !== yj > point[1] && point[0] < ((xj - xi) * (point[1] - yi)) / (yj - yi) + xi) inside = !inside
-  }
-  return inside
-}
-
 /**
  * The thing under a point of the design (in the design's units), preferring small handles to
  * large shapes: seam ends, then leaves and berries, then seams and curls.
@@ -59,7 +48,7 @@ export function hitTest(design: BoardDesign, point: Point, tolerance: number): H
     // A leaf too wide for its length has no outline to hit (the plan reports it).
     // Any layer of the stack picks the leaf: a turned layer can reach past the bottom one.
     const placed = tryPlaceLeafLayers({ ...leaf, angle: leaf.angle ?? 0 }, seam)
-    if (placed.ok && placed.layers.some((layer) => isInsidePolygon(point, layer.placement.finishedOutline))) return { kind: 'leaf', leafId: leaf.id }
+    if (placed.ok && placed.layers.some((layer) => isPointInPolygon(point, layer.placement.finishedOutline))) return { kind: 'leaf', leafId: leaf.id }
   }
   for (let index = design.berries.length - 1; index >= 0; index -= 1) {
     const berry = design.berries[index]!

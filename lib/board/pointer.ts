@@ -5,7 +5,8 @@
 import { unitsPerInch } from '@/lib/units'
 import { areaAt, boardPlan } from './board-plan'
 import { hitTest, projectOntoSeam } from './hit-test'
-import { snapSeamEnd, type Point } from './snapping'
+import type { Point } from '@/geometry'
+import { snapSeamEnd } from './snapping'
 import { design, EMPTY_DRAFT, type BoardStore } from './store'
 
 export interface PointerModifiers {

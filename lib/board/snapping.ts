@@ -3,11 +3,10 @@
  * on the outline or another seam, along a 15° direction from the seam's other end, or on the
  * grid — in that order of preference. All in design units (the file's inches or centimetres).
  */
+import type { Point } from '@/geometry'
 import { ANGLE_NOISE_RADIANS } from '@/geometry/tolerances'
 import type { BoardDesign } from './commands'
 import type { Snapping } from './store'
-
-export type Point = readonly [number, number]
 
 export type SnapKind = 'point' | 'outline' | 'seam' | 'angle' | 'grid' | 'none'
 

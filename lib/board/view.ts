@@ -3,10 +3,8 @@
  * On the printed side the ring is drawn mirrored across repeat 0's bisector, as the paper shows it;
  * labels are placed at the mirrored points but never drawn as mirrored text.
  */
-import { applyTransform, printedSideTransform } from '@/geometry'
+import { applyTransform, printedSideTransform, type Point } from '@/geometry'
 import type { View } from './store'
-
-export type Point = readonly [number, number]
 
 /** Fewest and most pixels per inch the board zooms to. */
 export const MIN_ZOOM = 2
