@@ -34,9 +34,9 @@ const labelledSize = (inches: number): number => Math.max(LABEL_STEP_INCHES, Mat
 function leafTemplates(context: BookletContext): Template[] {
   const { design } = context.model
   const sizes = new Map<string, { length: number; width: number; fabrics: Set<string>; count: number }>()
-  // Each stacked layer is a folded leaf of its own size (its scale of the leaf's): one template per size.
+  // Each stacked layer is a folded leaf of its own size (its scale of the leaf's): one template per
+  // size. An impossible leaf is an error of the plan and gets no template.
   for (const layer of design.leaves.flatMap((leaf) => (leafShapeProblem(leaf.length, leaf.width) ? [] : leafLayers(leaf)))) {
-    // (An impossible leaf is an error of the plan; it gets no template.)
     let length = labelledSize(layer.length)
     let width = labelledSize(layer.width)
     // A leaf so near half a disc that rounding would blunt it keeps its exact size (and label).
