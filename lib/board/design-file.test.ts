@@ -46,6 +46,13 @@ describe('exporting the design file', () => {
     const original = design()
     expect(importDesignFile(exportDesignFile(original).text)).toEqual({ ok: true, design: original })
   })
+
+  it('writes layer offsets only for a leaf that has them, and reads them back', () => {
+    // Layers on the default fan are written as before offsets existed: plain fabric roles.
+    expect(exportDesignFile(design()).text).not.toContain('layerOffsets')
+    const offsets = design({ leaves: [{ id: 'l1', seam: 's1', at: 0.5, side: 'left', angle: 0, length: 1.5, width: 0.75, layers: ['leaf-dark', 'leaf-light'], layerOffsets: [{}, { turn: 12, scale: 0.8 }] }] })
+    expect(importDesignFile(exportDesignFile(offsets).text)).toEqual({ ok: true, design: offsets })
+  })
 })
 
 describe('importing a design file', () => {
