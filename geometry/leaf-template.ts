@@ -73,7 +73,7 @@ const inchesInWords = (value: number): string => `${Number(value.toFixed(3))} in
  * exception: the plan reports the reason as an `impossible-leaf` problem, the board and the
  * booklet simply leave such a leaf out.
  *
- * @example leafShapeProblem(0.5, 3) // 'it is 3 in wide but only 0.5 in long, and … longer than 1.5 in or narrower than 1 in.'
+ * @example leafShapeProblem(0.5, 3)?.startsWith('it is 3 in wide but only 0.5 in long, and a pointed leaf') // true
  * @example leafShapeProblem(1.5, 0.75) // null
  */
 export function leafShapeProblem(length: number, width: number): string | null {

@@ -20,6 +20,12 @@ describe('hitTest', () => {
     expect(hitTest(design, [3.1, 3.1], 0.1)).toEqual({ kind: 'leaf', leafId: 'l1' })
   })
 
+  it('passes over a leaf too wide for its length instead of throwing (the plan reports it)', () => {
+    // 0.5 in long, 3 in wide: no pointed leaf (length must exceed half the width); the seam is hit
+    const stubby = normalizeDesign({ ...design, leaves: [{ ...design.leaves[0]!, length: 0.5, width: 3 }] })
+    expect(hitTest(stubby, [3.5, 3.5], 0.1)).toMatchObject({ kind: 'seam', seamId: 's1' })
+  })
+
   it('finds a seam with the fraction along it and the side of the pointer', () => {
     // Along (7,0)→(0,7): ((5.3 − 7)·(−7) + 1.9·7) / 98 = 25.2 / 98 = 0.257 of the way.
     const hit = hitTest(design, [5.3, 1.9], 0.2)
