@@ -60,7 +60,7 @@ describe('seam ends near the arcs snap onto the true arcs', () => {
       ),
       { numRuns: 200 },
     )
-  })
+  }, 30_000)
 
   it('makes an end snapped onto an arc a corner of the outline, so areas meet it exactly', () => {
     const arrangement = buildArrangement(annulus, [radialSeam(17.2, 0.009, 0.009)])
