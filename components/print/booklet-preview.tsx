@@ -134,7 +134,7 @@ function useThumbnails(booklet: BuiltBooklet | null): Thumbnails {
 function progressOf(state: PreviewState, thumbnails: Thumbnails): { text: string; value?: number; max?: number; show: boolean } {
   if (state.kind === 'waiting') return { text: '', show: false }
   if (state.kind === 'error') return { text: state.message, show: false }
-  if (state.kind === 'building') return { text: state.slow ? 'Building the booklet…' : '', show: state.slow }
+  if (state.kind === 'building') return { text: state.slow ? `Building the booklet: page ${state.page}…` : '', show: state.slow }
   const total = state.booklet.pages.length
   if (thumbnails.failure) return { text: thumbnails.failure, show: false }
   if (thumbnails.drawn < total) {
@@ -156,7 +156,7 @@ export function BookletPreview({ state, current }: { state: PreviewState; curren
   const frame = booklet ? pageFrame(booklet.options) : null
 
   return (
-    <section aria-labelledby="print-preview-heading" className="min-w-0 space-y-3" data-testid="print-preview" data-booklet-bytes={booklet?.bytes.length}>
+    <section aria-labelledby="print-preview-heading" className="min-w-0 space-y-3" data-testid="print-preview" data-booklet-bytes={booklet?.bytes.length} data-built-in={booklet?.builtIn}>
       <h3 id="print-preview-heading" className="text-base font-semibold">
         Preview{summary ? `: ${summary.headline}` : ''}
       </h3>
@@ -172,7 +172,7 @@ export function BookletPreview({ state, current }: { state: PreviewState; curren
         <div className={`space-y-2 text-sm ${current ? '' : 'opacity-60'}`} data-testid="print-summary">
           <p>
             <span data-testid="print-page-count">{summary.headline}</span> in all
-            {summary.parts.length > 0 && `: ${summary.parts.map((part) => `${part.title.toLowerCase()} ${part.pages}`).join(', ')}.`}
+            {summary.parts.length > 0 && `: ${summary.parts.map((part) => `${part.title.toLowerCase()} ${part.pages}`).join('; ')}.`}
           </p>
           {summary.foundations.length > 0 && (
             <ul className="list-disc pl-5" aria-label="Tiles per foundation" data-testid="print-tiling">

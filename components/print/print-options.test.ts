@@ -65,7 +65,7 @@ describe('the print preview summary', () => {
   })
 
   it('labels a thumbnail with its page number and what it shows', () => {
-    expect(thumbnailAlt({ number: 3, description: 'foundation A, sheet 2 of 4 (tile A2)' })).toBe('page 3: foundation A, sheet 2 of 4 (tile A2)')
+    expect(thumbnailAlt({ number: 3, description: 'foundation A, sheet 2 of 4 (row 1, column 2)' })).toBe('page 3: foundation A, sheet 2 of 4 (row 1, column 2)')
   })
 
   it('follows the form: the summary counts the pages of the PDF built from it, and larger paper needs fewer foundation pages', async () => {

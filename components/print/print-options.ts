@@ -107,7 +107,7 @@ export function bookletSummary(booklet: { pages: readonly BookletPage[]; tilings
 /**
  * A thumbnail's alternative text.
  *
- * @example thumbnailAlt({ number: 3, part: 'foundations', description: 'foundation A, sheet 2 of 4 (tile A2)' }) // 'page 3: foundation A, sheet 2 of 4 (tile A2)'
+ * @example thumbnailAlt({ number: 3, description: 'foundation A, sheet 2 of 4 (row 1, column 2)' }) // 'page 3: foundation A, sheet 2 of 4 (row 1, column 2)'
  */
 export function thumbnailAlt(page: Pick<BookletPage, 'number' | 'description'>): string {
   return `page ${page.number}: ${page.description}`

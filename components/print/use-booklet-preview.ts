@@ -1,14 +1,15 @@
 'use client'
 
 /**
- * The booklet behind the print room's preview: rebuilt a moment after the options stop changing,
- * a stale build dropped when the options change again, and the bytes kept so the download is
- * exactly what the thumbnails show.
+ * The booklet behind the print room's preview: rebuilt in a Web Worker a moment after the options
+ * stop changing, a build under way stopped when the options change again, and the bytes kept so
+ * the download is exactly what the thumbnails show.
  */
 import { useEffect, useRef, useState } from 'react'
 import type { BookletPage, FoundationTiling } from '@/lib/booklet/page-list'
 import type { BookletOptions } from '@/lib/schemas/booklet'
 import type { Design } from '@/geometry'
+import { BuildCancelled, createBookletBuilder } from './booklet-builder'
 
 /** Wait this long after the last change before building (typing a diameter is several changes). */
 export const PREVIEW_DEBOUNCE_MS = 300
@@ -22,12 +23,22 @@ export interface BuiltBooklet {
   readonly bytes: Uint8Array
   readonly pages: readonly BookletPage[]
   readonly tilings: readonly FoundationTiling[]
+  /** Where it was built: in the worker, or on the main thread where no worker could start. */
+  readonly builtIn: 'worker' | 'main thread'
 }
 
 export type PreviewState =
   | { readonly kind: 'waiting' }
   /** `previous`: the last booklet built, still shown (dimmed) while the next one is made. */
-  | { readonly kind: 'building'; readonly key: string; readonly slow: boolean; readonly previous: BuiltBooklet | null }
+  | {
+    readonly kind: 'building'
+    readonly key: string
+    /** True once building has taken longer than a moment. */
+    readonly slow: boolean
+    /** The page being written, from 1. */
+    readonly page: number
+    readonly previous: BuiltBooklet | null
+  }
   | { readonly kind: 'built'; readonly booklet: BuiltBooklet }
   | { readonly kind: 'error'; readonly message: string }
 
@@ -35,9 +46,6 @@ export type PreviewState =
 export function optionsKey(options: BookletOptions): string {
   return JSON.stringify(options)
 }
-
-/** Lets the browser paint before a long synchronous step. */
-const nextFrame = (): Promise<void> => new Promise((resolve) => setTimeout(resolve, 0))
 
 /**
  * Builds the booklet for the current options, debounced; `options` null (invalid form) or an
@@ -50,6 +58,11 @@ export function useBookletPreview(design: Design | null, options: BookletOptions
   const key = options ? optionsKey(options) : null
   // The latest request; a build that finishes after another was asked for is thrown away.
   const latest = useRef(0)
+  const builder = useRef<ReturnType<typeof createBookletBuilder> | null>(null)
+  useEffect(() => () => {
+    builder.current?.dispose()
+    builder.current = null
+  }, [])
 
   useEffect(() => {
     // Any change makes a build under way stale, even one to options that cannot be built.
@@ -58,19 +71,23 @@ export function useBookletPreview(design: Design | null, options: BookletOptions
     let slowTimer: ReturnType<typeof setTimeout> | undefined
     const build = async (): Promise<void> => {
       if (request !== latest.current) return
-      setState((current) => ({ kind: 'building', key, slow: false, previous: current.kind === 'built' ? current.booklet : current.kind === 'building' ? current.previous : null }))
+      setState((current) => ({
+        kind: 'building', key, slow: false, page: 1,
+        previous: current.kind === 'built' ? current.booklet : current.kind === 'building' ? current.previous : null,
+      }))
       slowTimer = setTimeout(() => {
         if (request === latest.current) setState((current) => (current.kind === 'building' ? { ...current, slow: true } : current))
       }, PROGRESS_DELAY_MS)
+      const onPage = (page: number): void => {
+        if (request === latest.current) setState((current) => (current.kind === 'building' && current.key === key ? { ...current, page } : current))
+      }
       try {
-        const { buildBookletFile } = await import('@/lib/booklet/booklet')
-        await nextFrame()
+        builder.current ??= createBookletBuilder()
+        const file = await builder.current.build(design, options, onPage)
         if (request !== latest.current) return
-        const file = buildBookletFile(design, options)
-        if (request !== latest.current) return
-        setState({ kind: 'built', booklet: { key, options, bytes: file.bytes, pages: file.pages, tilings: file.tilings } })
+        setState({ kind: 'built', booklet: { key, options, bytes: file.bytes, pages: file.pages, tilings: file.tilings, builtIn: file.builtIn } })
       } catch (error) {
-        if (request !== latest.current) return
+        if (request !== latest.current || error instanceof BuildCancelled) return
         setState({ kind: 'error', message: `The booklet could not be built: ${error instanceof Error ? error.message : String(error)}` })
       } finally {
         clearTimeout(slowTimer)
@@ -80,6 +97,8 @@ export function useBookletPreview(design: Design | null, options: BookletOptions
     return () => {
       clearTimeout(debounce)
       clearTimeout(slowTimer)
+      // The options changed: the booklet under way is stale, stop it.
+      builder.current?.cancel()
     }
   }, [key, options, problem, design])
 

@@ -31,14 +31,20 @@ export interface WrittenBooklet {
 
 /**
  * Writes the booklet into a jsPDF document (for tests that look inside; most callers want
- * `buildBooklet`). Options are parsed with the shared schema, so defaults apply.
+ * `buildBooklet`). Options are parsed with the shared schema, so defaults apply. `onPage` hears
+ * the number of each page as it is begun, for a progress display.
  *
  * @example writeBooklet(design, { paper: 'a4' }).doc.getNumberOfPages()
  */
-export function writeBooklet(design: Design, input: BookletOptionsInput): WrittenBooklet {
+export function writeBooklet(design: Design, input: BookletOptionsInput, onPage?: (page: number) => void): WrittenBooklet {
   const options = bookletOptionsSchema.parse(input)
   const model = bookletModel(design, options)
   const context = createContext(model)
+  if (onPage) {
+    // Every page after the first is added through jsPDF, which announces it before it is counted.
+    onPage(1)
+    context.doc.internal.events.subscribe('addPage', () => onPage(context.pages + 1))
+  }
   const partPages: Partial<Record<BookletPart, number>> = {}
   let foundations: { sheet: FoundationSheet; layout: TileLayout }[] = []
   const include = new Set(options.parts)
@@ -109,7 +115,7 @@ export interface BookletFile {
  *
  * @example buildBookletFile(design, { paper: 'a4' }).pages[0]?.description // 'cover, fabric and cutting list, page 1 of 2' (a cover of two pages)
  */
-export function buildBookletFile(design: Design, options: BookletOptionsInput): BookletFile {
-  const written = writeBooklet(design, options)
+export function buildBookletFile(design: Design, options: BookletOptionsInput, onPage?: (page: number) => void): BookletFile {
+  const written = writeBooklet(design, options, onPage)
   return { bytes: new Uint8Array(written.doc.output('arraybuffer')), pages: written.pages, tilings: written.tilings }
 }

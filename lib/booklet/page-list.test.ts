@@ -15,10 +15,12 @@ describe('the page list returned beside the booklet', () => {
     expect(foundationPages.length).toBeGreaterThan(written.tilings.length) // a 30 in ring tiles its foundations on Letter
     for (const page of foundationPages) {
       const header = (await pageText(pdf, page.number)).map((item) => item.text).join(' ')
-      expect(header).toContain(`Foundation ${page.foundation!.section} `)
-      // The tile name is the one the page header prints, read from the tiling rather than assumed.
-      if (page.foundation!.sheets > 1) expect(header).toContain(page.foundation!.tile)
-      expect(page.description).toBe(`foundation ${page.foundation!.section}, sheet ${page.foundation!.sheet} of ${page.foundation!.sheets} (tile ${page.foundation!.tile})`)
+      const { section, sheet, sheets, tile } = page.foundation!
+      expect(header).toContain(`Foundation ${section} `)
+      // The sheet and the tile's place are the ones the page header prints, read from the tiling.
+      if (sheets > 1) expect(header).toContain(`sheet ${sheet} of ${sheets}`)
+      if (sheets > 1) expect(header).toContain(tile)
+      expect(page.description).toBe(`foundation ${section}, sheet ${sheet} of ${sheets}${sheets > 1 ? ` (${tile})` : ''}`)
     }
     // The tilings add up to the foundation pages, each foundation's pages being rows × columns.
     expect(written.tilings.reduce((sum, tiling) => sum + tiling.pages, 0)).toBe(foundationPages.length)
@@ -41,5 +43,11 @@ describe('the page list returned beside the booklet', () => {
       '5 placement guide, page 1 of 2',
       '6 placement guide, page 2 of 2',
     ])
+  })
+
+  it('tells each page as it is begun, in order, once', () => {
+    const heard: number[] = []
+    const { pages } = buildBookletFile(wreath, { paper: 'letter' }, (page) => heard.push(page))
+    expect(heard).toEqual(pages.map((page) => page.number))
   })
 })

@@ -5,7 +5,7 @@
  */
 import { BOOKLET_PARTS, type BookletPart } from '@/lib/schemas/booklet'
 import type { FoundationKind } from './model'
-import type { TileLayout } from './tiling'
+import { sheetName, type TileLayout } from './tiling'
 
 /** Where a foundation page sits among the pages of its foundation. */
 export interface FoundationPagePlace {
@@ -15,7 +15,7 @@ export interface FoundationPagePlace {
   /** This page among the foundation's pages, from 1. */
   readonly sheet: number
   readonly sheets: number
-  /** The tile's own name as printed in the page header (from the tiling, whatever its form). */
+  /** The tile's place as the page header prints it (the tiling's label, e.g. "row 1, column 2"). */
   readonly tile: string
 }
 
@@ -24,7 +24,7 @@ export interface BookletPage {
   /** From 1, as printed at the page foot. */
   readonly number: number
   readonly part: BookletPart
-  /** Plain words for the page, e.g. "foundation A, sheet 2 of 4 (tile A2)" or "sewing steps, page 1 of 3". */
+  /** Plain words for the page, e.g. "foundation A, sheet 2 of 4 (row 1, column 2)" or "sewing steps, page 1 of 3". */
   readonly description: string
   /** Set on foundation pages only. */
   readonly foundation?: FoundationPagePlace
@@ -72,7 +72,7 @@ export function foundationName(foundation: { section: string; mirroredRepeat: bo
  *
  * @example
  * describePages({ partPages: { cover: 1, foundations: 3 }, foundations: [{ kind, layout }], pageCount: 6 })[3]
- * // { number: 4, part: 'foundations', description: 'foundation A, sheet 2 of 4 (tile A2)', foundation: { … } }
+ * // { number: 4, part: 'foundations', description: 'foundation A, sheet 2 of 4 (row 1, column 2)', foundation: { … } }
  */
 export function describePages(input: {
   readonly partPages: Partial<Record<BookletPart, number>>
@@ -103,12 +103,13 @@ function foundationPages(first: number, foundations: readonly { kind: Foundation
   let number = first
   for (const { kind, layout } of foundations) {
     const sheets = layout.tiles.length
-    layout.tiles.forEach((tile, index) => {
-      const place: FoundationPagePlace = { section: kind.section, mirroredRepeat: kind.mirroredRepeat, sheet: index + 1, sheets, tile: tile.label }
-      const tileWords = sheets > 1 ? ` (tile ${tile.label})` : ''
-      pages.push({ number, part: 'foundations', description: `${foundationName(kind)}, sheet ${index + 1} of ${sheets}${tileWords}`, foundation: place })
+    for (const tile of layout.tiles) {
+      const place: FoundationPagePlace = { section: kind.section, mirroredRepeat: kind.mirroredRepeat, sheet: tile.sheet, sheets, tile: tile.label }
+      // The page's own names, as its header prints them: "sheet 2 of 4", then the tile's place.
+      const where = sheets > 1 ? ` (${tile.label})` : ''
+      pages.push({ number, part: 'foundations', description: `${foundationName(kind)}, ${sheetName(tile.sheet, sheets)}${where}`, foundation: place })
       number += 1
-    })
+    }
   }
   return pages
 }

@@ -78,6 +78,8 @@ describe('the print room', () => {
     expect(first.thumbnails).toBeGreaterThan(1)
     expect(first.thumbnails).toBe(first.pageCount)
     expect(first.tiling.length).toBeGreaterThan(0)
+    // Built off the main thread, in the app's own worker bundle.
+    expect(await page.getByTestId('print-preview').getAttribute('data-built-in')).toBe('worker')
     await expectDrawnThumbnails(page, first.thumbnails)
     // Each thumbnail says which page it is and what it shows; foundation pages name the foundation and the sheet.
     const alts = await page.getByTestId('page-thumbnail').evaluateAll((images) => images.map((image) => image.getAttribute('alt') ?? ''))
