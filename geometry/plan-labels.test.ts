@@ -92,8 +92,14 @@ describe('labels do not depend on size, units or the order of the seam list', ()
     const at18 = planDesign(scaleDesign(parsed.design, 18))
     expect(at18.sewable).toBe(true)
     for (const diameter of [36, 20, 27, 9, 45.72]) {
+      const factor = diameter / 18
       const scaled = planDesign(scaleDesign(parsed.design, diameter))
-      for (const [label, found] of pairedLabels(at18, scaled, diameter / 18)) expect(found).toBe(label)
+      for (const [label, found] of pairedLabels(at18, scaled, factor)) expect(found).toBe(label)
+      // and each label stands at the same place, scaled (candidates equally clear on paper tie)
+      for (const area of at18.areas) {
+        const twin = scaled.areas.find((candidate) => candidate.label === area.label)!
+        expect(Math.hypot(twin.point[0] / factor - area.point[0], twin.point[1] / factor - area.point[1])).toBeLessThan(0.01)
+      }
     }
   })
 })

@@ -2,6 +2,7 @@
  * Small measurements of points, segments and simple polygons used by the arrangement and the
  * plan: signed area, centroid, containment, distances, and a point well inside an area.
  */
+import { CLEARANCE_TIE_FRACTION } from './tolerances'
 import type { Point, Polygon } from './types'
 
 /**
@@ -124,7 +125,9 @@ export function comparePoints(a: Point, b: Point): number {
 /**
  * A point well inside a simple polygon, found deterministically: the middle of the widest
  * horizontal run at a few heights (the centroid's and the quarters of the height), keeping the
- * one farthest from the boundary. Cheaper than a pole of inaccessibility and always inside.
+ * one farthest from the boundary (candidates as clear as the best, to a millionth, lose to the
+ * earlier one, so the same area at another size gets the same point, scaled). Cheaper than a
+ * pole of inaccessibility and always inside.
  *
  * @example interiorPoint([[0, 0], [4, 0], [4, 1], [0, 1]]) // [2, 0.5]
  */
@@ -150,7 +153,8 @@ export function interiorPoint(polygon: Polygon): Point {
     for (let k = 0; k + 1 < crossings.length; k += 2) {
       const candidate: Point = [((crossings[k] as number) + (crossings[k + 1] as number)) / 2, y]
       const clearance = distanceToBoundary(candidate, polygon)
-      if (clearance > bestClearance) {
+      // A tie keeps the earlier candidate: noise from the design's size must not move the point.
+      if (clearance > bestClearance * (1 + CLEARANCE_TIE_FRACTION)) {
         best = candidate
         bestClearance = clearance
       }

@@ -54,6 +54,14 @@ export const STRAIGHT_LINE_INCHES = 1e-3
  */
 export const LABEL_ORDER_DIGITS = 9
 
+/**
+ * An area's label point (`interiorPoint`) moves to a later candidate only when that one is clearer
+ * of the boundary by more than this fraction: candidates equally clear on paper (the middle of a
+ * band between two parallel seams) differ only by noise, which a change of size would reorder.
+ * Unitless (a fraction of the clearance).
+ */
+export const CLEARANCE_TIE_FRACTION = 1e-6
+
 /** Ids and fixture output round coordinates to this many decimals (a thousandth of an inch for ids). */
 export const ID_DECIMALS = 3
 /** Plan output rounds coordinates and areas to this many decimals: stable fixtures, no noise. */
