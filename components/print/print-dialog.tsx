@@ -41,7 +41,8 @@ export function PrintDialog({ name, design }: { name: string; design: DesignFile
   const [parts, setParts] = useState<BookletPart[]>([...ALL_PARTS])
   const [margin, setMargin] = useState(String(DEFAULT_MARGIN_INCHES))
   const [overlap, setOverlap] = useState(String(DEFAULT_OVERLAP_INCHES))
-  const [downloaded, setDownloaded] = useState<string | null>(null)
+  // Said beside the button until the options change.
+  const [downloaded, setDownloaded] = useState<{ key: string; text: string } | null>(null)
 
   const toggle = (part: BookletPart): void =>
     setParts((current) => (current.includes(part) ? current.filter((p) => p !== part) : [...current, part]))
@@ -63,7 +64,7 @@ export function PrintDialog({ name, design }: { name: string; design: DesignFile
     const fileName = bookletFileName(name, ready.options)
     // The very bytes the thumbnails were drawn from.
     download(ready.bytes, fileName)
-    setDownloaded(`Downloaded ${fileName} (${ready.pages.length} pages).`)
+    setDownloaded({ key: ready.key, text: `Downloaded ${fileName} (${ready.pages.length} pages).` })
   }
 
   const unit = design.units
@@ -165,7 +166,7 @@ export function PrintDialog({ name, design }: { name: string; design: DesignFile
           {ready ? `Download PDF (${ready.pages.length} page${ready.pages.length === 1 ? '' : 's'})` : 'Download PDF'}
         </button>
 
-        {downloaded && <p className="text-sm">{downloaded}</p>}
+        {downloaded && downloaded.key === ready?.key && <p className="text-sm">{downloaded.text}</p>}
       </form>
       <BookletPreview state={preview} current={ready !== null} />
     </div>
