@@ -11,7 +11,7 @@
  * join seam is basted before the join).
  */
 import { areaMembers, areaSetKey, areaSetOf, emptyAreaSet, hasArea, type AreaSet } from './area-set'
-import { boundaryOfEdges, type Topology } from './area-topology'
+import type { Topology } from './area-topology'
 import { createPeelSearch, findSectionOrder, type InsertConstraint, type PeelSearch } from './sewing-order'
 import { MAX_SECTION_UNITS } from './tolerances'
 import type { Segment } from './types'
@@ -331,13 +331,4 @@ export function fewestSections(topology: Topology, constraints: readonly InsertC
   const state: SearchState = { topology, peel: createPeelSearch(topology, constraints), exact: new Map(), atLeast: new Map(), cuts: new Map(), floor: new Map(), units: 0, gaveUp: false }
   const solved = topology.areaCount === 0 ? null : solve(state, all, Infinity)
   return { tree: solved?.tree ?? null, sectionCount: solved?.count ?? 0, gaveUp: state.gaveUp || state.peel.gaveUp }
-}
-
-/**
- * Whether the segment a join is sewn along is one straight segment (used by checks in tests).
- *
- * @example isStraightJoin(topology, [4, 5]) // true when edges 4 and 5 continue each other
- */
-export function isStraightJoin(topology: Topology, edges: readonly number[]): boolean {
-  return boundaryOfEdges(topology, edges).kind === 'segment'
 }
