@@ -5,7 +5,8 @@
  */
 import type { Point } from './types'
 
-export type Vector = readonly [number, number]
+/** A direction or a displacement: the same pair as a point (the one point type), read as an arrow. */
+export type Vector = Point
 
 /** @example add([1, 2], [3, 4]) // [4, 6] */
 export const add = (a: Vector, b: Vector): Point => [a[0] + b[0], a[1] + b[1]]
