@@ -10,12 +10,6 @@ import { bindingPlan } from './finishing'
 import { leafName, PIECES_PER_FOLDED_LEAF } from './leaves'
 import type { BookletModel } from './model'
 
-export interface CutLine {
-  readonly fabric: string
-  /** What to cut, in the maker's words: "4 × rectangle 3 1/4 × 2 1/2 in (A1)". */
-  readonly text: string
-}
-
 /** Cut allowance added around a berry circle beyond twice its diameter, inches (from memory; check in a sample). */
 export const BERRY_EXTRA_INCHES = 0.25
 /** Extra bias strip for joining the stem ring's ends, inches (common practice: a few inches). */
