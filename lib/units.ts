@@ -12,8 +12,6 @@ export const MILLIMETRES_PER_INCH = 25.4
 export const CENTIMETRES_PER_INCH = 2.54
 /** PDF points per inch, exact (ISO 32000-1:2008 §8.3.2.3, default user space). */
 export const POINTS_PER_INCH = 72
-/** Inches per yard, exact (1959 agreement). */
-export const INCHES_PER_YARD = 36
 
 /**
  * Inches to PDF points.

@@ -1,6 +1,6 @@
 'use client'
 
-import { useEffect, useState } from 'react'
+import { useState } from 'react'
 
 /**
  * A number input that changes the design when the designer leaves it or presses Enter (not on
@@ -28,7 +28,13 @@ export function NumberField({
   suffix?: string
 }) {
   const [text, setText] = useState(String(value))
-  useEffect(() => setText(String(value)), [value])
+  // A new value from outside (undo, another field) replaces the text; adjusted while rendering,
+  // as React's "storing information from previous renders" recommends, not in an effect.
+  const [shownValue, setShownValue] = useState(value)
+  if (value !== shownValue) {
+    setShownValue(value)
+    setText(String(value))
+  }
   const commit = () => {
     const parsed = Number(text)
     if (text.trim() === '' || !Number.isFinite(parsed)) return setText(String(value))
