@@ -3,13 +3,15 @@
 import { useRouter } from 'next/navigation'
 import type { FormEvent } from 'react'
 import { Field } from '@/components/ui/field'
+import { safeRedirectPath } from '@/lib/safe-redirect'
 import { signInSchema } from '@/lib/schemas/account'
 import { useApiForm } from './use-api-form'
 
 export function SignInForm({ next }: { next: string }) {
   const router = useRouter()
   const { errors, message, busy, submit } = useApiForm(signInSchema, '/api/auth/sign-in', () => {
-    router.push(next)
+    // Checked again here: the value is followed in the browser, whatever rendered the form.
+    router.push(safeRedirectPath(next))
     router.refresh()
   })
 

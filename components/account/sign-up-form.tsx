@@ -3,13 +3,15 @@
 import { useRouter } from 'next/navigation'
 import type { FormEvent } from 'react'
 import { Field } from '@/components/ui/field'
+import { safeRedirectPath } from '@/lib/safe-redirect'
 import { signUpSchema } from '@/lib/schemas/account'
 import { useApiForm } from './use-api-form'
 
-export function SignUpForm() {
+/** `next`: the page that sent the person here, followed after the account is made. */
+export function SignUpForm({ next = null }: { next?: string | null }) {
   const router = useRouter()
   const { errors, message, busy, submit } = useApiForm(signUpSchema, '/api/auth/sign-up', (account) => {
-    router.push(account.wantsDesignerAccount ? '/patterns' : '/')
+    router.push(safeRedirectPath(next, account.wantsDesignerAccount ? '/patterns' : '/'))
     router.refresh()
   })
 
