@@ -14,6 +14,22 @@ const serverEnvSchema = z.object({
   SESSION_COOKIE_SECURE: z.enum(['true', 'false']).optional(),
   /** Log every SQL statement (for debugging). */
   DATABASE_LOG: z.enum(['true', 'false']).default('false'),
+  /**
+   * The address people open the app at, e.g. `https://wreathwright.example` or
+   * `http://127.0.0.1:3000`: its origin (scheme, host, port) is the only one whose pages may send
+   * state-changing requests. Required in production; elsewhere it defaults to
+   * `http://127.0.0.1:$PORT` (3000), where `npm run dev` listens.
+   */
+  PUBLIC_URL: z
+    .string()
+    .refine((value) => URL.canParse(value) && /^https?:$/.test(new URL(value).protocol), 'an http(s) URL')
+    .optional(),
+  PORT: z.coerce.number().int().min(1).max(65_535).optional(),
+  /**
+   * Whether a reverse proxy in front of the app sets `X-Forwarded-Host` and `X-Forwarded-Proto`
+   * (overwriting what clients send). Off by default: those headers are then ignored.
+   */
+  TRUST_PROXY: z.enum(['true', 'false']).default('false'),
 })
 
 export type ServerEnv = z.infer<typeof serverEnvSchema>
@@ -35,4 +51,23 @@ export function serverEnv(): ServerEnv {
 export function isSessionCookieSecure(env: ServerEnv = serverEnv()): boolean {
   if (env.SESSION_COOKIE_SECURE) return env.SESSION_COOKIE_SECURE === 'true'
   return env.NODE_ENV !== 'development'
+}
+
+/** Where the app's own origin comes from, and whether forwarded headers count. */
+export interface OriginSettings {
+  /** Origins (scheme://host:port, as `URL.origin` writes them) whose pages may change things. */
+  readonly origins: readonly string[]
+  readonly trustProxy: boolean
+}
+
+/**
+ * The app's own origin from `PUBLIC_URL`. Without it, outside production, the loopback address
+ * `npm run dev` serves (under both of its names); in production a missing `PUBLIC_URL` is an error.
+ */
+export function originSettings(env: ServerEnv = serverEnv()): OriginSettings {
+  const trustProxy = env.TRUST_PROXY === 'true'
+  if (env.PUBLIC_URL) return { origins: [new URL(env.PUBLIC_URL).origin], trustProxy }
+  if (env.NODE_ENV === 'production') throw new Error('The server environment is incomplete or wrong: PUBLIC_URL')
+  const port = env.PORT ?? 3000
+  return { origins: [`http://127.0.0.1:${port}`, `http://localhost:${port}`], trustProxy }
 }

@@ -1,57 +1,224 @@
-import { verifyRequestOrigin } from 'lucia'
 import { z } from 'zod'
 import { checkSession, sessionIdFromRequest, type CurrentUser } from '@/lib/auth/session'
-import { ConflictError, ServiceError, StoredDesignError, ValidationError, type FieldIssue } from '@/lib/errors'
+import { originSettings, type OriginSettings } from '@/lib/env'
+import { ConflictError, ServiceError, StoredDesignError, UnauthenticatedError, ValidationError, type FieldIssue } from '@/lib/errors'
 
 /**
- * The one wrapper every API route handler goes through. It
- * - refuses state-changing requests whose Origin is not this site (cross-site request forgery);
- * - finds the signed-in person from the session cookie and refreshes or clears that cookie;
- * - turns service errors into JSON with the right status, validation errors with field paths.
+ * The one wrapper every API route handler goes through. Each route declares its largest body,
+ * whether it needs a session, a permission step and the schema of its body; the wrapper runs the
+ * checks in this order, the same for every route:
+ *   1. body size: a Content-Length over the route's limit is refused with 413 before anything is
+ *      read (then, at step 5, a body without one, or one that lies, is cut at the limit: 413);
+ *   2. origin: a state-changing request from a page of another origin is refused with 403;
+ *   3. session: a route that needs one answers strangers 401, whatever the body or the ids;
+ *   4. permission: the route's step (loading what it acts on and asking lib/authorization.ts),
+ *      so that a pattern someone may not see is 404 exactly like a missing one;
+ *   5. body contents: 415 unless JSON, 400 if malformed, 422 naming each field the schema refuses.
+ * Service errors become JSON with their status; the session cookie is refreshed or cleared.
  */
+
+/** Largest bodies, in bytes. A route names one of these (or its own number, e.g. for an upload). */
+export const BODY_LIMITS = {
+  /** Routes that take no body (every GET and DELETE, sign-out): a few stray bytes such as `{}`. */
+  none: 1024,
+  /** A small form: a name, a sign-in or sign-up, a state change. */
+  form: 16 * 1024,
+  /**
+   * A pattern with its design. The design schema's limits (seams, leaves, curls and their points,
+   * string lengths) keep the largest allowed design well under this; 4 MiB also leaves room for
+   * pretty-printed JSON.
+   */
+  design: 4 * 1024 * 1024,
+} as const
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS'])
 
-export interface RouteContext<Params> {
+type SessionRule = 'required' | 'optional'
+type UserFor<S extends SessionRule> = S extends 'required' ? CurrentUser : CurrentUser | null
+
+/** What the permission step sees: everything but the body, which is not read yet. */
+export interface PermitContext<Params, S extends SessionRule> {
   readonly request: Request
-  readonly user: CurrentUser | null
-  readonly sessionId: string | null
+  readonly user: UserFor<S>
   readonly params: Params
 }
 
-type Handler<Params> = (context: RouteContext<Params>) => Promise<Response>
+export interface RouteContext<Params, S extends SessionRule, Resource, Body> extends PermitContext<Params, S> {
+  readonly sessionId: string | null
+  /** What the permission step returned (e.g. the pattern it loaded). */
+  readonly resource: Resource
+  /** The body, parsed by the route's schema (undefined for routes without one). */
+  readonly body: Body
+}
 
-/** True when the request comes from a page of this site (Origin matches Host). */
-export function isSameOrigin(request: Request): boolean {
-  const origin = request.headers.get('origin')
-  const host = request.headers.get('x-forwarded-host') ?? request.headers.get('host')
-  if (!origin || !host) return false
-  return verifyRequestOrigin(origin, [host])
+export interface RouteSpec<Param extends string, S extends SessionRule, Resource, Schema extends z.ZodType | undefined> {
+  /** The names of the path's dynamic segments, e.g. `['id']` for app/api/patterns/[id]. */
+  readonly params?: readonly Param[]
+  /** The largest body accepted, in bytes: one of BODY_LIMITS. */
+  readonly bodyLimit: number
+  /** 'required': strangers get 401 before anything else is looked at. */
+  readonly session: S
+  /**
+   * Loads what the route acts on and calls `authorize` (lib/authorization.ts), throwing 401, 403 or
+   * 404; what it returns is the handler's `resource`. Runs before the body is read.
+   */
+  readonly permit?: (context: PermitContext<Record<Param, string>, S>) => Resource | Promise<Resource>
+  /** The JSON body's schema; without one the route takes no body. */
+  readonly body?: Schema
+}
+
+type BodyOf<Schema> = Schema extends z.ZodType ? z.output<Schema> : undefined
+
+type Handler<Params, S extends SessionRule, Resource, Body> = (context: RouteContext<Params, S, Resource, Body>) => Promise<Response>
+
+/** Refusals of the request's form rather than its meaning. */
+class RequestError extends ServiceError {
+  constructor(
+    message: string,
+    status: number,
+    /** Close the connection after answering, rather than reading the rest of the body to keep it. */
+    readonly closeConnection = false,
+  ) {
+    super(message, status)
+  }
+}
+
+function tooLarge(limit: number): RequestError {
+  return new RequestError(`The request body is larger than this address accepts (${limit} bytes).`, 413, true)
+}
+
+/** The first value of a header a proxy may have written as a list (`a, b`). */
+function firstValue(header: string | null): string | null {
+  const value = header?.split(',')[0]?.trim()
+  return value ? value : null
+}
+
+/** The origin a trusted proxy says the client used, from X-Forwarded-Proto and X-Forwarded-Host. */
+function forwardedOrigin(request: Request): string | null {
+  const host = firstValue(request.headers.get('x-forwarded-host'))
+  const proto = firstValue(request.headers.get('x-forwarded-proto'))
+  if (!host || !proto || !/^https?$/.test(proto)) return null
+  try {
+    return new URL(`${proto}://${host}`).origin
+  } catch {
+    return null
+  }
+}
+
+/**
+ * True when the request comes from a page of this app: its Origin (scheme, host and port) is the
+ * configured public URL's — or, only when TRUST_PROXY is set, the one the proxy forwarded.
+ */
+export function isSameOrigin(request: Request, settings: OriginSettings = originSettings()): boolean {
+  const header = request.headers.get('origin')
+  if (!header || !URL.canParse(header)) return false
+  const origin = new URL(header).origin
+  if (settings.origins.includes(origin)) return true
+  return settings.trustProxy && forwardedOrigin(request) === origin
 }
 
 export function jsonError(status: number, message: string, extra: Record<string, unknown> = {}): Response {
   return Response.json({ error: { message, ...extra } }, { status })
 }
 
+/** Step 1: the announced size, before anything is read. */
+function checkAnnouncedSize(request: Request, limit: number): void {
+  const header = request.headers.get('content-length')
+  if (header === null) return
+  const length = Number(header)
+  if (!/^\d+$/.test(header.trim()) || length > limit) throw tooLarge(limit)
+}
+
+/** Reads the body with a running count, stopping at the limit whatever Content-Length said. */
+async function readLimited(request: Request, limit: number): Promise<Uint8Array> {
+  if (!request.body) return new Uint8Array(0)
+  const reader = request.body.getReader()
+  const chunks: Uint8Array[] = []
+  let size = 0
+  for (;;) {
+    const { done, value } = await reader.read()
+    if (done) break
+    size += value.byteLength
+    if (size > limit) {
+      // Stop reading; the answer closes the connection, so the rest is never taken in.
+      reader.releaseLock()
+      throw tooLarge(limit)
+    }
+    chunks.push(value)
+  }
+  const body = new Uint8Array(size)
+  let at = 0
+  for (const chunk of chunks) {
+    body.set(chunk, at)
+    at += chunk.byteLength
+  }
+  return body
+}
+
+/** `application/json`, with at most a UTF-8 charset parameter. */
+function isJsonContentType(header: string | null): boolean {
+  if (!header) return false
+  const [type, ...parameters] = header.split(';').map((part) => part.trim().toLowerCase())
+  if (type !== 'application/json') return false
+  return parameters.every((parameter) => parameter === '' || /^charset="?utf-8"?$/.test(parameter))
+}
+
+/**
+ * Step 5: reads a JSON body within the limit and checks it against a schema: another content type
+ * is a 415, malformed JSON a 400, a body that does not fit the schema a 422 naming each field.
+ */
+async function parseBody<Schema extends z.ZodType>(request: Request, limit: number, schema: Schema): Promise<z.output<Schema>> {
+  if (!isJsonContentType(request.headers.get('content-type'))) {
+    throw new RequestError('Send the request body as JSON (Content-Type: application/json).', 415)
+  }
+  const bytes = await readLimited(request, limit)
+  let body: unknown
+  try {
+    body = JSON.parse(new TextDecoder('utf-8', { fatal: true }).decode(bytes))
+  } catch {
+    throw new ServiceError('The request body is not valid JSON.', 400)
+  }
+  const parsed = schema.safeParse(body)
+  if (!parsed.success) throw new ValidationError(fieldIssues(parsed.error))
+  return parsed.data
+}
+
 /**
  * Wraps a route handler, e.g.
- * `export const GET = route(async ({ user }) => Response.json(await listPatterns(user)))`.
+ * `export const GET = route({ bodyLimit: BODY_LIMITS.none, session: 'required', permit: ({ user }) =>
+ * authorize(user, 'list-own-patterns') }, async ({ user }) => Response.json(await listOwnPatterns(user)))`.
  */
-export function route<Params = Record<string, never>>(handler: Handler<Params>) {
+export function route<Param extends string = never, S extends SessionRule = SessionRule, Resource = undefined, Schema extends z.ZodType | undefined = undefined>(
+  spec: RouteSpec<Param, S, Resource, Schema>,
+  handler: Handler<Record<Param, string>, S, Resource, BodyOf<Schema>>,
+) {
+  type Params = Record<Param, string>
   return async (request: Request, context?: { params?: Promise<Params> }): Promise<Response> => {
-    if (!SAFE_METHODS.has(request.method) && !isSameOrigin(request)) {
-      return jsonError(403, 'This request did not come from a Wreathwright page.')
-    }
     let response: Response
     let setCookie: string | null = null
     try {
-      const sessionId = sessionIdFromRequest(request)
-      const check = await checkSession(sessionId)
+      checkAnnouncedSize(request, spec.bodyLimit)
+      if (!SAFE_METHODS.has(request.method) && !isSameOrigin(request)) {
+        throw new RequestError('This request did not come from a Wreathwright page.', 403)
+      }
+      const check = await checkSession(sessionIdFromRequest(request))
       setCookie = check.setCookie
+      if (spec.session === 'required' && !check.user) throw new UnauthenticatedError()
+      const user = check.user as UserFor<S>
       const params = ((await context?.params) ?? {}) as Params
-      response = await handler({ request, user: check.user, sessionId: check.session?.id ?? null, params })
+      const resource = (spec.permit ? await spec.permit({ request, user, params }) : undefined) as Resource
+      let body: BodyOf<Schema>
+      if (spec.body) {
+        body = (await parseBody(request, spec.bodyLimit, spec.body)) as BodyOf<Schema>
+      } else {
+        // No body expected: whatever came (chunked, without a length) must still fit the small limit.
+        await readLimited(request, spec.bodyLimit)
+        body = undefined as BodyOf<Schema>
+      }
+      response = await handler({ request, user, params, sessionId: check.session?.id ?? null, resource, body })
     } catch (error) {
       response = errorResponse(error)
+      if (error instanceof RequestError && error.closeConnection) response.headers.set('connection', 'close')
     }
     if (setCookie && !response.headers.has('set-cookie')) response.headers.append('set-cookie', setCookie)
     return response
@@ -70,20 +237,4 @@ function errorResponse(error: unknown): Response {
 /** Turns zod's issues into field paths such as `design.ring.outerRadius`. */
 export function fieldIssues(error: z.ZodError): FieldIssue[] {
   return error.issues.map((issue) => ({ path: issue.path.map(String).join('.') || '(body)', message: issue.message }))
-}
-
-/**
- * Reads a JSON body and checks it against a schema: malformed JSON is a 400, a body that does not
- * fit the schema a 422 naming each field.
- */
-export async function parseBody<Schema extends z.ZodType>(request: Request, schema: Schema): Promise<z.output<Schema>> {
-  let body: unknown
-  try {
-    body = await request.json()
-  } catch {
-    throw new ServiceError('The request body is not valid JSON.', 400)
-  }
-  const parsed = schema.safeParse(body)
-  if (!parsed.success) throw new ValidationError(fieldIssues(parsed.error))
-  return parsed.data
 }

@@ -45,8 +45,8 @@ try {
     if ((await run(command, [...args], env)) !== 0) throw new Error(`${args.join(' ')} failed`)
   }
   const port = await freePort()
-  app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(port)], env, { quiet: true })
   const base = `http://127.0.0.1:${port}`
+  app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(port)], { ...env, PUBLIC_URL: base }, { quiet: true })
   await waitForHttp(`${base}/api/health`)
 
   const browser = await chromium.launch({

@@ -42,6 +42,8 @@ const env = {
   NEXT_TELEMETRY_DISABLED: '1',
   // The demo serves plain http on loopback; a Secure cookie would not be sent back.
   SESSION_COOKIE_SECURE: 'false',
+  // The app's own origin, for its origin check: the loopback address it is started on.
+  PUBLIC_URL: `http://127.0.0.1:${appPort}`,
 }
 process.env.DATABASE_URL = env.DATABASE_URL
 

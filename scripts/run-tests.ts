@@ -85,7 +85,9 @@ try {
     failedSteps.push('app build')
   } else {
     const appPort = await freePort()
-    app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(appPort)], e2eEnv, { quiet: true })
+    // The app's own origin, for its origin check: the loopback address it is started on here.
+    const appEnv = { ...e2eEnv, PUBLIC_URL: `http://127.0.0.1:${appPort}` }
+    app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(appPort)], appEnv, { quiet: true })
     await waitForHttp(`http://127.0.0.1:${appPort}/api/health`)
     console.log('\n== end-to-end tests (headless Chromium) ==')
     const browserEnv = { ...e2eEnv, E2E_BASE_URL: `http://127.0.0.1:${appPort}` }

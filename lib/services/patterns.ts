@@ -2,7 +2,7 @@ import 'server-only'
 import { Transaction } from 'sequelize'
 import { authorize, type Actor } from '@/lib/authorization'
 import { database } from '@/lib/db'
-import { ConflictError, NotFoundError, StoredDesignError, ValidationError } from '@/lib/errors'
+import { ConflictError, NotFoundError, StoredDesignError, UnauthenticatedError, ValidationError } from '@/lib/errors'
 import { emptyDesign } from '@/lib/new-design'
 import { parseDesign, type DesignFile } from '@/lib/schemas/design'
 import {
@@ -68,6 +68,24 @@ async function findPattern(id: string, transaction?: Transaction): Promise<Patte
   const pattern = await Pattern.findByPk(id, { transaction, lock: transaction ? Transaction.LOCK.UPDATE : undefined })
   if (!pattern) throw new NotFoundError('No such pattern.')
   return pattern
+}
+
+/**
+ * The permission step of the routes under /api/patterns/:id (lib/http.ts runs it before reading the
+ * body): the pattern must exist and be visible to the actor — 404 otherwise, the same for both —
+ * and the action must be allowed (403). The services check again inside their transactions.
+ */
+export async function authorizePatternAction(
+  actor: Actor,
+  id: string,
+  action: 'read-pattern' | 'update-pattern' | 'delete-pattern',
+): Promise<void> {
+  // A stranger learns nothing about ids: 401 before any lookup.
+  if (!actor) throw new UnauthenticatedError()
+  database()
+  const pattern = await findPattern(id)
+  authorize(actor, 'read-pattern', pattern)
+  if (action !== 'read-pattern') authorize(actor, action, pattern)
 }
 
 export async function getPattern(actor: Actor, id: string): Promise<PatternView> {

@@ -1,8 +1,8 @@
-import { parseBody, route } from '@/lib/http'
+import { BODY_LIMITS, route } from '@/lib/http'
 import { signInSchema } from '@/lib/schemas/account'
 import { signIn } from '@/lib/services/accounts'
 
-export const POST = route(async ({ request }) => {
-  const { account, sessionCookie } = await signIn(await parseBody(request, signInSchema))
+export const POST = route({ bodyLimit: BODY_LIMITS.form, session: 'optional', body: signInSchema }, async ({ body }) => {
+  const { account, sessionCookie } = await signIn(body)
   return Response.json({ account }, { headers: { 'set-cookie': sessionCookie } })
 })

@@ -1,8 +1,8 @@
-import { parseBody, route } from '@/lib/http'
+import { BODY_LIMITS, route } from '@/lib/http'
 import { signUpSchema } from '@/lib/schemas/account'
 import { signUp } from '@/lib/services/accounts'
 
-export const POST = route(async ({ request }) => {
-  const { account, sessionCookie } = await signUp(await parseBody(request, signUpSchema))
+export const POST = route({ bodyLimit: BODY_LIMITS.form, session: 'optional', body: signUpSchema }, async ({ body }) => {
+  const { account, sessionCookie } = await signUp(body)
   return Response.json({ account }, { status: 201, headers: { 'set-cookie': sessionCookie } })
 })
