@@ -4,6 +4,7 @@
  */
 import type { Arrangement } from './arrangement'
 import type { Topology } from './area-topology'
+import { leafMention } from './leaf-names'
 import { leafShapeProblem } from './leaf-template'
 import type { InsertConstraint } from './sewing-order'
 import { distanceToSegment } from './polygon-measure'
@@ -30,7 +31,7 @@ export function insertConstraints(
     if (!seam) continue
     const place: Point = [seam.from[0] + leaf.at * (seam.to[0] - seam.from[0]), seam.from[1] + leaf.at * (seam.to[1] - seam.from[1])]
     const shape = leafShapeProblem(leaf.length, leaf.width)
-    if (shape) problems.push({ code: 'impossible-leaf', severity: 'error', message: `Leaf ${leaf.id} cannot be made as a pointed leaf: ${shape}`, at: place })
+    if (shape) problems.push({ code: 'impossible-leaf', severity: 'error', message: `${leafMention(leaf.id)} cannot be made as a pointed leaf: ${shape}`, at: place })
     let best = -1
     let bestScore = Infinity
     topology.seamEdges.forEach((edge, id) => {
@@ -50,7 +51,7 @@ export function insertConstraints(
       problems.push({
         code: 'insert-not-caught',
         severity: 'error',
-        message: `Leaf ${leaf.id} sits at (${place[0].toFixed(2)}, ${place[1].toFixed(2)}) on no seam between two areas, so no seam can catch it.`,
+        message: `${leafMention(leaf.id)} sits at (${place[0].toFixed(2)}, ${place[1].toFixed(2)}) on no seam between two areas, so no seam can catch it.`,
         at: place,
       })
       continue

@@ -87,3 +87,36 @@ export function leafNames(design: { readonly leaves: readonly Leaf[]; readonly s
   }
   return names
 }
+
+/**
+ * How the core mentions a leaf in a problem's message while it plans, before the leaf has a name:
+ * `planDesign` replaces every mention by the leaf's plain name once the areas are labelled, so a
+ * designer reads "leaf 2 of A3", never an id. Encoded so no id can end the mention early.
+ *
+ * @example leafMention('l1') // '{leaf:l1}'
+ */
+export const leafMention = (id: string): string => `{leaf:${encodeURIComponent(id)}}`
+
+const MENTION = /\{leaf:([^}]*)\}/g
+
+/**
+ * A message with every leaf mention replaced by the leaf's plain name, its first letter capital.
+ *
+ * @example nameLeavesIn('{leaf:l1} sits on no seam.', new Map([['l1', 'leaf 1 of A2']])) // 'Leaf 1 of A2 sits on no seam.'
+ */
+export function nameLeavesIn(message: string, names: ReadonlyMap<string, string>): string {
+  const named = message.replace(MENTION, (_, id: string) => {
+    const leafId = decodeURIComponent(id)
+    return names.get(leafId) ?? 'a leaf'
+  })
+  return named.charAt(0).toUpperCase() + named.slice(1)
+}
+
+/**
+ * Leaves listed in words: "leaf 1 of A2", "leaf 1 of A2 and leaf 1 of B1", "…, … and …".
+ *
+ * @example listInWords(['a', 'b', 'c']) // 'a, b and c'
+ */
+export function listInWords(items: readonly string[]): string {
+  return items.length <= 1 ? (items[0] ?? '') : `${items.slice(0, -1).join(', ')} and ${items[items.length - 1]}`
+}

@@ -161,7 +161,9 @@ describe('planDesign', () => {
     expect(plan.sewable).toBe(true)
     expect(plan.sections).toHaveLength(2)
     const conflict = plan.problems.find((p) => p.code === 'insert-conflict')
-    expect(conflict?.message).toMatch(/Leaves l1 and l2/)
+    // Leaves are named by where they lie (geometry/leaf-names.ts), never by id.
+    expect(conflict?.message).toMatch(/^Leaf 1 of A2 and leaf 1 of B1 need /)
+    expect(conflict?.message).not.toMatch(/l1|l2/)
     expect(conflict?.at[1]).toBeCloseTo(2, 9)
   })
 
@@ -173,7 +175,8 @@ describe('planDesign', () => {
     const problem = plan.problems.find((p) => p.code === 'impossible-leaf')
     expect(problem?.severity).toBe('error')
     expect(problem?.message).toBe(
-      'Leaf stubby cannot be made as a pointed leaf: it is 3 in wide but only 0.5 in long, and a pointed leaf must be longer than half its width. Make it longer than 1.5 in or narrower than 1 in.',
+      // The plan is not sewable, so no area is labelled: the leaf is numbered around the ring.
+      'Leaf 1 cannot be made as a pointed leaf: it is 3 in wide but only 0.5 in long, and a pointed leaf must be longer than half its width. Make it longer than 1.5 in or narrower than 1 in.',
     )
     // placed at the leaf's open end: halfway along seam "low"
     const low = strips().seams.find((s) => s.id === 'low')!
@@ -193,7 +196,7 @@ describe('planDesign', () => {
   it('names a leaf basted too late in a hand-set order', () => {
     const d = strips([leaf('l2', 'low', 'left')])
     const plan = planDesign({ ...d, order: { sections: [{ label: 'A', areas: [[1, 1], [1, 3], [1, 5]] }] } })
-    expect(plan.problems.map((p) => p.message)).toEqual(['Leaf l2 must be basted on A2 before A1 is sewn, but A2 comes later.'])
+    expect(plan.problems.map((p) => p.message)).toEqual(['Leaf 1 of A2 must be basted on A2 before A1 is sewn, but A2 comes later.'])
   })
 
   it('rejects a hand-set join tree that joins along two lines', () => {

@@ -13,6 +13,7 @@ import { ringAssembly, type RingAssembly } from './ring-assembly'
 import { roughCutPiece, type RoughCut } from './rough-cut'
 import { checkSectionOrder, createPeelSearch, type InsertConstraint } from './sewing-order'
 import { noPlanProblem, setInSeamProblems } from './sewing-problems'
+import { leafMention, leafNames, listInWords, nameLeavesIn } from './leaf-names'
 import { OUTPUT_DECIMALS } from './tolerances'
 import type { Design, JoinTree, Point, Polygon, Problem, Segment } from './types'
 
@@ -129,7 +130,7 @@ function insertConflict(topology: Topology, constraints: readonly InsertConstrai
     }
   }
   const ids = [...new Set(conflicting.map((c) => c.leafId))].sort()
-  const names = ids.length === 1 ? `Leaf ${ids[0]} needs` : `Leaves ${ids.slice(0, -1).join(', ')} and ${ids[ids.length - 1]} need`
+  const names = `${listInWords(ids.map(leafMention))} ${ids.length === 1 ? 'needs' : 'need'}`
   return {
     code: 'insert-conflict',
     severity: 'warning',
@@ -230,8 +231,10 @@ export function planDesign(design: Design, options: PlanOptions = {}): Plan {
       roughCut: { widthIn: round(cut.widthIn), heightIn: round(cut.heightIn), corners: cut.corners.map(roundPoint) },
     }
   })
+  // Leaves are named from the labelled areas they lie over, so only now can messages name them.
+  const names = leafNames(design, { areas })
   const sortedProblems = problems
-    .map((problem) => ({ ...problem, at: roundPoint(problem.at) }))
+    .map((problem) => ({ ...problem, message: nameLeavesIn(problem.message, names), at: roundPoint(problem.at) }))
     .sort((p, q) => severityRank(p) - severityRank(q) || (p.code < q.code ? -1 : p.code > q.code ? 1 : 0) || p.at[0] - q.at[0] || p.at[1] - q.at[1])
   return {
     sewable,

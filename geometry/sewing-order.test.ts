@@ -59,7 +59,8 @@ describe('checkSectionOrder', () => {
     const { topology, bottom, middle } = strips()
     const constraints = [{ leafId: 'l2', over: middle, under: bottom, at: [1, 2] as Point }]
     const { failures } = checkSectionOrder(topology, [bottom, middle], constraints, 'A')
-    expect(failures.map((f) => f.message)).toEqual(['Leaf l2 must be basted on A2 before A1 is sewn, but A2 comes later.'])
+    expect(failures.map((f) => f.message)).// The plan replaces the mention by the leaf's plain name (leaf-names.ts).
+    toEqual(['{leaf:l2} must be basted on A2 before A1 is sewn, but A2 comes later.'])
   })
 })
 

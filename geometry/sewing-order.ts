@@ -12,6 +12,7 @@
  */
 import { areaCount, areaMembers, areaSetKey, hasArea, withoutArea, type AreaSet } from './area-set'
 import { boundaryOfEdges, edgesBetweenAreaAndSet, type BoundaryVerdict, type Topology } from './area-topology'
+import { leafMention } from './leaf-names'
 import { MAX_PEEL_STATES } from './tolerances'
 import type { Point, Segment } from './types'
 
@@ -96,7 +97,7 @@ export function checkSectionOrder(
         failures.push({
           area,
           code: 'insert-order',
-          message: `Leaf ${constraint.leafId} must be basted on ${name(constraint.over)} before ${name(area)} is sewn, but ${name(constraint.over)} comes later.`,
+          message: `${leafMention(constraint.leafId)} must be basted on ${name(constraint.over)} before ${name(area)} is sewn, but ${name(constraint.over)} comes later.`,
         })
       }
     }

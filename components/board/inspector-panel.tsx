@@ -2,6 +2,7 @@
 
 import { useState } from 'react'
 import { isPointedLeaf, LAYER_SCALE_RANGE, LAYER_TURN_LIMIT_DEGREES, leafLayers } from '@/geometry/leaf-template'
+import { boardPlan } from '@/lib/board/board-plan'
 import type { BoardDesign } from '@/lib/board/commands'
 import { design as designOf, type BoardStore } from '@/lib/board/store'
 import { designFileSchema } from '@/lib/schemas/design'
@@ -12,6 +13,8 @@ import { useBoard } from './use-board'
 type Leaf = BoardDesign['leaves'][number]
 
 const small = 'rounded border border-stone-300 px-2 py-1 text-xs hover:bg-linen-100'
+
+const capitalised = (text: string): string => text.charAt(0).toUpperCase() + text.slice(1)
 
 function FabricSelect({ id, label, value, fabrics, onChange }: { id: string; label: string; value: string; fabrics: string[]; onChange: (fabric: string) => void }) {
   const options = fabrics.includes(value) ? fabrics : [value, ...fabrics]
@@ -102,7 +105,7 @@ function LeafEditor({ store, design, leaf, fabrics }: { store: BoardStore; desig
   return (
     <div className="space-y-2" data-testid="leaf-editor">
       <p className="text-xs">
-        Leaf <strong>{leaf.id}</strong> on seam {leaf.seam}, lying on its {leaf.side} side, {Math.round(leaf.at * 100)} % along it.
+        <strong>{capitalised(boardPlan(design).leafNames.get(leaf.id) ?? 'leaf')}</strong>, lying on the {leaf.side} side of its seam, {Math.round(leaf.at * 100)} % along it.
       </p>
       <div className="grid grid-cols-2 gap-2">
         <NumberField id="leaf-length" label="Length" value={leaf.length} min={0} suffix={units} onCommit={(v) => change({ length: v })} />

@@ -38,7 +38,8 @@ export function PlanPanel({ store }: { store: BoardStore }) {
   /** A leaf with its stacked fabrics, bottom first, as the maker reads it while sewing. */
   function describeLeaf(leafId: string): string {
     const leaf = design.leaves.find((l) => l.id === leafId)
-    return leaf ? `leaf ${leaf.id} (${leaf.layers.join(' under ')})` : `leaf ${leafId}`
+    const name = result.leafNames.get(leafId) ?? 'a leaf'
+    return leaf ? `${name} (${leaf.layers.join(' under ')})` : name
   }
 
   function checkHandOrder() {
@@ -135,7 +136,7 @@ export function PlanPanel({ store }: { store: BoardStore }) {
                   return (
                     <li key={id} className="ml-2">
                       {area.label} · {area.fabric ?? '—'} · cut {formatSize(area.planned.roughCut.widthIn, area.planned.roughCut.heightIn, units)}
-                      {area.planned.leavesBefore.length > 0 && <> · baste {area.planned.leavesBefore.join(', ')} first</>}
+                      {area.planned.leavesBefore.length > 0 && <> · baste {area.planned.leavesBefore.map((id) => result.leafNames.get(id) ?? 'a leaf').join(', ')} first</>}
                     </li>
                   )
                 })}

@@ -45,3 +45,22 @@ describe('the board plan in the design’s own units', () => {
     expect(areaAt(boardPlan(centimetres), [40, 40])).toBeNull() // 40 cm is outside a 22.86 cm radius
   })
 })
+
+describe('leaves on the board', () => {
+  it('are named by where they lie, in the plan and its problems, never by id', () => {
+    // A leaf over the inner area of s1 and one too wide for its length (an error at the leaf).
+    const design: BoardDesign = normalizeDesign({
+      ...inches,
+      seams: [{ id: 's1', from: [6, 0], to: [0, 6] }],
+      leaves: [
+        { id: 'leaf-east', seam: 's1', at: 0.5, side: 'right', angle: 0, length: 1.5, width: 0.75, layers: ['green'] },
+        { id: 'stubby-one', seam: 's1', at: 0.25, side: 'right', angle: 0, length: 0.5, width: 3, layers: ['green'] },
+      ],
+    })
+    const result = boardPlan(design)
+    expect([...result.leafNames.values()].sort()).toEqual(['leaf 1', 'leaf 2'])
+    const messages = result.problems.map((problem) => problem.message).join(' ')
+    expect(messages).toMatch(/Leaf \d cannot be made as a pointed leaf/)
+    expect(messages).not.toMatch(/leaf-east|stubby-one|\{leaf:/)
+  })
+})

@@ -4,7 +4,7 @@
  * outlines) to the design's own units once, here, so no component converts on its own. Computed
  * from the design; it is never a state of its own and never undone.
  */
-import { fabricsOfAreas, isPointInPolygon, planDesign, roughCutBeforeFlip, sectionOutline, type Plan, type PlanArea, type Point, type Problem } from '@/geometry'
+import { fabricsOfAreas, isPointInPolygon, leafNames, planDesign, roughCutBeforeFlip, sectionOutline, type Design, type Plan, type PlanArea, type Point, type Problem } from '@/geometry'
 import { parseDesign, type DesignIssue } from '@/lib/schemas/design'
 import { unitsPerInch } from '@/lib/units'
 import type { BoardDesign } from './commands'
@@ -40,6 +40,8 @@ export interface BoardPlan {
   readonly problems: readonly BoardProblem[]
   /** Design units per inch: 1 for inches, 2.54 for centimetres (for section outlines, below). */
   readonly unitsPerInch: number
+  /** Each leaf's plain name by id ("leaf 2 of A3"): what the board shows instead of ids. */
+  readonly leafNames: ReadonlyMap<string, string>
 }
 
 const planCache = new WeakMap<BoardDesign, BoardPlan>()
@@ -51,8 +53,8 @@ export function boardPlan(design: BoardDesign): BoardPlan {
   const factor = unitsPerInch(design.units)
   const parsed = parseDesign(design)
   const result: BoardPlan = parsed.ok
-    ? inDesignUnits(planDesign(parsed.design), parsed.design.fills, factor)
-    : { plan: null, issues: parsed.issues, areas: [], steps: [], problems: [], unitsPerInch: factor }
+    ? inDesignUnits(planDesign(parsed.design), parsed.design, factor)
+    : { plan: null, issues: parsed.issues, areas: [], steps: [], problems: [], unitsPerInch: factor, leafNames: new Map() }
   planCache.set(design, result)
   return result
 }
@@ -60,9 +62,9 @@ export function boardPlan(design: BoardDesign): BoardPlan {
 /** The one conversion of the plan's inches to the design's units. */
 const toDesignUnits = (point: Point, factor: number): [number, number] => [point[0] * factor, point[1] * factor]
 
-function inDesignUnits(plan: Plan, fillsInInches: Parameters<typeof fabricsOfAreas>[0], factor: number): BoardPlan {
+function inDesignUnits(plan: Plan, designInInches: Design, factor: number): BoardPlan {
   const convert = (points: readonly Point[]) => points.map((p) => toDesignUnits(p, factor))
-  const fabrics = fabricsOfAreas(fillsInInches, plan.areas)
+  const fabrics = fabricsOfAreas(designInInches.fills, plan.areas)
   const areas = plan.areas.map((area): BoardArea => ({
     planned: area,
     id: area.id,
@@ -77,7 +79,7 @@ function inDesignUnits(plan: Plan, fillsInInches: Parameters<typeof fabricsOfAre
   const byId = new Map(areas.map((area) => [area.id, area]))
   const steps = plan.sections.flatMap((section) => section.order.flatMap((id) => byId.get(id) ?? []))
   const problems = plan.problems.map((problem) => ({ ...problem, at: toDesignUnits(problem.at, factor) }))
-  return { plan, issues: [], areas, steps, problems, unitsPerInch: factor }
+  return { plan, issues: [], areas, steps, problems, unitsPerInch: factor, leafNames: leafNames(designInInches, plan) }
 }
 
 /** The area of the plan that contains a point (design units), if any. */
