@@ -1,0 +1,31 @@
+import { NextResponse, type NextRequest } from 'next/server'
+import {
+  API_CONTENT_SECURITY_POLICY,
+  contentSecurityPolicy,
+  HSTS_VALUE,
+  newNonce,
+  securityOptionsFromEnv,
+} from '@/lib/security-headers'
+
+/**
+ * Runs before every page and API request (not the build's static files): a fresh CSP nonce for
+ * pages, which Next.js reads back from the request's Content-Security-Policy header and puts on
+ * its own scripts, and HSTS when the site is served over https. See lib/security-headers.ts.
+ */
+export function proxy(request: NextRequest): NextResponse {
+  const options = securityOptionsFromEnv()
+  const isApi = request.nextUrl.pathname.startsWith('/api/')
+  const policy = isApi ? API_CONTENT_SECURITY_POLICY : contentSecurityPolicy(newNonce(), options)
+  const requestHeaders = new Headers(request.headers)
+  if (!isApi) requestHeaders.set('Content-Security-Policy', policy)
+  const response = NextResponse.next({ request: { headers: requestHeaders } })
+  response.headers.set('Content-Security-Policy', policy)
+  if (options.https) response.headers.set('Strict-Transport-Security', HSTS_VALUE)
+  return response
+}
+
+export const config = {
+  // Everything but the build's hashed static files and the image optimizer (next.config.mjs gives those
+  // their fixed headers).
+  matcher: ['/((?!_next/static|_next/image).*)'],
+}
