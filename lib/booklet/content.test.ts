@@ -41,6 +41,13 @@ describe('booklet text', () => {
     expect([...order].sort((a, b) => a - b)).toEqual(order)
   })
 
+  it('folds back on the line between an area and only the sewn areas along that line', async () => {
+    const text = await textOf(buildBooklet(designFrom(medallionFile()), { paper: 'letter', parts: ['steps'] }))
+    // The medallion's A3 is sewn along a line both A1 and A2 reach; A4 only along A3's edge.
+    expect(text).toMatch(/Fold the paper back on the line between A3 and A1, A2 and trim/)
+    expect(text).toMatch(/Fold the paper back on the line between A4 and A3 and trim/)
+  })
+
   it('prepares the folded leaves before sewing and cuts pieces, two per leaf', async () => {
     const text = await textOf(buildBooklet(designFrom(wreathFile()), { paper: 'letter', parts: ['cover', 'steps', 'templates'] }))
     // The test wreath: 2 leaves per repeat, each of 2 layers (leaf-dark under leaf-light), 4 repeats:

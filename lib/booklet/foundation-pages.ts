@@ -45,7 +45,7 @@ export interface FoundationSheet {
 /**
  * The sheets of every foundation to print, before any page is written.
  *
- * @example foundationSheets(model).map((sheet) => sheet.title) // ['Foundation A - every repeat (all 4): make 4', …]
+ * @example foundationSheets(model).map((sheet) => sheet.title) // ['Hollyberry Wreath - Foundation A - every repeat (all 4): make 4', …]
  */
 export function foundationSheets(model: BookletModel): FoundationSheet[] {
   return model.foundations.map((kind) => foundationSheet(model, kind))

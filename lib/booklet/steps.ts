@@ -42,6 +42,27 @@ export function joinSentences(tree: JoinTree | readonly []): string[] {
   return sentences
 }
 
+/**
+ * True when an earlier area has an edge along the line an area is sewn on, overlapping that
+ * segment for more than a point: the areas the fold-back line runs between, and no others.
+ */
+function sharesLine(earlier: PlanArea, sewnAlong: Segment): boolean {
+  const [from, to] = sewnAlong
+  const length = Math.hypot(to[0] - from[0], to[1] - from[1])
+  if (!(length > 0)) return false
+  const along: Point = [(to[0] - from[0]) / length, (to[1] - from[1]) / length]
+  const offLine = (p: Point) => Math.abs((p[0] - from[0]) * along[1] - (p[1] - from[1]) * along[0])
+  const position = (p: Point) => (p[0] - from[0]) * along[0] + (p[1] - from[1]) * along[1]
+  const corners = earlier.polygon
+  return corners.some((a, index) => {
+    const b = corners[(index + 1) % corners.length]!
+    if (offLine(a) >= SEAM_LINE_INCHES || offLine(b) >= SEAM_LINE_INCHES) return false
+    const low = Math.max(0, Math.min(position(a), position(b)))
+    const high = Math.min(length, Math.max(position(a), position(b)))
+    return high - low > SEAM_LINE_INCHES
+  })
+}
+
 /** What the maker does for one area, in words. */
 function stepText(model: BookletModel, area: PlanArea, previous: PlanArea[]): string[] {
   const fabric = model.fabricOf.get(area.id) ?? ''
@@ -49,7 +70,7 @@ function stepText(model: BookletModel, area: PlanArea, previous: PlanArea[]): st
   if (area.sewnAlong === null) {
     return [`${area.label}: ${fabric}. Cut ${cut} in. Lay it wrong side to the unprinted side of the paper, right side out, covering ${area.label} with at least 1/4 in to spare all round; pin or glue it in place.`]
   }
-  const neighbours = previous.filter((p) => p.label).map((p) => p.label).join(', ')
+  const neighbours = previous.filter((p) => p.label && sharesLine(p, area.sewnAlong)).map((p) => p.label).join(', ')
   const lines = [`${area.label}: ${fabric}. Cut ${cut} in (the first measure runs along the seam). Fold the paper back on the line between ${area.label} and ${neighbours || 'the sewn areas'} and trim the sewn fabric 1/4 in past the fold.`]
   const leaves = leavesInBooklet(model).filter((entry) => entry.catcher?.id === area.id)
   for (const entry of leaves) lines.push(`Then baste ${leafBastingWords(model, entry, area.sewnAlong)}`)
