@@ -54,6 +54,23 @@ describe('leafNames', () => {
     expect(leafNames(scaled, planDesign(scaled))).toEqual(names)
   })
 
+  it('numbers leaves on one ray from the centre outward, whatever the rounding of their angles', () => {
+    // A radial seam at 30°: both leaves lie on one ray, so only their distance from the centre
+    // orders them. atan2 of points computed along the seam differs in the last bits, which must
+    // not decide. Checked at several sizes, where those bits differ again.
+    const ray = (r: number): [number, number] => [r * Math.cos(Math.PI / 6), r * Math.sin(Math.PI / 6)]
+    const radial = design({
+      seams: [{ id: 'ray', from: [0, 0], to: ray(9) }],
+      leaves: [leaf('far', 'ray', 0.77, 'left'), leaf('near', 'ray', 0.33, 'left')],
+    })
+    for (const factor of [1, 0.37, 2.9, 11.3]) {
+      const scaled = scaleDesign(radial, factor)
+      const names = leafNames(scaled, planDesign(scaled))
+      expect(names.get('near')).toMatch(/^leaf 1 of /)
+      expect(names.get('far')).toMatch(/^leaf 2 of /)
+    }
+  })
+
   it('numbers leaves over no labelled area among themselves', () => {
     // As for a design that cannot be planned: no area carries a label.
     const d = strips(leaves.slice(0, 2))

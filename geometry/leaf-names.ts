@@ -9,6 +9,7 @@
  */
 import type { PlanArea } from './plan'
 import { isPointInPolygon } from './polygon-measure'
+import { ANGLE_NOISE_RADIANS } from './tolerances'
 import type { Leaf, Point, Seam } from './types'
 
 /**
@@ -50,8 +51,11 @@ interface LeafKey {
   readonly radius: number
 }
 
+/** Angles this close are one angle: leaves on one ray are then ordered outward, not by rounding noise. */
+const compareAngles = (a: number, b: number): number => (Math.abs(a - b) <= ANGLE_NOISE_RADIANS ? 0 : a - b)
+
 const compareKeys = (a: LeafKey, b: LeafKey): number =>
-  a.basted[0].localeCompare(b.basted[0]) || a.basted[1] - b.basted[1] || a.angle - b.angle || a.radius - b.radius
+  a.basted[0].localeCompare(b.basted[0]) || a.basted[1] - b.basted[1] || compareAngles(a.angle, b.angle) || a.radius - b.radius
   // Two leaves at one place: only then does the id decide, so the numbering stays total.
   || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0)
 
