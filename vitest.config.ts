@@ -23,6 +23,9 @@ export default defineConfig({
           name: 'unit',
           include: ['geometry/**/*.test.ts', 'lib/**/*.test.ts', 'components/**/*.test.ts', 'scripts/**/*.test.ts', 'tests/booklet/**/*.test.ts'],
           environment: 'node',
+          // Property tests run a hundred plans or more; on a busy 2-core machine the default 5 s
+          // was seen to run out while the same test takes under a second alone.
+          testTimeout: 20_000,
         },
       },
       {
