@@ -36,7 +36,7 @@ const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.lengt
 
 const work = fs.mkdtempSync(path.join(os.tmpdir(), 'wreathwright-bench-'))
 fs.chmodSync(work, 0o755)
-const cluster = startCluster(path.join(work, 'postgres'), await freePort(), { throwaway: true })
+const cluster = startCluster(path.join(work, 'postgres'), await freePort(), { throwaway: true, passwordFile: path.join(work, 'postgres.password') })
 let app: ReturnType<typeof startProcess> | undefined
 try {
   cluster.createDatabase('wreathwright_bench')

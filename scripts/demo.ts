@@ -1,14 +1,15 @@
 /**
  * npm run demo — starts Wreathwright with demo data on http://127.0.0.1:3000.
  * PostgreSQL runs in a project-local cluster (.data/, or /var/lib/wreathwright when the project sits
- * under a folder the postgres user cannot enter). Data is kept between runs. Ctrl-C stops everything
- * this script started.
+ * under a folder the postgres user cannot enter). Data is kept between runs; the password of its
+ * postgres role is in .data/postgres-<port>.password (mode 600). Ctrl-C stops everything this
+ * script started.
  * Settings: WREATHWRIGHT_DB_PORT (default 54329), PORT (default 3000).
  */
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { isPortTaken, run, startProcess, stopProcess, waitForHttp } from './processes'
-import { isClusterRunning, projectClusterFolder, startCluster, type Cluster } from './postgres'
+import { isClusterRunning, projectClusterFolder, projectPasswordFile, startCluster, type Cluster } from './postgres'
 
 const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..')
 const databasePort = Number(process.env.WREATHWRIGHT_DB_PORT ?? 54329)
@@ -30,7 +31,7 @@ if (!clusterWasRunning && (await isPortTaken(databasePort))) {
 
 let cluster: Cluster
 try {
-  cluster = startCluster(clusterFolder, databasePort)
+  cluster = startCluster(clusterFolder, databasePort, { passwordFile: projectPasswordFile(projectRoot, databasePort) })
   cluster.createDatabase('wreathwright')
 } catch (error) {
   console.error(`demo: could not start PostgreSQL: ${(error as Error).message.trim()}`)
@@ -81,7 +82,7 @@ try {
 
   console.log(`
 Wreathwright is running at http://127.0.0.1:${appPort}
-PostgreSQL: 127.0.0.1:${databasePort}, data in ${cluster.folder}
+PostgreSQL: 127.0.0.1:${databasePort}, data in ${cluster.folder}, password in ${projectPasswordFile(projectRoot, databasePort)}
 
 Demo sign-ins (password for all: ${DEMO_PASSWORD}):
 ${DEMO_PEOPLE.map((person) => `  ${person.email.padEnd(34)} ${person.note}`).join('\n')}

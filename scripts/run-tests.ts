@@ -1,7 +1,8 @@
 /**
  * npm test — every test, against real services started here and stopped at the end:
  *   1. ESLint and knip (unused files, exports, dependencies) over the whole project, as `npm run lint`;
- *   2. a throwaway PostgreSQL cluster in a temporary folder, on a free loopback port;
+ *   2. a throwaway PostgreSQL cluster in a temporary folder, on a free loopback port, with a
+ *      throwaway password (in that folder, mode 600; the database URLs carry it);
  *   3. unit and integration tests (vitest), the integration ones against that database;
  *   4. the app built and started on a free port with demo data in a second database;
  *   5. end-to-end tests in headless Debian Chromium (playwright-core) against it.
@@ -67,7 +68,10 @@ if ((await run('npx', ['eslint', '--max-warnings', '0', '.'], baseEnv)) !== 0) f
 if ((await run('npx', ['knip'], baseEnv)) !== 0) failedSteps.push('unused code')
 try {
   const databasePort = await freePort()
-  cluster = startCluster(path.join(workFolder, 'postgres'), databasePort, { throwaway: true })
+  cluster = startCluster(path.join(workFolder, 'postgres'), databasePort, {
+    throwaway: true,
+    passwordFile: path.join(workFolder, 'postgres.password'),
+  })
   cluster.createDatabase('wreathwright_test')
   cluster.createDatabase('wreathwright_e2e')
 
