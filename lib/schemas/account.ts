@@ -1,8 +1,7 @@
 import { z } from 'zod'
+import { text } from './text'
 
-export const emailSchema = z
-  .string({ error: 'Enter your e-mail address.' })
-  .trim()
+export const emailSchema = text({ max: 254, messages: { required: 'Enter your e-mail address.', empty: 'Enter your e-mail address.' } })
   .toLowerCase()
   .pipe(z.email({ error: 'Enter a valid e-mail address.' }).max(254))
 
@@ -16,7 +15,7 @@ export const signUpSchema = z
   .object({
     email: emailSchema,
     password: newPasswordSchema,
-    displayName: z.string({ error: 'Tell us your name.' }).trim().min(1, 'Tell us your name.').max(80),
+    displayName: text({ max: 80, messages: { required: 'Tell us your name.', empty: 'Tell us your name.' } }),
     /** Ask for a designer account as well: granted at once (an admin can also grant it later). */
     wantsDesignerAccount: z.boolean().default(false),
   })

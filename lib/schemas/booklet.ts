@@ -3,6 +3,8 @@
  * line. Lengths are inches; the colourway is named, and the default is the design's first.
  */
 import { z } from 'zod'
+import { MAX_NAME_LENGTH } from '@/lib/limits'
+import { text } from './text'
 
 export const PAPER_NAMES = ['letter', 'legal', 'tabloid', 'a4', 'a3'] as const
 export type PaperName = (typeof PAPER_NAMES)[number]
@@ -25,7 +27,7 @@ export const DEFAULT_OVERLAP_INCHES = 0.5
 export const bookletOptionsSchema = z.strictObject({
   paper: z.enum(PAPER_NAMES),
   orientation: z.enum(['portrait', 'landscape']).default('portrait'),
-  colorway: z.string().min(1).optional(),
+  colorway: text({ max: MAX_NAME_LENGTH }).optional(),
   finishedDiameterInches: z.number().positive().max(200).optional(),
   parts: z.array(z.enum(BOOKLET_PARTS)).min(1).default([...BOOKLET_PARTS]),
   marginInches: z.number().min(0.1).max(1.5).default(DEFAULT_MARGIN_INCHES),

@@ -7,15 +7,28 @@ import { z } from 'zod'
 import { scaleDesignLengths } from '@/geometry/design-lengths'
 import { LAYER_SCALE_RANGE, LAYER_TURN_LIMIT_DEGREES } from '@/geometry/leaf-template'
 import type { Design, HandSetOrder, JoinTree, Point } from '@/geometry/types'
+import {
+  MAX_AREAS, MAX_BERRIES, MAX_COLORWAYS, MAX_CURLS, MAX_FABRICS_PER_COLORWAY, MAX_ID_LENGTH, MAX_LAYERS_PER_LEAF, MAX_LEAVES,
+  MAX_NAME_LENGTH, MAX_POINTS_PER_CURL, MAX_ROLE_LENGTH, MAX_SEAMS, MAX_SECTIONS, MAX_STEMS,
+} from '@/lib/limits'
 import { CENTIMETRES_PER_INCH } from '@/lib/units'
+import { text } from './text'
 
 // zod 4's number() already refuses NaN and ±Infinity, so every coordinate is finite.
 const finite = z.number()
 const positive = finite.positive()
 const point = z.tuple([finite, finite])
 
-const seam = z.strictObject({ id: z.string().min(1), from: point, to: point })
-const fill = z.strictObject({ at: point, fabric: z.string().min(1) })
+// Every string of a design is free text: checked and normalised by the one helper (./text.ts),
+// and no longer than its limit (lib/limits.ts).
+const id = text({ max: MAX_ID_LENGTH })
+const role = text({ max: MAX_ROLE_LENGTH })
+
+/** A list of at most `max` items, refused as "at most 400 seams" (the limits of lib/limits.ts). */
+const list = <T extends z.ZodType>(item: T, max: number, what: string) => z.array(item).max(max, `at most ${max} ${what}`)
+
+const seam = z.strictObject({ id, from: point, to: point })
+const fill = z.strictObject({ at: point, fabric: role })
 
 /**
  * How one stacked layer lies against the leaf as drawn: `turn` in degrees (counter-clockwise,
@@ -30,34 +43,69 @@ const layerOffset = z.strictObject({
 })
 
 const leaf = z.strictObject({
-  id: z.string().min(1),
-  seam: z.string().min(1),
+  id,
+  seam: id,
   at: finite.min(0).max(1),
   side: z.enum(['left', 'right']),
   angle: finite.min(-75).max(75).optional(),
   length: positive,
   width: positive,
-  layers: z.array(z.string().min(1)).min(1),
+  layers: list(role, MAX_LAYERS_PER_LEAF, 'layers').min(1),
   /** One per layer, same order (bottom first), when present. */
-  layerOffsets: z.array(layerOffset).optional(),
+  layerOffsets: list(layerOffset, MAX_LAYERS_PER_LEAF, 'layer offsets').optional(),
 })
 
-const stem = z.strictObject({ radius: positive, finishedWidth: positive, fabric: z.string().min(1) })
+const stem = z.strictObject({ radius: positive, finishedWidth: positive, fabric: role })
 /** Double-fold bias binding: its cut width (a length, file units) and the fabric role it is cut from; either may be left out. */
-const binding = z.strictObject({ cutWidth: positive.optional(), fabric: z.string().min(1).optional() })
-const berry = z.strictObject({ at: point, finishedDiameter: positive, fabric: z.string().min(1) })
-const curl = z.strictObject({ points: z.array(point).min(2) })
+const binding = z.strictObject({ cutWidth: positive.optional(), fabric: role.optional() })
+const berry = z.strictObject({ at: point, finishedDiameter: positive, fabric: role })
+const curl = z.strictObject({ points: list(point, MAX_POINTS_PER_CURL, 'points in a curl').min(2) })
 const colorway = z.strictObject({
-  name: z.string().min(1),
-  fabrics: z.record(z.string(), z.string().regex(/^#[0-9a-fA-F]{6}$/, 'a colour is #rrggbb')),
+  name: text({ max: MAX_NAME_LENGTH }),
+  fabrics: z
+    .record(role, z.string().regex(/^#[0-9a-fA-F]{6}$/, 'a colour is #rrggbb'))
+    .refine((fabrics) => Object.keys(fabrics).length <= MAX_FABRICS_PER_COLORWAY, `at most ${MAX_FABRICS_PER_COLORWAY} fabrics in a colourway`),
 })
 
-const joinTree: z.ZodType<JoinTree> = z.lazy(() => z.union([z.string().min(1), z.tuple([joinTree, joinTree])]))
+const joinTree: z.ZodType<JoinTree> = z.lazy(() => z.union([id, z.tuple([joinTree, joinTree])]))
 
-const handSetOrder = z.strictObject({
-  sections: z.array(z.strictObject({ label: z.string().min(1), areas: z.array(point).min(1) })).min(1),
-  assembly: joinTree.nullable().optional(),
-})
+/**
+ * How deeply a value nests arrays, counted without recursion (an explicit stack), so that a
+ * 5,000-deep `assembly` is measured and refused before zod's recursive parse could overflow the
+ * call stack. Stops counting past `limit`.
+ *
+ * @example nestingDepth([['A', 'B'], 'C'], 10) // 2
+ */
+export function nestingDepth(value: unknown, limit: number): number {
+  let deepest = 0
+  const stack: [unknown, number][] = [[value, 0]]
+  while (stack.length > 0) {
+    const [item, depth] = stack.pop()!
+    if (!Array.isArray(item)) continue
+    deepest = Math.max(deepest, depth + 1)
+    if (deepest > limit) return deepest
+    for (const child of item) stack.push([child, depth + 1])
+  }
+  return deepest
+}
+
+/** A join tree of at most MAX_SECTIONS sections is at most that deep; deeper is refused unread. */
+const boundedJoinTree = z.preprocess((value, context) => {
+  if (nestingDepth(value, MAX_SECTIONS) > MAX_SECTIONS) {
+    context.addIssue({ code: 'custom', message: `at most ${MAX_SECTIONS} levels of joins (one per section)`, input: value })
+  }
+  return value
+}, joinTree)
+
+const handSetOrder = z
+  .strictObject({
+    sections: list(z.strictObject({ label: id, areas: list(point, MAX_AREAS, 'areas').min(1) }), MAX_SECTIONS, 'sections').min(1),
+    assembly: boundedJoinTree.nullable().optional(),
+  })
+  .superRefine((order, context) => {
+    const areas = order.sections.reduce((sum, section) => sum + section.areas.length, 0)
+    if (areas > MAX_AREAS) context.addIssue({ code: 'custom', path: ['sections'], message: `at most ${MAX_AREAS} areas in all sections together` })
+  })
 
 /**
  * Radii above this are refused: no quilt ring is that large, and the outline's chord count grows
@@ -92,16 +140,16 @@ export const designFileSchema = z
   .strictObject({
     format: z.literal('wreathwright-design'),
     version: z.literal(1),
-    name: z.string(),
+    name: text({ max: MAX_NAME_LENGTH, min: 0 }),
     units: z.enum(['in', 'cm']),
     ring,
-    seams: z.array(seam),
-    fills: z.array(fill).optional(),
-    leaves: z.array(leaf).optional(),
-    stems: z.array(stem).optional(),
-    berries: z.array(berry).optional(),
-    curls: z.array(curl).optional(),
-    colorways: z.array(colorway).optional(),
+    seams: list(seam, MAX_SEAMS, 'seams'),
+    fills: list(fill, MAX_AREAS, 'fills').optional(),
+    leaves: list(leaf, MAX_LEAVES, 'leaves').optional(),
+    stems: list(stem, MAX_STEMS, 'stems').optional(),
+    berries: list(berry, MAX_BERRIES, 'berries').optional(),
+    curls: list(curl, MAX_CURLS, 'curls').optional(),
+    colorways: list(colorway, MAX_COLORWAYS, 'colourways').optional(),
     order: handSetOrder.nullable().optional(),
     binding: binding.optional(),
   })

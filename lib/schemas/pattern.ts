@@ -1,5 +1,7 @@
 import { z } from 'zod'
+import { MAX_NAME_LENGTH } from '@/lib/limits'
 import { designFileSchema } from './design'
+import { text } from './text'
 
 /** A pattern's life: drafted, sewn by testers, sold, withdrawn. */
 export const PATTERN_STATES = ['draft', 'testing', 'published', 'retired'] as const
@@ -13,11 +15,10 @@ export const PATTERN_STATE_CHANGES: Readonly<Record<PatternState, readonly Patte
   retired: ['published'],
 }
 
-export const patternNameSchema = z
-  .string({ error: 'Give the pattern a name.' })
-  .trim()
-  .min(1, 'Give the pattern a name.')
-  .max(120, 'Keep the name under 120 characters.')
+export const patternNameSchema = text({
+  max: MAX_NAME_LENGTH,
+  messages: { required: 'Give the pattern a name.', empty: 'Give the pattern a name.', tooLong: `Keep the name to ${MAX_NAME_LENGTH} characters.` },
+})
 
 export const createPatternSchema = z
   .object({
