@@ -78,3 +78,13 @@ export class ValidationError extends ServiceError {
     super(message, 422)
   }
 }
+
+/** A rate limit of lib/rate-limits.ts was reached: 429, with `Retry-After` in whole seconds. */
+export class TooManyRequestsError extends ServiceError {
+  constructor(
+    message: string,
+    readonly retryAfterSeconds: number,
+  ) {
+    super(message, 429)
+  }
+}

@@ -1,7 +1,15 @@
 import { z } from 'zod'
 import { checkSession, sessionIdFromRequest, type CurrentUser } from '@/lib/auth/session'
 import { originSettings, type OriginSettings } from '@/lib/env'
-import { ConflictError, ServiceError, StoredDesignError, UnauthenticatedError, ValidationError, type FieldIssue } from '@/lib/errors'
+import {
+  ConflictError,
+  ServiceError,
+  StoredDesignError,
+  TooManyRequestsError,
+  UnauthenticatedError,
+  ValidationError,
+  type FieldIssue,
+} from '@/lib/errors'
 
 /**
  * The one wrapper every API route handler goes through. Each route declares its largest body,
@@ -229,6 +237,12 @@ function errorResponse(error: unknown): Response {
   if (error instanceof ValidationError) return jsonError(422, error.message, { issues: error.issues })
   if (error instanceof ConflictError) return jsonError(409, error.message, error.details)
   if (error instanceof StoredDesignError) return jsonError(error.status, error.message, error.details)
+  if (error instanceof TooManyRequestsError) {
+    // RFC 9110 §10.2.3: Retry-After as a number of seconds.
+    const response = jsonError(429, error.message, { retryAfterSeconds: error.retryAfterSeconds })
+    response.headers.set('retry-after', String(error.retryAfterSeconds))
+    return response
+  }
   if (error instanceof ServiceError) return jsonError(error.status, error.message)
   console.error(error)
   return jsonError(500, 'Something went wrong on our side; nothing was changed.')

@@ -92,6 +92,33 @@ describe('sign in and out', () => {
     expect(await Session.count()).toBe(0)
   })
 
+  it('ends the session it replaces when signing in again, with the same account or another', async () => {
+    // OWASP Session Management Cheat Sheet, "Renew the Session ID After Any Privilege Level Change".
+    await createUser({ email: 'ada@example.test', roles: ['designer'] })
+    const other = await createUser({ email: 'bea@example.test', roles: ['designer'] })
+    const first = sessionFromSetCookie((await call(signIn, { method: 'POST', body: { email: 'ada@example.test', password: TEST_PASSWORD } })).headers)!
+    const again = await call(signIn, { method: 'POST', cookie: first, body: { email: 'ada@example.test', password: TEST_PASSWORD } })
+    expect(again.status).toBe(200)
+    const second = sessionFromSetCookie(again.headers)!
+    expect(second).not.toBe(first)
+    expect((await call(listPatterns, { cookie: first })).status).toBe(401)
+    expect((await call(listPatterns, { cookie: second })).status).toBe(200)
+
+    const asOther = await call(signIn, { method: 'POST', cookie: second, body: { email: 'bea@example.test', password: TEST_PASSWORD } })
+    expect(asOther.status).toBe(200)
+    expect((await call(listPatterns, { cookie: second })).status).toBe(401)
+    expect(await Session.count()).toBe(1)
+    expect((await Session.findOne())?.userId).toBe(other.id)
+  })
+
+  it('ends the session it replaces when signing up while signed in', async () => {
+    const user = await createUser({ roles: ['designer'] })
+    const cookie = await sessionCookieFor(user)
+    expect((await call(signUp, { method: 'POST', cookie, body: newAccount() })).status).toBe(201)
+    expect((await call(listPatterns, { cookie })).status).toBe(401)
+    expect(await Session.count({ where: { userId: user.id } })).toBe(0)
+  })
+
   it('signs out: the session is gone and the cookie is cleared', async () => {
     const user = await createUser({ roles: ['designer'] })
     const cookie = await sessionCookieFor(user)

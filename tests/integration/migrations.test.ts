@@ -20,7 +20,7 @@ describe('migrations', () => {
     const migrator = createMigrator(database())
     const applied = (await migrator.executed()).length
     expect(applied).toBeGreaterThan(0)
-    expect(await tableNames()).toEqual(['pattern_revisions', 'patterns', 'sessions', 'users'])
+    expect(await tableNames()).toEqual(['pattern_revisions', 'patterns', 'rate_limits', 'sessions', 'users'])
 
     await migrator.down({ to: 0 })
     expect(await tableNames()).toEqual([])
@@ -28,6 +28,6 @@ describe('migrations', () => {
 
     await migrator.up()
     expect((await migrator.executed()).length).toBe(applied)
-    expect(await tableNames()).toEqual(['pattern_revisions', 'patterns', 'sessions', 'users'])
+    expect(await tableNames()).toEqual(['pattern_revisions', 'patterns', 'rate_limits', 'sessions', 'users'])
   })
 })

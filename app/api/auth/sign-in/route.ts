@@ -1,8 +1,9 @@
+import { requestAddress } from '@/lib/client-address'
 import { BODY_LIMITS, route } from '@/lib/http'
 import { signInSchema } from '@/lib/schemas/account'
 import { signIn } from '@/lib/services/accounts'
 
-export const POST = route({ bodyLimit: BODY_LIMITS.form, session: 'optional', body: signInSchema }, async ({ body }) => {
-  const { account, sessionCookie } = await signIn(body)
+export const POST = route({ bodyLimit: BODY_LIMITS.form, session: 'optional', body: signInSchema }, async ({ request, body, sessionId }) => {
+  const { account, sessionCookie } = await signIn(body, { clientAddress: requestAddress(request), replacingSessionId: sessionId })
   return Response.json({ account }, { headers: { 'set-cookie': sessionCookie } })
 })
