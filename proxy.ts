@@ -6,6 +6,7 @@ import {
   newNonce,
   securityOptionsFromEnv,
 } from '@/lib/security-headers'
+import { REQUESTED_PATH_HEADER } from '@/lib/safe-redirect'
 
 /**
  * Runs before every page and API request (not the build's static files): a fresh CSP nonce for
@@ -18,6 +19,8 @@ export function proxy(request: NextRequest): NextResponse {
   const policy = isApi ? API_CONTENT_SECURITY_POLICY : contentSecurityPolicy(newNonce(), options)
   const requestHeaders = new Headers(request.headers)
   if (!isApi) requestHeaders.set('Content-Security-Policy', policy)
+  // The page asked for, so that a layout sending a stranger to sign in can bring them back to it.
+  if (!isApi) requestHeaders.set(REQUESTED_PATH_HEADER, `${request.nextUrl.pathname}${request.nextUrl.search}`)
   const response = NextResponse.next({ request: { headers: requestHeaders } })
   response.headers.set('Content-Security-Policy', policy)
   if (options.https) response.headers.set('Strict-Transport-Security', HSTS_VALUE)

@@ -13,6 +13,13 @@
  * both call it.
  */
 
+/**
+ * The path and query of the page asked for, set by proxy.ts on every page request (overwriting any
+ * a client sent), so that a layout, which Next.js does not tell its path, can send a stranger to
+ * sign in and back (lib/auth/current-user.ts). Read through safeRedirectPath like any `next`.
+ */
+export const REQUESTED_PATH_HEADER = 'x-wreathwright-requested-path'
+
 /** Where people go when `next` is missing or refused: the home page sends each role on. */
 export const DEFAULT_AFTER_SIGN_IN = '/'
 

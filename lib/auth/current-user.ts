@@ -1,8 +1,9 @@
 import 'server-only'
-import { cookies } from 'next/headers'
+import { cookies, headers } from 'next/headers'
 import { redirect } from 'next/navigation'
 import { cache } from 'react'
 import { can, type Action } from '@/lib/authorization'
+import { REQUESTED_PATH_HEADER, signInPathFor } from '@/lib/safe-redirect'
 import { lucia } from './lucia'
 import { checkSession, type CurrentUser } from './session'
 
@@ -17,10 +18,13 @@ export const getCurrentUser = cache(async (): Promise<CurrentUser | null> => {
   return user
 })
 
-/** For pages that need a signed-in person allowed to take `action`: sends others to sign in. */
+/**
+ * For pages that need a signed-in person allowed to take `action`: sends others to sign in, and
+ * from there back to `from` — by default the page asked for, as proxy.ts passes it on.
+ */
 export async function requireUser(action?: Extract<Action, 'create-pattern' | 'list-own-patterns' | 'manage-users'>, from?: string): Promise<CurrentUser> {
   const user = await getCurrentUser()
-  if (!user) redirect(from ? `/sign-in?next=${encodeURIComponent(from)}` : '/sign-in')
+  if (!user) redirect(signInPathFor(from ?? (await headers()).get(REQUESTED_PATH_HEADER)))
   if (action && !can(user, action)) redirect('/?denied=1')
   return user
 }
