@@ -4,6 +4,7 @@ import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import fc from 'fast-check'
 import { afterAll, describe, expect, it } from 'vitest'
+import { MAX_DESIGN_FILE_BYTES, MAX_SEAMS, MAX_SECTIONS } from '../lib/limits'
 import { runCli } from './cli'
 
 const folder = mkdtempSync(join(tmpdir(), 'wreathwright-cli-'))
@@ -115,6 +116,45 @@ describe('cli plan', () => {
       }),
       { numRuns: 150 },
     )
+  })
+
+  it('refuses a 42,000-seam file (4.4 MB) by the seam limit, in one line and quickly', async () => {
+    // The file of issue 10: it ran 143 s before it ended in "Maximum call stack size exceeded".
+    const seams = Array.from({ length: 42_000 }, (_, i) => ({ id: `seam-${i}`, from: [1 + (i % 7), 0], to: [0, 1 + (i % 5)] }))
+    const path = file(JSON.stringify({ ...valid, leaves: [], seams }, null, 1))
+    const started = performance.now()
+    for (const argv of [['plan', path], ['pdf', path, '--paper', 'letter', '--out', join(folder, 'x.pdf')]]) {
+      const result = await runCli(argv)
+      expect(result.code).toBe(2)
+      expectContract(result)
+      expect(result.stderr).toContain(`seams: at most ${MAX_SEAMS} seams`)
+    }
+    expect(performance.now() - started).toBeLessThan(5000)
+  })
+
+  it('refuses a file larger than the largest design before parsing its JSON', async () => {
+    // Not even JSON: had it been parsed, the message would say so.
+    const path = file(`[${' '.repeat(MAX_DESIGN_FILE_BYTES)}`)
+    for (const argv of [['plan', path], ['pdf', path, '--paper', 'letter', '--out', join(folder, 'x.pdf')]]) {
+      const result = await runCli(argv)
+      expect(result.code).toBe(2)
+      expectContract(result)
+      expect(result.stderr).toContain(`too large for a design: ${MAX_DESIGN_FILE_BYTES + 1} bytes`)
+    }
+  })
+
+  it('refuses a 5,000-deep assembly and NUL in the name in one line each, naming the field', async () => {
+    // Written by hand: JSON.stringify itself recurses once per level.
+    const assembly = `${'['.repeat(5000)}"A"${',"B"]'.repeat(5000)}`
+    const order = JSON.stringify({ sections: [{ label: 'A', areas: [[1, 1]] }], assembly: 'PLACE' }).replace('"PLACE"', assembly)
+    const deep = await runCli(['plan', file(JSON.stringify({ ...valid, order: 'ORDER' }).replace('"ORDER"', order))])
+    expect(deep.code).toBe(2)
+    expectContract(deep)
+    expect(deep.stderr).toContain(`order.assembly: at most ${MAX_SECTIONS} levels`)
+    const nul = await runCli(['plan', file(JSON.stringify({ ...valid, name: 'Acorn\u0000' }))])
+    expect(nul.code).toBe(2)
+    expectContract(nul)
+    expect(nul.stderr).toMatch(/name: control characters/)
   })
 
   it('as a real process: exit code 2 and one line on stderr, no stack trace', async () => {

@@ -5,10 +5,9 @@
  * line on stderr when the input is not a valid design; never a stack trace (geometry.md,
  * "Command-line contract").
  */
-import { readFileSync } from 'node:fs'
 import { pathToFileURL } from 'node:url'
 import { planDesign } from '../geometry/plan'
-import { formatDesignIssue, parseDesign } from '../lib/schemas/design'
+import { DesignFileError, readDesignFile } from './design-file'
 import { runPdfCommand } from './pdf-command'
 
 /** An error meant for the user: printed as one line, exit 2. */
@@ -18,27 +17,9 @@ function oneLine(text: string): string {
   return text.replace(/\s+/g, ' ').trim()
 }
 
-function readDesign(path: string | undefined): ReturnType<typeof parseDesign> & { ok: true } {
+async function readDesign(path: string | undefined): ReturnType<typeof readDesignFile> {
   if (!path) throw new UsageError('usage: cli plan <design.json>')
-  let text: string
-  try {
-    text = readFileSync(path, 'utf8')
-  } catch {
-    throw new UsageError(`cannot read ${path}`)
-  }
-  let json: unknown
-  try {
-    json = JSON.parse(text)
-  } catch (error) {
-    throw new UsageError(`${path} is not valid JSON: ${error instanceof Error ? error.message : String(error)}`)
-  }
-  const result = parseDesign(json)
-  if (!result.ok) {
-    const first = result.issues[0]
-    const more = result.issues.length > 1 ? ` (and ${result.issues.length - 1} more)` : ''
-    throw new UsageError(`${path} is not a valid design: ${first ? formatDesignIssue(first) : 'unknown problem'}${more}`)
-  }
-  return result
+  return readDesignFile(path)
 }
 
 /** What a run writes and returns, so tests can run the CLI in-process. */
@@ -48,9 +29,9 @@ export interface CliResult {
   readonly stderr: string
 }
 
-function plan(args: readonly string[]): CliResult {
+async function plan(args: readonly string[]): Promise<CliResult> {
   if (args.length > 1) throw new UsageError(`plan takes one design file, got: ${args.join(' ')}; usage: cli plan <design.json>`)
-  const { design } = readDesign(args[0])
+  const { design } = await readDesign(args[0])
   return { code: 0, stdout: `${JSON.stringify(planDesign(design), null, 2)}\n`, stderr: '' }
 }
 
@@ -78,7 +59,7 @@ export async function runCli(argv: readonly string[]): Promise<CliResult> {
     return await command(args)
   } catch (error) {
     // Anything unexpected is still one line: a stack trace is no message for a designer.
-    const message = error instanceof UsageError ? error.message : `internal error: ${error instanceof Error ? error.message : String(error)}`
+    const message = error instanceof UsageError || error instanceof DesignFileError ? error.message : `internal error: ${error instanceof Error ? error.message : String(error)}`
     return { code: 2, stdout: '', stderr: `${oneLine(message)}\n` }
   }
 }

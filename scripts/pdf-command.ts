@@ -7,10 +7,10 @@
  * exit 2 with one line on stderr for anything the user can fix; never a stack trace
  * (geometry.md, "Command-line contract").
  */
-import { readFile, writeFile } from 'node:fs/promises'
+import { writeFile } from 'node:fs/promises'
 import { buildBooklet } from '../lib/booklet/booklet'
 import { BOOKLET_PARTS, bookletOptionsSchema, PAPER_NAMES, type BookletOptionsInput } from '../lib/schemas/booklet'
-import { formatDesignIssue, parseDesign } from '../lib/schemas/design'
+import { DesignFileError, readDesignFile } from './design-file'
 
 /** A message for the user: one line, exit 2. */
 class UsageError extends Error {}
@@ -62,24 +62,7 @@ export async function runPdfCommand(args: string[], io: { stdout(text: string): 
     const { designPath, flags } = parseArguments(args)
     if (!flags['--paper']) throw new UsageError(`--paper is required (${PAPER_NAMES.join(', ')})`)
     if (!flags['--out']) throw new UsageError('--out <file.pdf> is required')
-    let text: string
-    try {
-      text = await readFile(designPath, 'utf8')
-    } catch {
-      throw new UsageError(`cannot read ${designPath}`)
-    }
-    let json: unknown
-    try {
-      json = JSON.parse(text)
-    } catch (error) {
-      throw new UsageError(`${designPath} is not valid JSON: ${error instanceof Error ? error.message : String(error)}`)
-    }
-    const parsed = parseDesign(json)
-    if (!parsed.ok) {
-      const first = parsed.issues[0]
-      const more = parsed.issues.length > 1 ? ` (and ${parsed.issues.length - 1} more)` : ''
-      throw new UsageError(`${designPath} is not a valid design: ${first ? formatDesignIssue(first) : 'unknown problem'}${more}`)
-    }
+    const parsed = await readDesignFile(designPath)
     const input: BookletOptionsInput = {
       paper: flags['--paper'] as BookletOptionsInput['paper'],
       orientation: flags['--orientation'] as BookletOptionsInput['orientation'],
@@ -109,7 +92,7 @@ export async function runPdfCommand(args: string[], io: { stdout(text: string): 
     return 0
   } catch (error) {
     // Anything unexpected is still one line: a stack trace is no message for a designer.
-    const message = error instanceof UsageError ? error.message : `internal error: ${error instanceof Error ? error.message : String(error)}`
+    const message = error instanceof UsageError || error instanceof DesignFileError ? error.message : `internal error: ${error instanceof Error ? error.message : String(error)}`
     io.stderr(`${oneLine(message)}\n`)
     return 2
   }
