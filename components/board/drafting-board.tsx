@@ -146,7 +146,7 @@ export function DraftingBoard({ patternId, patternName, revision, design }: { pa
       <div className="grid min-h-0 flex-1 grid-cols-1 md:grid-cols-[15rem_1fr] xl:grid-cols-[16rem_1fr_20rem]">
         <aside className="order-2 space-y-5 overflow-auto border-r border-linen-200 bg-linen-50 p-3 md:order-1" aria-label="Ring and fabrics">
           <RingPanel store={store} />
-          <FabricPanel store={store} />
+          <FabricPanel store={store} context={context} />
         </aside>
         <div ref={canvasBox} tabIndex={0} data-testid="board-canvas" className="relative order-1 min-h-[360px] overflow-hidden bg-stone-100 md:order-2" aria-label="Drafting board canvas" role="application">
           <BoardCanvas store={store} pointer={pointer} width={size.width} height={size.height} stageRef={stageRef} />

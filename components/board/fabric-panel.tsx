@@ -1,7 +1,9 @@
 'use client'
 
 import { useState, type FormEvent } from 'react'
+import type { ActionContext } from '@/lib/board/actions'
 import { design as designOf, type BoardStore } from '@/lib/board/store'
+import { LeafSpreadButton } from './leaf-spread-button'
 import { useBoard } from './use-board'
 
 const FABRIC_NAME = /^[a-z0-9][a-z0-9 -]{0,39}$/i
@@ -10,7 +12,7 @@ const FABRIC_NAME = /^[a-z0-9][a-z0-9 -]{0,39}$/i
  * The colourways and their fabrics. Fabric roles (background, leaf-dark …) are shared by every
  * colourway; each colourway gives them its own colours. Choosing a swatch picks it and the Fill tool.
  */
-export function FabricPanel({ store }: { store: BoardStore }) {
+export function FabricPanel({ store, context }: { store: BoardStore; context: ActionContext }) {
   const design = useBoard(store, designOf)
   const activeColorway = useBoard(store, (state) => state.activeColorway)
   const activeFabric = useBoard(store, (state) => state.activeFabric)
@@ -96,6 +98,7 @@ export function FabricPanel({ store }: { store: BoardStore }) {
         </button>
       </form>
       {error && <p role="alert" className="text-xs text-madder-700">{error}</p>}
+      <LeafSpreadButton context={context} />
     </section>
   )
 }

@@ -16,6 +16,7 @@ export function HelpPanel({ onClose }: { onClose: () => void }) {
         {Object.values(boardActions).map((action) => (
           <div key={action.label} className="contents">
             <dt>
+              {action.keys.length === 0 && <span className="text-xs text-stone-500">button</span>}
               {action.keys.map((key) => (
                 <kbd key={key} className="mr-1 rounded border border-stone-300 bg-linen-50 px-1 font-mono text-xs">
                   {key.replace('Mod+', 'Ctrl+')}

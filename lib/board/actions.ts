@@ -61,6 +61,12 @@ export const boardActions = {
   panRight: { label: 'Pan right', keys: ['ArrowRight'], run: ({ store }) => store.panBy(-PAN_STEP_PIXELS, 0) },
   panUp: { label: 'Pan up', keys: ['ArrowUp'], run: ({ store }) => store.panBy(0, PAN_STEP_PIXELS) },
   panDown: { label: 'Pan down', keys: ['ArrowDown'], run: ({ store }) => store.panBy(0, -PAN_STEP_PIXELS) },
+  // A button in the fabric panel; no letter key says "spread", so it has none.
+  spreadLeafColours: {
+    label: 'Spread the leaf colours around the ring',
+    keys: [],
+    run: ({ store }) => store.run('spreadLeafColours', {}),
+  },
   nextStep: { label: 'Next sewing step', keys: [']'], run: ({ store }) => store.nextStep() },
   previousStep: { label: 'Previous sewing step', keys: ['['], run: ({ store }) => store.previousStep() },
   help: { label: 'Show or hide this list of shortcuts', keys: ['?'], run: (context) => context.toggleHelp() },

@@ -60,3 +60,44 @@ describe('layer offsets on the board', () => {
     expect('layerOffsets' in leafOf(store)).toBe(false)
   })
 })
+
+describe('spreading the leaf colours', () => {
+  /** Four leaves on one seam of a quarter ring, all dark but the first, one with turned layers. */
+  function fourLeaves(): DesignFile {
+    const base = stackedLeafFile()
+    const leaf = base.leaves![0]!
+    return {
+      ...base,
+      leaves: [0.2, 0.4, 0.6, 0.8].map((at, index) => ({
+        ...leaf,
+        id: `l${index + 1}`,
+        at,
+        layers: index === 0 ? ['light', 'dark'] : ['dark', 'dark'],
+        ...(index === 2 ? { layerOffsets: [{}, { turn: 12 }] } : {}),
+      })),
+    }
+  }
+  const layersOf = (store: ReturnType<typeof createBoardStore>) => designOf(store.getState()).leaves.map((leaf) => leaf.layers.join('+'))
+
+  it('deals the fabrics out as one undo step, keeping offsets, and undo puts every leaf back', () => {
+    const store = createBoardStore(fourLeaves())
+    store.run('spreadLeafColours', {})
+    // The seam runs from (4, 0) to (0, 4): l1 … l4 lie counter-clockwise. Fabrics in first use:
+    // light, dark. Bottoms alternate light dark light dark (4 is even); tops turn by one.
+    expect(layersOf(store)).toEqual(['light+dark', 'dark+light', 'light+dark', 'dark+light'])
+    expect(designOf(store.getState()).leaves[2]!.layerOffsets).toEqual([{}, { turn: 12 }])
+    expect(store.getState().history.past).toHaveLength(1)
+    expect(designFileSchema.safeParse(designOf(store.getState())).success).toBe(true)
+    store.undo()
+    expect(designOf(store.getState()).leaves).toEqual(fourLeaves().leaves)
+  })
+
+  it('records nothing when the leaves are already spread, and the designer can still change one leaf', () => {
+    const store = createBoardStore(fourLeaves())
+    store.run('spreadLeafColours', {})
+    store.run('spreadLeafColours', {})
+    expect(store.getState().history.past).toHaveLength(1)
+    store.run('setLeafLayerFabric', { leafId: 'l2', index: 0, fabric: 'light' })
+    expect(layersOf(store)[1]).toBe('light+light')
+  })
+})

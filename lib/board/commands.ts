@@ -5,6 +5,7 @@
  */
 import { scaleDesignLengths } from '@/geometry/design-lengths'
 import { LAYER_SCALE_RANGE, LAYER_TURN_LIMIT_DEGREES } from '@/geometry/leaf-template'
+import { spreadLeafFabrics } from '@/geometry/spread-leaf-fabrics'
 import type { Point } from '@/geometry'
 import type { DesignFile } from '@/lib/schemas/design'
 import { unitsPerInch } from '@/lib/units'
@@ -256,6 +257,26 @@ export const removeLeafLayer = defineCommand({
         : withLayers(leaf, leaf.layers.filter((_, i) => i !== index), offsetsOf(leaf).filter((_, i) => i !== index))),
 })
 
+/**
+ * Deals the fabrics already on the leaves out again around the ring, so neighbours differ and
+ * counts are even (`spreadLeafFabrics`); offsets stay with their layers. Nothing to improve
+ * records nothing. The designer then changes any leaf in the inspector.
+ */
+export const spreadLeafColours = defineCommand({
+  name: 'spread-leaf-colours',
+  run: (design, _args: Record<string, never>) => {
+    const spread = new Map(spreadLeafFabrics(design).leaves.map((leaf) => [leaf.id, leaf.layers]))
+    let changed = false
+    const leaves = design.leaves.map((leaf) => {
+      const layers = spread.get(leaf.id)
+      if (!layers || layers.every((fabric, index) => fabric === leaf.layers[index])) return leaf
+      changed = true
+      return { ...leaf, layers: [...layers] }
+    })
+    return changed ? { ...design, leaves } : design
+  },
+})
+
 export const deleteLeaf = defineCommand({
   name: 'delete-leaf',
   run: (design, { leafId }: { leafId: string }) => ({ ...design, leaves: design.leaves.filter((leaf) => leaf.id !== leafId) }),
@@ -346,6 +367,7 @@ export const commands = {
   setLeafLayerFabric,
   addLeafLayer,
   removeLeafLayer,
+  spreadLeafColours,
   setStemRing,
   addBerry,
   updateBerry,
