@@ -13,7 +13,7 @@
 import { areaMembers, areaSetKey, areaSetOf, emptyAreaSet, hasArea, type AreaSet } from './area-set'
 import type { Topology } from './area-topology'
 import { createPeelSearch, findSectionOrder, type InsertConstraint, type PeelSearch } from './sewing-order'
-import { MAX_SECTION_UNITS } from './tolerances'
+import { MAX_SECTION_UNITS, MAX_SECTION_WORK } from './tolerances'
 import type { Segment } from './types'
 
 /** A plan of sections: one section in sewing order, or two subtrees joined along one segment. */
@@ -292,7 +292,8 @@ function solve(state: SearchState, unit: AreaSet, limit: number, key = areaSetKe
     return solved
   }
   state.units += 1
-  if (state.units > MAX_SECTION_UNITS) {
+  // A unit's cuts and bounds cost time in proportion to the areas, so large repeats visit fewer.
+  if (state.units > MAX_SECTION_UNITS || state.units * state.topology.areaCount > MAX_SECTION_WORK) {
     state.gaveUp = true
     return null
   }

@@ -4,6 +4,7 @@
  * sections and their join tree; how the ring's repeats are joined; and every problem. The plan
  * is data: computing it never changes the design and never throws for a bad design.
  */
+import { estimatedAreaCount } from './area-count'
 import { buildArrangement, type Arrangement } from './arrangement'
 import { buildTopology, type Topology } from './area-topology'
 import { fewestSections, type SectionTree } from './fewest-sections'
@@ -14,7 +15,7 @@ import { roughCutPiece, type RoughCut } from './rough-cut'
 import { checkSectionOrder, createPeelSearch, type InsertConstraint } from './sewing-order'
 import { noPlanProblem, setInSeamProblems } from './sewing-problems'
 import { leafMention, leafNames, listInWords, nameLeavesIn } from './leaf-names'
-import { OUTPUT_DECIMALS } from './tolerances'
+import { MAX_PLAN_AREAS, OUTPUT_DECIMALS } from './tolerances'
 import type { Design, JoinTree, Point, Polygon, Problem, Segment } from './types'
 
 export interface PlanArea {
@@ -169,6 +170,31 @@ function severityRank(problem: Problem): number {
 }
 
 /**
+ * A repeat of more than MAX_PLAN_AREAS areas is not planned: the plan says so at once, without
+ * areas, instead of searching for minutes. Counted from the seams' crossings first, before the
+ * arrangement (itself seconds long for thousands of areas) is built.
+ */
+function tooManyAreas(design: Design): Plan | null {
+  const estimate = estimatedAreaCount(design.seams, MAX_PLAN_AREAS)
+  return estimate > MAX_PLAN_AREAS ? tooManyAreasPlan(design, "This repeat's seams cross each other so often that it would have more areas than the sewing plan works with") : null
+}
+
+function tooManyAreasPlan(design: Design, what: string): Plan {
+  const ring = ringAssembly(design.ring)
+  const seam = design.seams[0]
+  const at: Point = seam ? roundPoint([(seam.from[0] + seam.to[0]) / 2, (seam.from[1] + seam.to[1]) / 2]) : [0, 0]
+  const message = `${what} (at most ${MAX_PLAN_AREAS}); use fewer seams, or seams that cross fewer others.`
+  return {
+    sewable: false,
+    areas: [],
+    sections: [],
+    assembly: [],
+    ringAssembly: ring.assembly,
+    problems: [{ code: 'search-gave-up', severity: 'error', message, at }, ...ring.problems],
+  }
+}
+
+/**
  * The full sewing plan of a design (in inches, as `parseDesign` returns it).
  *
  * @example
@@ -176,7 +202,10 @@ function severityRank(problem: Problem): number {
  * plan.sewable // false when a problem of severity 'error' stands
  */
 export function planDesign(design: Design, options: PlanOptions = {}): Plan {
+  const tooMany = tooManyAreas(design)
+  if (tooMany) return tooMany
   const arrangement = buildArrangement(design.ring, design.seams)
+  if (arrangement.areas.length > MAX_PLAN_AREAS) return tooManyAreasPlan(design, `This repeat has ${arrangement.areas.length} areas`)
   const topology = buildTopology(arrangement)
   const problems: Problem[] = [...arrangement.problems]
   const ring = ringAssembly(design.ring)

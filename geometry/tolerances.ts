@@ -81,6 +81,23 @@ export const MAX_PEEL_STATES = 20_000
 export const MAX_SECTION_UNITS = 50_000
 
 /**
+ * The fewest-sections search also stops when units visited × areas in the repeat pass this: each
+ * unit's cuts and bounds take time in proportion to the areas, so a repeat of 800 areas visits at
+ * most 2,500 units, about a second here, where MAX_SECTION_UNITS alone let it run for ten. Count
+ * (area-units); equal to MAX_SECTION_UNITS for a repeat of 40 areas, so smaller designs are
+ * searched as before.
+ */
+export const MAX_SECTION_WORK = 2_000_000
+
+/**
+ * The planner plans a repeat of at most this many areas. A repeat with more (400 seams crossing
+ * each other make about 40,000) gets a `search-gave-up` error at once, without its areas: the
+ * search over such a repeat would run for minutes, and no foundation-pieced design has that many
+ * areas in a repeat. Count; lib/limits.ts MAX_AREAS, the areas a file may name, is the same.
+ */
+export const MAX_PLAN_AREAS = 1000
+
+/**
  * Area corners closer than this to another area's edge are welded into that edge before areas are
  * united into a section's outline, inches. The plan rounds corners (OUTPUT_DECIMALS), so where a
  * seam ends on another the corner sits a few millionths off the neighbour's edge; far above that
@@ -183,3 +200,12 @@ export const DEGENERATE_EXTENT_INCHES = 1e-9
  * Square inches; far below any difference in paper.
  */
 export const SHEET_AREA_TIE_SQ_IN = 1e-6
+
+// Fabric: the cutting layout (strip-layout.ts).
+
+/**
+ * A piece fits in the room left across a strip, or along it, when it is at most this much larger:
+ * sums of sides computed in floating point (leaf pieces are not multiples of 1/8 in) must not turn
+ * a piece exactly the width of fabric into one too wide. Inches; far below any rotary cut.
+ */
+export const CUT_FIT_SLACK_INCHES = 1e-9
