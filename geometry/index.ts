@@ -24,3 +24,9 @@ export type { LinePathSegment, ArcPathSegment, PathSegment, OutlinePath, TrimLin
 export * from './leaf-template'
 export { smoothCurve, bezierPoint, sampleSmoothCurve, mapSmoothCurve, type SmoothCurve, type BezierPiece } from './smooth-curve'
 export { leafNames, areaUnderLeaf, leafBaseOnSeam } from './leaf-names'
+// Fabric: pieces, the strip layout, yardage and bias.
+export * from './bias'
+export * from './cutting-pieces'
+export * from './strip-layout'
+export * from './yardage'
+export * from './fabric-requirements'

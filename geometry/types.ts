@@ -99,7 +99,7 @@ export interface HandSetOrder {
 
 /**
  * How the ring's curved edges are bound: double-fold bias strips. Both fields are optional; the
- * booklet fills in its defaults (lib/booklet/finishing.ts: 2 1/4 in wide, cut from the "binding" role).
+ * defaults are filled by `bindingPlan` (geometry/bias.ts: 2 1/4 in wide, cut from the "binding" role).
  */
 export interface Binding {
   /** Cut width of the strips, inches (a length: scaled with the design). */

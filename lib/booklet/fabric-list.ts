@@ -4,16 +4,11 @@
  * A stand-in until the fabric-math issue lands (yardage, fat quarters): it says what to cut,
  * not how much fabric to buy.
  */
-import { leafLayers } from '@/geometry'
+import { berryCutDiameterInches, leafLayers, stemStrip } from '@/geometry'
 import { formatInches } from '@/lib/units'
 import { bindingPlan } from './finishing'
 import { leafName, PIECES_PER_FOLDED_LEAF } from './leaves'
 import type { BookletModel } from './model'
-
-/** Cut allowance added around a berry circle beyond twice its diameter, inches (from memory; check in a sample). */
-export const BERRY_EXTRA_INCHES = 0.25
-/** Extra bias strip for joining the stem ring's ends, inches (common practice: a few inches). */
-export const STEM_OVERLAP_INCHES = 4
 
 /**
  * Every piece to cut, grouped by fabric, in first-seen order of fabrics.
@@ -46,12 +41,12 @@ export function cuttingList(model: BookletModel): Map<string, string[]> {
     }
   }
   for (const berry of design.berries) {
-    add(berry.fabric, `circle ${formatInches(2 * berry.finishedDiameter + BERRY_EXTRA_INCHES)} across for a ${formatInches(berry.finishedDiameter)} berry`, repeats, '')
+    add(berry.fabric, `circle ${formatInches(berryCutDiameterInches(berry.finishedDiameter))} across for a ${formatInches(berry.finishedDiameter)} berry`, repeats, '')
   }
   for (const stem of design.stems) {
-    const length = 2 * Math.PI * stem.radius + STEM_OVERLAP_INCHES
-    // Folded bias stem: cut width = 2 × finished width + 1/2 in (derivable: fold, sew 1/4 in from the raw edges).
-    add(stem.fabric, `bias strip ${formatInches(2 * stem.finishedWidth + 0.5)} wide, ${formatInches(Math.ceil(length))} long in all (stem ring)`, 1, '')
+    // Folded bias stem (geometry/bias.ts): 2πr + the joining overlap, cut 2 × finished width + 1/2 in wide.
+    const strip = stemStrip(stem)
+    add(stem.fabric, `bias strip ${formatInches(strip.cutWidthIn)} wide, ${formatInches(strip.lengthIn)} long in all (stem ring)`, 1, '')
   }
   // Binding: one bias strip per curved edge, each with its own joining allowance.
   const binding = bindingPlan(design)

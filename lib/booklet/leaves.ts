@@ -4,7 +4,7 @@
  * along the line from a named end, which way its tip points and its layers, bottom first. Leaves
  * are named by the one rule of `leafNames` (geometry), never by their ids.
  */
-import { leafBaseOnSeam, leafLayers, type Leaf, type PlanArea, type Point, type Segment } from '@/geometry'
+import { leafBaseOnSeam, leafLayers, PIECES_PER_FOLDED_LEAF, type Leaf, type PlanArea, type Point, type Segment } from '@/geometry'
 import { formatInches } from '@/lib/units'
 import type { BookletModel } from './model'
 
@@ -26,8 +26,8 @@ export interface LeafBatch {
   readonly pieces: number
 }
 
-/** Pieces of fabric in one folded leaf: two, sewn right sides together and turned. */
-export const PIECES_PER_FOLDED_LEAF = 2
+/** Pieces of fabric in one folded leaf: two, sewn right sides together and turned (the core's rule). */
+export { PIECES_PER_FOLDED_LEAF }
 
 /**
  * The folded leaves to make, by fabric and size, in first-seen order: each layer of a stacked leaf

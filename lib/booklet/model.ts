@@ -4,7 +4,7 @@
  */
 import {
   areaUnderLeaf, fabricsOfAreas, IDENTITY, leafNames, planDesign, printedSideTransform, scaleDesign,
-  tryPlaceLeaf, type AffineTransform, type Colorway, type Design, type Leaf, type LeafPlacement, type Plan, type PlanArea,
+  tryPlaceLeaf, UNASSIGNED_FABRIC, type AffineTransform, type Colorway, type Design, type Leaf, type LeafPlacement, type Plan, type PlanArea,
 } from '@/geometry'
 import { SAME_SIZE_INCHES } from '@/geometry/tolerances'
 import type { BookletOptions } from '@/lib/schemas/booklet'
@@ -39,8 +39,8 @@ export interface BookletModel {
   readonly leafNames: ReadonlyMap<string, string>
 }
 
-/** The fabric role for an area nobody filled. */
-export const UNASSIGNED_FABRIC = 'unassigned'
+/** The fabric role for an area nobody filled (the core's rule, geometry/cutting-pieces.ts). */
+export { UNASSIGNED_FABRIC }
 
 /**
  * Builds the booklet's model: scales the design, plans it, picks the colourway and lists the

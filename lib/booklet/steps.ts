@@ -5,15 +5,14 @@
  */
 import type { jsPDF } from 'jspdf'
 import {
-  applyToPolygon, applyTransform, outlineFromPolygon, roughCutBeforeFlip, type JoinTree, type PlanArea, type Point, type Polygon, type Segment,
+  applyToPolygon, applyTransform, berryCutDiameterInches, outlineFromPolygon, roughCutBeforeFlip, type JoinTree, type PlanArea, type Point, type Polygon, type Segment,
 } from '@/geometry'
 import { formatInches } from '@/lib/units'
 import { font } from './chrome'
 import type { BookletContext } from './context'
 import { dashedPen, fitView, rgb, solidPen, toPage, tracePath, tracePolygon } from './draw'
-import { BERRY_EXTRA_INCHES, STEM_OVERLAP_INCHES } from './fabric-list'
 import { startFlow, WRAP_SLACK_PT } from './flow'
-import { bindingPlan, stemSewing } from './finishing'
+import { bindingPlan, stemSewing, stemStrip } from './finishing'
 import { layersInWords, leafBatches, leafName, leafPlace, PIECES_PER_FOLDED_LEAF } from './leaves'
 import { fabricColour, leavesInBooklet, sectionAreas, type BookletModel, type FoundationKind, type LeafInBooklet } from './model'
 
@@ -70,7 +69,9 @@ function stepText(model: BookletModel, area: PlanArea, previous: PlanArea[]): st
   if (area.sewnAlong === null) {
     return [`${area.label}: ${fabric}. Cut ${cut} in. Lay it wrong side to the unprinted side of the paper, right side out, covering ${area.label} with at least 1/4 in to spare all round; pin or glue it in place.`]
   }
-  const neighbours = previous.filter((p) => p.label && sharesLine(p, area.sewnAlong)).map((p) => p.label).join(', ')
+  // Held in a constant: the null check above does not reach into the callback.
+  const sewnAlong = area.sewnAlong
+  const neighbours = previous.filter((p) => p.label && sharesLine(p, sewnAlong)).map((p) => p.label).join(', ')
   const lines = [`${area.label}: ${fabric}. Cut ${cut} in (the first measure runs along the seam). Fold the paper back on the line between ${area.label} and ${neighbours || 'the sewn areas'} and trim the sewn fabric 1/4 in past the fold.`]
   const leaves = leavesInBooklet(model).filter((entry) => entry.catcher?.id === area.id)
   for (const entry of leaves) lines.push(`Then baste ${leafBastingWords(model, entry, area.sewnAlong)}`)
@@ -211,12 +212,12 @@ function writeFinishing(context: BookletContext, flow: ReturnType<typeof startFl
   for (const stem of design.stems) {
     const sewing = stemSewing(stem)
     const trim = sewing.trimAllowance ? ` Trim the seam allowance to less than ${formatInches(stem.finishedWidth)} first, so the strip hides it.` : ''
-    steps.push(`Stem ring (once the repeats are joined): cut bias strips ${formatInches(sewing.cutWidthIn)} wide, about ${formatInches(Math.ceil(2 * Math.PI * stem.radius + STEM_OVERLAP_INCHES))} long in all, join them into one and fold it in half lengthwise, wrong sides together (${formatInches(sewing.foldedWidthIn)} wide). Trace the stem's two solid circles from the placement guide. Lay the strip on the centre side of the inner traced circle, its raw edges toward the outer edge and 1/4 in beyond that circle, and sew 1/4 in from the raw edges, so the stitching runs on the inner traced circle. Press the strip over the seam toward the outer edge: it covers the raw edges and its fold lies on the outer traced circle, ${formatInches(stem.finishedWidth)} from the stitching.${trim} Stitch the fold down by hand.`)
+    steps.push(`Stem ring (once the repeats are joined): cut bias strips ${formatInches(sewing.cutWidthIn)} wide, about ${formatInches(stemStrip(stem).lengthIn)} long in all, join them into one and fold it in half lengthwise, wrong sides together (${formatInches(sewing.foldedWidthIn)} wide). Trace the stem's two solid circles from the placement guide. Lay the strip on the centre side of the inner traced circle, its raw edges toward the outer edge and 1/4 in beyond that circle, and sew 1/4 in from the raw edges, so the stitching runs on the inner traced circle. Press the strip over the seam toward the outer edge: it covers the raw edges and its fold lies on the outer traced circle, ${formatInches(stem.finishedWidth)} from the stitching.${trim} Stitch the fold down by hand.`)
   }
   if (design.curls.length > 0) steps.push('Curling stems: trace them from the placement guide, then embroider them in outline stitch with 2 or 3 strands of floss.')
   steps.push('Layer the top with batting and backing and quilt it.')
   for (const berry of design.berries.slice(0, 1)) {
-    steps.push(`Berries: cut circles ${formatInches(2 * berry.finishedDiameter + BERRY_EXTRA_INCHES)} across (see the templates), run a gathering stitch near the edge, stuff lightly, draw up and stitch each at its mark on the placement guide.`)
+    steps.push(`Berries: cut circles ${formatInches(berryCutDiameterInches(berry.finishedDiameter))} across (see the templates), run a gathering stitch near the edge, stuff lightly, draw up and stitch each at its mark on the placement guide.`)
   }
   const binding = bindingPlan(design)
   const edges = binding.edges.map((edge) => `${edge.stripLengthIn} in for the ${edge.edge} edge`).join(' and ')

@@ -3,12 +3,11 @@
  * the curls and the berries. Templates are symmetric, so they read the same on either side.
  */
 import type { jsPDF } from 'jspdf'
-import { leafLayers, leafShapeProblem, leafTemplate, outlineFromPolygon, pathToPolygon, repeatOutlinePath, smoothCurve, tryPlaceLeafLayers } from '@/geometry'
+import { berryCutDiameterInches, leafLayers, leafShapeProblem, leafTemplate, outlineFromPolygon, pathToPolygon, repeatOutlinePath, smoothCurve, tryPlaceLeafLayers } from '@/geometry'
 import { formatInches, POINTS_PER_INCH } from '@/lib/units'
 import { drawHeader, drawTestSquares, font, HEADER_HEIGHT_PT, TEST_BAND_HEIGHT_PT } from './chrome'
 import { startPage, type BookletContext } from './context'
 import { dashedPen, solidPen, toPage, traceCurve, tracePath, tracePolygon, trueScaleView, type View } from './draw'
-import { BERRY_EXTRA_INCHES } from './fabric-list'
 import { writeTiledDrawing } from './tiled-drawing'
 
 interface Template {
@@ -84,7 +83,7 @@ function berryTemplates(context: BookletContext): Template[] {
   const { design } = context.model
   const diameters = [...new Set(design.berries.map((berry) => labelledSize(berry.finishedDiameter)))]
   return diameters.map((diameter) => {
-    const cut = 2 * diameter + BERRY_EXTRA_INCHES
+    const cut = berryCutDiameterInches(diameter)
     const count = design.berries.filter((b) => labelledSize(b.finishedDiameter) === diameter).length * design.ring.repeats
     return {
       widthIn: cut,
