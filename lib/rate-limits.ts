@@ -74,6 +74,8 @@ function limitersNow(): Limiters {
         tableName: TABLE,
         // The migration made the table: the library must not try DDL at run time.
         tableCreated: true,
+        // Every limiter would delete ended windows from the shared table every 5 minutes; one is enough.
+        clearExpiredByTimeout: name === 'signInPerAddress',
         keyPrefix: name,
         points: RATE_LIMITS[name].points,
         duration: RATE_LIMITS[name].windowSeconds,
