@@ -146,6 +146,8 @@ export function cuttingPieces(design: Design, plan: Plan, options: CuttingPieces
   }
   const filled = fabricsOfAreas(design.fills, plan.areas)
   for (const area of plan.areas) {
+    // An area the allowance code could not size has an empty rough cut and a plan warning saying why.
+    if (!(area.roughCut.widthIn > 0 && area.roughCut.heightIn > 0)) continue
     add(filled.get(area.id) ?? UNASSIGNED_FABRIC, { for: area.label ?? area.id, widthIn: area.roughCut.widthIn, heightIn: area.roughCut.heightIn, count: repeats })
   }
   const leafCounts = new Map<string, number>()

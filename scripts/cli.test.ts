@@ -6,6 +6,7 @@ import fc from 'fast-check'
 import { afterAll, describe, expect, it } from 'vitest'
 import { MAX_DESIGN_FILE_BYTES, MAX_SEAMS, MAX_SECTIONS } from '../lib/limits'
 import { runCli } from './cli'
+import { hollyberryWreath } from './demo-wreath'
 
 const folder = mkdtempSync(join(tmpdir(), 'wreathwright-cli-'))
 let written = 0
@@ -162,5 +163,116 @@ describe('cli plan', () => {
     expect(run.status).toBe(2)
     expect(run.stdout).toBe('')
     expect(run.stderr.trimEnd().split('\n')).toHaveLength(1)
+  })
+})
+
+describe('cli cutting', () => {
+  const cuttingFolder = mkdtempSync(join(tmpdir(), 'wreathwright-cutting-'))
+  afterAll(() => rmSync(cuttingFolder, { recursive: true, force: true }))
+  let count = 0
+  const designFile = (design: unknown): string => {
+    const path = join(cuttingFolder, `design-${(count += 1)}.json`)
+    writeFileSync(path, JSON.stringify(design))
+    return path
+  }
+  const wreath = designFile(hollyberryWreath)
+
+  it("prints the demo wreath's fabric requirements in the issue's shape, exit 0", async () => {
+    const result = await runCli(['cutting', wreath])
+    expect(result.code).toBe(0)
+    expect(result.stderr).toBe('')
+    const json = JSON.parse(result.stdout)
+    expect(Object.keys(json)).toEqual(['colorway', 'widthOfFabricIn', 'extraPercent', 'fabrics', 'leaves', 'stem', 'binding', 'berries', 'problems'])
+    // Defaults: the first colourway, 40 in usable width and 10 % extra (common practice).
+    expect([json.colorway, json.widthOfFabricIn, json.extraPercent]).toEqual([hollyberryWreath.colorways![0]!.name, 40, 10])
+    for (const fabric of json.fabrics) {
+      expect(Object.keys(fabric)).toEqual(['fabric', 'name', 'color', 'pieces', 'cuts', 'lengthIn', 'yards', 'metres', 'fatQuarter', 'fatEighth'])
+      expect(Object.keys(fabric.pieces[0])).toEqual(['for', 'widthIn', 'heightIn', 'count'])
+      expect(Object.keys(fabric.cuts[0])).toEqual(['for', 'xIn', 'yIn', 'widthIn', 'heightIn'])
+      // One cut per piece (counts expanded), each inside the usable width.
+      expect(fabric.cuts).toHaveLength(fabric.pieces.reduce((sum: number, piece: { count: number }) => sum + piece.count, 0))
+      for (const cut of fabric.cuts) expect(cut.xIn >= 0 && cut.xIn + cut.widthIn <= 40).toBe(true)
+      // Yards: length + 10 %, rounded up to 1/8 yd = 4.5 in (common practice).
+      expect(fabric.yards).toBe(Math.ceil((fabric.lengthIn * 1.1) / 4.5) / 8)
+      expect(fabric.name).toBe(fabric.fabric)
+    }
+    // The stem: 2π × its radius + 4 in, cut 2 × 3/8 + 1/2 = 1 1/4 in wide (bias.ts).
+    expect(json.stem).toMatchObject({ fabric: 'stem', cutWidthIn: 1.25 })
+    expect(Object.keys(json.stem)).toEqual(['fabric', 'lengthIn', 'cutWidthIn', 'squareIn'])
+    // The binding of an 18 in ring: 2π × 9 + 10 = 66.5 → 67 in, 2 1/4 in wide (common practice).
+    expect(json.binding).toEqual({ fabric: 'binding', lengthIn: 67, cutWidthIn: 2.25 })
+    expect(json.berries).toEqual([{ fabric: 'berry', count: 24, cutDiameterIn: 1.25 }])
+    expect(json.leaves.every((leaf: { leaves: number; pieces: number }) => leaf.pieces === 2 * leaf.leaves)).toBe(true)
+  })
+
+  it('takes the colourway, the width of fabric and the extra from its options', async () => {
+    const second = hollyberryWreath.colorways![1]?.name ?? hollyberryWreath.colorways![0]!.name
+    const result = await runCli(['cutting', wreath, '--colorway', second, '--width-of-fabric', '20', '--extra=0'])
+    expect(result.code).toBe(0)
+    const json = JSON.parse(result.stdout)
+    expect([json.colorway, json.widthOfFabricIn, json.extraPercent]).toEqual([second, 20, 0])
+    for (const fabric of json.fabrics) {
+      for (const cut of fabric.cuts) expect(cut.xIn + cut.widthIn).toBeLessThanOrEqual(20)
+      expect(fabric.yards).toBe(Math.ceil(fabric.lengthIn / 4.5) / 8)
+    }
+  })
+
+  it('lists a piece too wide for the fabric as a problem and still exits 0', async () => {
+    const result = await runCli(['cutting', wreath, '--width-of-fabric', '2'])
+    expect(result.code).toBe(0)
+    const json = JSON.parse(result.stdout)
+    expect(json.problems.length).toBeGreaterThan(0)
+    expect(json.problems[0]).toMatchObject({ code: 'piece-too-wide' })
+    expect(json.problems[0].message).toMatch(/wider than the usable width of 2 in/)
+  })
+
+  it('lists every stem ring when a design has several', async () => {
+    const twoStems = { ...hollyberryWreath, stems: [{ radius: 7, finishedWidth: 0.375, fabric: 'stem' }, { radius: 5, finishedWidth: 0.25, fabric: 'vine' }] }
+    const json = JSON.parse((await runCli(['cutting', designFile(twoStems)])).stdout)
+    expect(json.stems.map((stem: { fabric: string }) => stem.fabric)).toEqual(['stem', 'vine'])
+    expect(json.stem).toEqual(json.stems[0])
+  })
+
+  it('exits 2 with one line for an unknown colourway, a bad width or extra, an unknown option or a missing file', async () => {
+    const cases: [string[], RegExp][] = [
+      [['cutting', wreath, '--colorway', 'Nope'], /no colourway named "Nope"/],
+      [['cutting', wreath, '--width-of-fabric', '-3'], /--width-of-fabric must be a positive number/],
+      [['cutting', wreath, '--width-of-fabric', '0'], /--width-of-fabric must be a positive number/],
+      [['cutting', wreath, '--width-of-fabric', 'wide'], /--width-of-fabric must be a positive number/],
+      [['cutting', wreath, '--extra', '-1'], /--extra must be a percentage/],
+      [['cutting', wreath, '--extra', 'NaN'], /--extra must be a percentage/],
+      [['cutting', wreath, '--paper', 'a4'], /unknown option --paper/],
+      [['cutting', wreath, '--extra', '5', '--extra', '6'], /given twice/],
+      [['cutting'], /usage: cli cutting/],
+      [['cutting', join(cuttingFolder, 'missing.json')], /cannot read/],
+      [['cutting', designFile({ ...hollyberryWreath, version: 7 })], /not a valid design/],
+    ]
+    for (const [argv, message] of cases) {
+      const result = await runCli(argv)
+      expect(result.code, argv.join(' ')).toBe(2)
+      expect(result.stdout).toBe('')
+      expect(result.stderr.trimEnd().split('\n')).toHaveLength(1)
+      expect(result.stderr).toMatch(message)
+    }
+  })
+
+  it('never crashes on random seams: exit 0 with every cut inside the width', async () => {
+    const point = fc.tuple(fc.double({ min: -20, max: 20, noNaN: true }), fc.double({ min: -20, max: 20, noNaN: true }))
+    await fc.assert(
+      fc.asyncProperty(fc.array(fc.tuple(point, point), { maxLength: 6 }), fc.integer({ min: 2, max: 36 }), async (pairs, repeats) => {
+        const design = { ...valid, ring: { ...valid.ring, repeats }, seams: pairs.map(([from, to], i) => ({ id: `s${i}`, from, to })), leaves: [] }
+        const result = await runCli(['cutting', designFile(design)])
+        expect(result.code, result.stderr).toBe(0)
+        const json = JSON.parse(result.stdout)
+        for (const fabric of json.fabrics) for (const cut of fabric.cuts) expect(cut.xIn + cut.widthIn).toBeLessThanOrEqual(40)
+      }),
+      { numRuns: 60 },
+    )
+  })
+
+  it('as a real process: JSON on stdout, exit 0', () => {
+    const run = spawnSync(process.execPath, ['--import', 'tsx', 'scripts/cli.ts', 'cutting', wreath, '--extra', '0'], { encoding: 'utf8', cwd: join(import.meta.dirname, '..') })
+    expect(run.status).toBe(0)
+    expect(JSON.parse(run.stdout).extraPercent).toBe(0)
   })
 })

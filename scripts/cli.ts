@@ -8,6 +8,7 @@
 import { pathToFileURL } from 'node:url'
 import { planDesign } from '../geometry/plan'
 import { DesignFileError, readDesignFile } from './design-file'
+import { runCuttingCommand } from './cutting-command'
 import { runPdfCommand } from './pdf-command'
 
 /** An error meant for the user: printed as one line, exit 2. */
@@ -43,7 +44,10 @@ async function pdf(args: readonly string[]): Promise<CliResult> {
   return { code, stdout, stderr }
 }
 
-const commands: Record<string, (args: readonly string[]) => CliResult | Promise<CliResult>> = { plan, pdf }
+/** What to buy and how to cut it (`cutting <design.json> [--colorway NAME] …`), see scripts/cutting-command.ts. */
+const cutting = (args: readonly string[]): Promise<CliResult> => runCuttingCommand(args)
+
+const commands: Record<string, (args: readonly string[]) => CliResult | Promise<CliResult>> = { plan, pdf, cutting }
 
 /**
  * Runs one command line (without `node` and the script) and returns its exit code and output.
