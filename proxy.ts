@@ -28,7 +28,20 @@ export function proxy(request: NextRequest): NextResponse {
 }
 
 export const config = {
-  // Everything but the build's hashed static files and the image optimizer (next.config.mjs gives those
-  // their fixed headers).
-  matcher: ['/((?!_next/static|_next/image).*)'],
+  matcher: [
+    {
+      // Everything but the build's hashed static files and the image optimizer (next.config.mjs gives
+      // those their fixed headers).
+      source: '/((?!_next/static|_next/image).*)',
+      // Never a request that carries a body. For each request the proxy sees, Next.js reads the
+      // whole body first (to hand the proxy a copy, up to 10 MB, the rest read and dropped), before
+      // any route runs: a route could then no longer refuse a large body unread (lib/http.ts), and
+      // a socket announcing 50 MB would wait for all of it. Pages and API reads are GETs without a
+      // body, so they keep their headers; API answers to writes keep next.config.mjs's fixed ones.
+      missing: [
+        { type: 'header', key: 'content-length' },
+        { type: 'header', key: 'transfer-encoding' },
+      ],
+    },
+  ],
 }

@@ -1,6 +1,7 @@
 import { z } from 'zod'
 import { checkSession, sessionIdFromRequest, type CurrentUser } from '@/lib/auth/session'
 import { originSettings, type OriginSettings } from '@/lib/env'
+import { MAX_DESIGN_BYTES } from '@/lib/limits'
 import {
   ConflictError,
   ServiceError,
@@ -32,11 +33,10 @@ export const BODY_LIMITS = {
   /** A small form: a name, a sign-in or sign-up, a state change. */
   form: 16 * 1024,
   /**
-   * A pattern with its design. The design schema's limits (seams, leaves, curls and their points,
-   * string lengths) keep the largest allowed design well under this; 4 MiB also leaves room for
-   * pretty-printed JSON.
+   * A pattern with its design: the largest design the schema accepts, as JSON.stringify writes it
+   * (lib/limits.ts, about 3.2 MB), plus a form's room for the other fields.
    */
-  design: 4 * 1024 * 1024,
+  design: MAX_DESIGN_BYTES + 16 * 1024,
 } as const
 
 const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS'])
@@ -79,20 +79,14 @@ type BodyOf<Schema> = Schema extends z.ZodType ? z.output<Schema> : undefined
 
 type Handler<Params, S extends SessionRule, Resource, Body> = (context: RouteContext<Params, S, Resource, Body>) => Promise<Response>
 
-/** Refusals of the request's form rather than its meaning. */
-class RequestError extends ServiceError {
-  constructor(
-    message: string,
-    status: number,
-    /** Close the connection after answering, rather than reading the rest of the body to keep it. */
-    readonly closeConnection = false,
-  ) {
-    super(message, status)
-  }
+function tooLarge(limit: number): ServiceError {
+  return new ServiceError(`The request body is larger than this address accepts (${limit} bytes).`, 413)
 }
 
-function tooLarge(limit: number): RequestError {
-  return new RequestError(`The request body is larger than this address accepts (${limit} bytes).`, 413, true)
+/** Whether the request carries a body (announced, or chunked without a length). */
+function hasBody(request: Request): boolean {
+  const length = request.headers.get('content-length')
+  return (length !== null && length.trim() !== '0') || request.headers.has('transfer-encoding')
 }
 
 /** The first value of a header a proxy may have written as a list (`a, b`). */
@@ -172,20 +166,24 @@ function isJsonContentType(header: string | null): boolean {
 }
 
 /**
- * Step 5: reads a JSON body within the limit and checks it against a schema: another content type
- * is a 415, malformed JSON a 400, a body that does not fit the schema a 422 naming each field.
+ * Step 5: the body read whole within the limit, as JSON: another content type is a 415, more than
+ * the limit a 413, malformed JSON (or not UTF-8) a 400. Calls `onRead` once every byte is in.
  */
-async function parseBody<Schema extends z.ZodType>(request: Request, limit: number, schema: Schema): Promise<z.output<Schema>> {
+async function readJson(request: Request, limit: number, onRead: () => void): Promise<unknown> {
   if (!isJsonContentType(request.headers.get('content-type'))) {
-    throw new RequestError('Send the request body as JSON (Content-Type: application/json).', 415)
+    throw new ServiceError('Send the request body as JSON (Content-Type: application/json).', 415)
   }
   const bytes = await readLimited(request, limit)
-  let body: unknown
+  onRead()
   try {
-    body = JSON.parse(new TextDecoder('utf-8', { fatal: true }).decode(bytes))
+    return JSON.parse(new TextDecoder('utf-8', { fatal: true }).decode(bytes))
   } catch {
     throw new ServiceError('The request body is not valid JSON.', 400)
   }
+}
+
+/** Checks a body against a schema: a 422 naming each field that does not fit. */
+function checkBody<Schema extends z.ZodType>(body: unknown, schema: Schema): z.output<Schema> {
   const parsed = schema.safeParse(body)
   if (!parsed.success) throw new ValidationError(fieldIssues(parsed.error))
   return parsed.data
@@ -204,10 +202,11 @@ export function route<Param extends string = never, S extends SessionRule = Sess
   return async (request: Request, context?: { params?: Promise<Params> }): Promise<Response> => {
     let response: Response
     let setCookie: string | null = null
+    let bodyRead = false
     try {
       checkAnnouncedSize(request, spec.bodyLimit)
       if (!SAFE_METHODS.has(request.method) && !isSameOrigin(request)) {
-        throw new RequestError('This request did not come from a Wreathwright page.', 403)
+        throw new ServiceError('This request did not come from a Wreathwright page.', 403)
       }
       const check = await checkSession(sessionIdFromRequest(request))
       setCookie = check.setCookie
@@ -217,16 +216,19 @@ export function route<Param extends string = never, S extends SessionRule = Sess
       const resource = (spec.permit ? await spec.permit({ request, user, params }) : undefined) as Resource
       let body: BodyOf<Schema>
       if (spec.body) {
-        body = (await parseBody(request, spec.bodyLimit, spec.body)) as BodyOf<Schema>
+        body = checkBody(await readJson(request, spec.bodyLimit, () => (bodyRead = true)), spec.body) as BodyOf<Schema>
       } else {
         // No body expected: whatever came (chunked, without a length) must still fit the small limit.
         await readLimited(request, spec.bodyLimit)
+        bodyRead = true
         body = undefined as BodyOf<Schema>
       }
       response = await handler({ request, user, params, sessionId: check.session?.id ?? null, resource, body })
     } catch (error) {
       response = errorResponse(error)
-      if (error instanceof RequestError && error.closeConnection) response.headers.set('connection', 'close')
+      // Refused before its body was read whole (too large, a stranger, no permission): close the
+      // connection after the answer instead of letting the server read the rest to keep it open.
+      if (!bodyRead && hasBody(request)) response.headers.set('connection', 'close')
     }
     if (setCookie && !response.headers.has('set-cookie')) response.headers.append('set-cookie', setCookie)
     return response

@@ -12,6 +12,10 @@ export interface CallOptions<Params> {
   cookie?: string
   /** The Origin header; defaults to this site's. Pass null to send none. */
   origin?: string | null
+  /** Further headers, set last (e.g. `content-type`, `content-length`, `x-forwarded-host`). */
+  headers?: Record<string, string>
+  /** A body stream instead of `body`/`rawBody`, sent as is (without a length unless `headers` gives one). */
+  stream?: ReadableStream<Uint8Array>
   params?: Params
 }
 
@@ -23,8 +27,11 @@ export async function call<Params = Record<string, never>>(handler: Handler<Para
   let body: string | undefined
   if (options.rawBody !== undefined) body = options.rawBody
   else if (options.body !== undefined) body = JSON.stringify(options.body)
-  if (body !== undefined) headers.set('content-type', 'application/json')
-  const request = new Request(`${TEST_ORIGIN}${options.path ?? '/'}`, { method, headers, body })
+  if (body !== undefined || options.stream) headers.set('content-type', 'application/json')
+  for (const [name, value] of Object.entries(options.headers ?? {})) headers.set(name, value)
+  // `duplex` is required by fetch for a stream body but missing from the DOM RequestInit type.
+  const init = { method, headers, body: options.stream ?? body, duplex: 'half' } as RequestInit
+  const request = new Request(`${TEST_ORIGIN}${options.path ?? '/'}`, init)
   const response = await handler(request, { params: Promise.resolve((options.params ?? {}) as Params) })
   const text = await response.text()
   // Tests read any field of a response body and check it with expect(), so the body stays loosely typed.
