@@ -1,6 +1,6 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { layoutStrips, type PieceToCut, type StripLayout } from './strip-layout'
+import { firstFitDecreasingHeightInches, layoutStrips, type PieceToCut, type StripLayout } from './strip-layout'
 
 /** Floating-point noise on sums of sides (leaf pieces are not multiples of 1/8 in). */
 const NOISE_INCHES = 1e-9
@@ -126,6 +126,16 @@ describe('layoutStrips', () => {
     const layout = layoutStrips(pieces, { widthOfFabricIn: 40 })
     // 6 × 6 in across one 3 1/2 in strip (36 in); 16 squares across one 2 1/2 in strip (40 in): 6 in.
     expect(layout.lengthIn).toBe(6)
+    checkLayout(layout, pieces, 40)
+  })
+
+  it('turns the last pieces into one strip rather than leave one piece a strip of its own', () => {
+    const pieces = [{ for: 'A3', widthIn: 5.5, heightIn: 3.125, count: 8 }]
+    const layout = layoutStrips(pieces, { widthOfFabricIn: 40 })
+    // Lying flat, 7 fit across (7 × 5.5 = 38.5 in) and the eighth needs a second 3 1/8 in strip: 6.25 in.
+    // Turned, all 8 lie 3 1/8 in across (25 in) in one 5 1/2 in strip: 5.5 in.
+    expect(firstFitDecreasingHeightInches(pieces, { widthOfFabricIn: 40 })).toBe(6.25)
+    expect(layout.lengthIn).toBe(5.5)
     checkLayout(layout, pieces, 40)
   })
 

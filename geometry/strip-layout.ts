@@ -10,8 +10,10 @@
  * The layout also builds strips one at a time, trying every strip height a remaining piece offers
  * and filling each strip column by column, every column from the width that fills it best (pieces
  * of one size stack in one column, as a maker batches them); it keeps the strip that wastes the
- * least. Two such greedy orders run beside the floor and the shortest layout wins, so the result is
- * never longer than first-fit decreasing height.
+ * least, or (a second order) the strip that leaves the least for first-fit decreasing height to cut
+ * after it; a third cuts each strip as tall as the tallest piece left. The three greedy orders run
+ * beside the floor and the shortest layout wins, so the result is never longer than first-fit
+ * decreasing height.
  *
  * A piece wider than the usable width whichever way it is turned cannot be cut from it: it is
  * left out and reported as a problem in plain words, never an exception.
@@ -80,6 +82,8 @@ interface Kind {
   readonly area: number
   /** One entry per piece: its `for` and whether it was asked for long side along the length. */
   readonly asked: readonly { readonly for: string; readonly longAlong: boolean }[]
+  /** The ways it lies within the width, widest across first (lying flat, when it can). */
+  readonly orientations: readonly Orientation[]
 }
 
 /** A kind in one orientation: `across` the width, `along` the length. */
@@ -106,37 +110,56 @@ interface StripPlan {
 
 const fits = (size: number, room: number): boolean => size <= room + CUT_FIT_SLACK_INCHES
 
-function orientationsOf(kind: Kind, width: number): Orientation[] {
+function orientationsOf(long: number, short: number, width: number): Orientation[] {
   const result: Orientation[] = []
-  if (fits(kind.long, width)) result.push({ across: kind.long, along: kind.short, longAlong: false })
-  if (kind.long !== kind.short && fits(kind.short, width)) result.push({ across: kind.short, along: kind.long, longAlong: true })
+  if (fits(long, width)) result.push({ across: long, along: short, longAlong: false })
+  if (long !== short && fits(short, width)) result.push({ across: short, along: long, longAlong: true })
   return result
+}
+
+/** Pieces of one kind and orientation stacked in a column. */
+interface Run {
+  readonly kind: number
+  readonly orientation: Orientation
+  readonly count: number
 }
 
 /**
  * Stacks pieces into a column `columnWidth` across and `height` along: largest pieces first, each
- * the way round that lies widest in the column (so the most of it stack), as many as fit.
+ * the way round that lies widest in the column (so the most of it stack), as many as fit. Counts
+ * only; `placeColumn` turns the chosen column into placements.
  */
-function stackColumn(kinds: readonly Kind[], remaining: readonly number[], columnWidth: number, height: number, width: number, x: number): { placements: Placement[]; area: number; top: number } {
-  const placements: Placement[] = []
-  const taken = new Map<number, number>()
+function stackColumn(kinds: readonly Kind[], remaining: readonly number[], columnWidth: number, height: number): { runs: Run[]; area: number; top: number } {
+  const runs: Run[] = []
   let top = 0
   let area = 0
   for (let k = 0; k < kinds.length; k += 1) {
+    let left = remaining[k]!
+    if (left <= 0) continue
     const kind = kinds[k]!
-    const options = orientationsOf(kind, width).filter((o) => fits(o.across, columnWidth)).sort((a, b) => b.across - a.across)
-    for (const orientation of options) {
-      let left = remaining[k]! - (taken.get(k) ?? 0)
-      while (left > 0 && fits(top + orientation.along, height)) {
-        placements.push({ kind: k, orientation, x, y: top })
-        top += orientation.along
-        area += kind.area
-        taken.set(k, (taken.get(k) ?? 0) + 1)
-        left -= 1
-      }
+    for (const orientation of kind.orientations) {
+      if (left <= 0 || !fits(orientation.across, columnWidth)) continue
+      const count = Math.min(left, Math.floor((height - top + CUT_FIT_SLACK_INCHES) / orientation.along))
+      if (count <= 0) continue
+      runs.push({ kind: k, orientation, count })
+      top += count * orientation.along
+      area += count * kind.area
+      left -= count
     }
   }
-  return { placements, area, top }
+  return { runs, area, top }
+}
+
+function placeColumn(runs: readonly Run[], x: number): Placement[] {
+  const placements: Placement[] = []
+  let y = 0
+  for (const run of runs) {
+    for (let i = 0; i < run.count; i += 1) {
+      placements.push({ kind: run.kind, orientation: run.orientation, x, y })
+      y += run.orientation.along
+    }
+  }
+  return placements
 }
 
 /**
@@ -154,20 +177,20 @@ function fillStrip(kinds: readonly Kind[], remaining: readonly number[], height:
     const widths = new Set<number>()
     kinds.forEach((kind, k) => {
       if (left[k]! <= 0) return
-      for (const o of orientationsOf(kind, width)) if (fits(o.across, room) && fits(o.along, height)) widths.add(o.across)
+      for (const o of kind.orientations) if (fits(o.across, room) && fits(o.along, height)) widths.add(o.across)
     })
     let best: { column: ReturnType<typeof stackColumn>; columnWidth: number; score: number } | null = null
     for (const columnWidth of widths) {
-      const column = stackColumn(kinds, left, columnWidth, height, width, x)
-      if (column.placements.length === 0) continue
+      const column = stackColumn(kinds, left, columnWidth, height)
+      if (column.runs.length === 0) continue
       const score = column.area / (columnWidth * height)
       if (!best || score > best.score + CUT_FIT_SLACK_INCHES || (Math.abs(score - best.score) <= CUT_FIT_SLACK_INCHES && columnWidth > best.columnWidth)) {
         best = { column, columnWidth, score }
       }
     }
     if (!best) break
-    for (const placement of best.column.placements) left[placement.kind]! -= 1
-    placements.push(...best.column.placements)
+    for (const run of best.column.runs) left[run.kind]! -= run.count
+    placements.push(...placeColumn(best.column.runs, x))
     area += best.column.area
     top = Math.max(top, best.column.top)
     x += best.columnWidth
@@ -176,39 +199,50 @@ function fillStrip(kinds: readonly Kind[], remaining: readonly number[], height:
 }
 
 /** Heights a strip can usefully have: every side of a remaining piece that can lie along the length. */
-function stripHeights(kinds: readonly Kind[], remaining: readonly number[], width: number): number[] {
+function stripHeights(kinds: readonly Kind[], remaining: readonly number[]): number[] {
   const heights = new Set<number>()
   kinds.forEach((kind, k) => {
-    if (remaining[k]! > 0) for (const o of orientationsOf(kind, width)) heights.add(o.along)
+    if (remaining[k]! > 0) for (const o of kind.orientations) heights.add(o.along)
   })
   return [...heights].sort((a, b) => b - a)
 }
 
-type Strategy = 'least-waste' | 'tallest-first'
+type Strategy = 'least-waste' | 'look-ahead' | 'tallest-first'
 
 /**
  * Strips one at a time until every piece is placed. `least-waste` tries every height and keeps
- * the strip with the least waste per inch of length (taller on a tie); `tallest-first` cuts each
- * strip as tall as the tallest remaining piece lying flat needs, and fills it.
+ * the strip with the least waste per inch of length (taller on a tie); `look-ahead` tries every
+ * height too, but keeps the strip whose height plus first-fit decreasing height's length for the
+ * pieces it leaves is least (so a last strip that takes everything left, turned, beats one that
+ * leaves a single piece for a strip of its own); `tallest-first` cuts each strip as tall as the
+ * tallest remaining piece lying flat needs, and fills it.
  */
 function greedyStrips(kinds: readonly Kind[], width: number, strategy: Strategy): StripPlan[] {
   const remaining = kinds.map((kind) => kind.asked.length)
   const strips: StripPlan[] = []
   while (remaining.some((count) => count > 0)) {
-    let heights = stripHeights(kinds, remaining, width)
+    let heights = stripHeights(kinds, remaining)
     if (strategy === 'tallest-first') {
-      const flat = kinds.flatMap((kind, k) => (remaining[k]! > 0 ? [orientationsOf(kind, width)[0]!.along] : []))
+      const flat = kinds.flatMap((kind, k) => (remaining[k]! > 0 ? [kind.orientations[0]!.along] : []))
       heights = [Math.max(...flat)]
     }
     let best: StripPlan | null = null
     let bestScore = -1
+    let bestLength = Number.POSITIVE_INFINITY
     for (const height of heights) {
       const strip = fillStrip(kinds, remaining, height, width)
       if (strip.placements.length === 0) continue
       const score = strip.area / (width * strip.height)
-      if (score > bestScore + CUT_FIT_SLACK_INCHES) {
+      let length = 0
+      if (strategy === 'look-ahead') {
+        const left = [...remaining]
+        for (const placement of strip.placements) left[placement.kind]! -= 1
+        length = strip.height + totalHeight(firstFitDecreasingHeight(kinds, width, left))
+      }
+      if (length < bestLength - CUT_FIT_SLACK_INCHES || (length <= bestLength + CUT_FIT_SLACK_INCHES && score > bestScore + CUT_FIT_SLACK_INCHES)) {
         best = strip
         bestScore = score
+        bestLength = length
       }
     }
     if (!best) break
@@ -218,11 +252,13 @@ function greedyStrips(kinds: readonly Kind[], width: number, strategy: Strategy)
   return strips
 }
 
+const totalHeight = (strips: readonly StripPlan[]): number => strips.reduce((sum, strip) => sum + strip.height, 0)
+
 /** First-fit decreasing height: every piece lying flat, tallest first, on the first shelf it fits. */
-function firstFitDecreasingHeight(kinds: readonly Kind[], width: number): StripPlan[] {
+function firstFitDecreasingHeight(kinds: readonly Kind[], width: number, counts: readonly number[] = kinds.map((kind) => kind.asked.length)): StripPlan[] {
   const items = kinds.flatMap((kind, k) => {
-    const orientation = orientationsOf(kind, width)[0]!
-    return kind.asked.map(() => ({ kind: k, orientation }))
+    const orientation = kind.orientations[0]!
+    return Array.from({ length: Math.max(0, counts[k]!) }, () => ({ kind: k, orientation }))
   })
   items.sort((a, b) => b.orientation.along - a.orientation.along || b.orientation.across - a.orientation.across || a.kind - b.kind)
   const shelves: { height: number; x: number; placements: Placement[]; area: number }[] = []
@@ -239,18 +275,8 @@ function firstFitDecreasingHeight(kinds: readonly Kind[], width: number): StripP
   return shelves.map(({ height, placements, area }) => ({ height, placements, area }))
 }
 
-const totalHeight = (strips: readonly StripPlan[]): number => strips.reduce((sum, strip) => sum + strip.height, 0)
-
-/**
- * Lays out pieces on fabric `widthOfFabricIn` wide in strips cut across the width (see the file
- * comment). Deterministic: the same pieces in the same order give the same layout.
- *
- * @example layoutStrips([{ for: 'A1', widthIn: 3, heightIn: 4, count: 40 }], { widthOfFabricIn: 40 }).lengthIn // 12: 4 strips 3 in tall, 10 pieces turned 4 in across in each
- */
-export function layoutStrips(pieces: readonly PieceToCut[], options: StripLayoutOptions): StripLayout {
-  const width = options.widthOfFabricIn
-  if (!(width > 0) || !Number.isFinite(width)) throw new RangeError(`the usable width must be a positive length, got ${width}`)
-  const problems: CuttingProblem[] = []
+/** Pieces merged by size (long × short), largest first; a piece too wide either way becomes a problem instead. */
+function kindsOf(pieces: readonly PieceToCut[], width: number, problems: CuttingProblem[]): Kind[] {
   const bySize = new Map<string, { long: number; short: number; asked: { for: string; longAlong: boolean }[] }>()
   for (const piece of pieces) {
     if (!(piece.widthIn > 0) || !(piece.heightIn > 0) || !Number.isFinite(piece.widthIn) || !Number.isFinite(piece.heightIn)) {
@@ -273,16 +299,40 @@ export function layoutStrips(pieces: readonly PieceToCut[], options: StripLayout
     bySize.set(key, entry)
   }
   // Largest first: columns stack the big pieces before the small ones fill the gaps.
-  const kinds: Kind[] = [...bySize.values()]
-    .map((entry) => ({ ...entry, area: entry.long * entry.short }))
+  return [...bySize.values()]
+    .map((entry) => ({ ...entry, area: entry.long * entry.short, orientations: orientationsOf(entry.long, entry.short, width) }))
     .sort((a, b) => b.area - a.area || b.long - a.long)
+}
+
+/**
+ * The length first-fit decreasing height alone takes (the floor the layout never exceeds), for the
+ * bench's comparison; pieces too wide are left out.
+ *
+ * @example firstFitDecreasingHeightInches([{ for: 'A1', widthIn: 3, heightIn: 4, count: 40 }], { widthOfFabricIn: 40 }) // 12
+ */
+export function firstFitDecreasingHeightInches(pieces: readonly PieceToCut[], options: StripLayoutOptions): number {
+  return totalHeight(firstFitDecreasingHeight(kindsOf(pieces, options.widthOfFabricIn, []), options.widthOfFabricIn))
+}
+
+/**
+ * Lays out pieces on fabric `widthOfFabricIn` wide in strips cut across the width (see the file
+ * comment). Deterministic: the same pieces in the same order give the same layout.
+ *
+ * @example layoutStrips([{ for: 'A1', widthIn: 3, heightIn: 4, count: 40 }], { widthOfFabricIn: 40 }).lengthIn // 12: 4 strips 3 in tall, 10 pieces turned 4 in across in each
+ */
+export function layoutStrips(pieces: readonly PieceToCut[], options: StripLayoutOptions): StripLayout {
+  const width = options.widthOfFabricIn
+  if (!(width > 0) || !Number.isFinite(width)) throw new RangeError(`the usable width must be a positive length, got ${width}`)
+  const problems: CuttingProblem[] = []
+  const kinds = kindsOf(pieces, width, problems)
   const candidates = [
     firstFitDecreasingHeight(kinds, width),
     greedyStrips(kinds, width, 'least-waste'),
+    greedyStrips(kinds, width, 'look-ahead'),
     greedyStrips(kinds, width, 'tallest-first'),
   ]
-  // The shortest; the least-waste greedy, then tallest-first, before the floor on a tie.
-  const order = [1, 2, 0]
+  // The shortest; on a tie the least-waste greedy, then look-ahead, then tallest-first, then the floor.
+  const order = [1, 2, 3, 0]
   const chosen = order.map((i) => candidates[i]!).reduce((best, next) => (totalHeight(next) < totalHeight(best) - CUT_FIT_SLACK_INCHES ? next : best))
   // Hand out what each piece is for, in the order the pieces were asked for, strip by strip.
   const nextAsked = kinds.map(() => 0)
@@ -307,7 +357,7 @@ export function layoutStrips(pieces: readonly PieceToCut[], options: StripLayout
     y += strip.height
   }
   const pieceAreaSqIn = kinds.reduce((sum, kind) => sum + kind.area * kind.asked.length, 0)
-  const tallest = kinds.reduce((most, kind) => Math.max(most, kind.asked.length > 0 ? orientationsOf(kind, width)[0]!.along : 0), 0)
+  const tallest = kinds.reduce((most, kind) => Math.max(most, kind.asked.length > 0 ? kind.orientations[0]!.along : 0), 0)
   return {
     widthOfFabricIn: width,
     strips,

@@ -67,6 +67,9 @@ export function metresToBuy(lengthInches: number, extraPercent = DEFAULT_EXTRA_P
  */
 export function fitsOnPrecut(pieces: readonly PieceToCut[], precut: Precut): boolean {
   if (!pieces.some((piece) => piece.count > 0)) return true
+  // More area than the precut has cannot fit: decided without a layout (most yardage fabrics).
+  const area = pieces.reduce((sum, piece) => sum + Math.max(piece.count, 0) * piece.widthIn * piece.heightIn, 0)
+  if (area > precut.widthIn * precut.lengthIn + CUT_FIT_SLACK_INCHES) return false
   return [[precut.widthIn, precut.lengthIn], [precut.lengthIn, precut.widthIn]].some(([across, along]) => {
     const layout = layoutStrips(pieces, { widthOfFabricIn: across! })
     return layout.problems.length === 0 && layout.lengthIn <= along! + CUT_FIT_SLACK_INCHES

@@ -85,3 +85,7 @@ for (const [kind, design] of designs) {
 }
 console.log(rows.join('\n'))
 console.log(`\n${RUNS} runs each, plan and split alternating, after ${WARM_UP_RUNS} warm-up runs; goal: 40 areas under 10 ms median, ratio under 3×.`)
+
+// Cutting layouts: length over the lower bound for the demo patterns and 160-area rings.
+console.log('')
+await import('./bench-cutting')
