@@ -86,6 +86,13 @@ describe('a designer drafts a ring on the board', () => {
     }
     await expect.poll(async () => (await boardDesign(page)).leaves[0]?.layerOffsets).toEqual([{}, { turn: -15, scale: 0.8 }])
 
+    // Spreading the leaf colours with one leaf per repeat: each leaf sits beside its own copies,
+    // and the fabric panel says why nothing could alternate; the leaf keeps its layers.
+    const leafBeforeSpread = (await boardDesign(page)).leaves[0]
+    await page.getByRole('button', { name: 'Spread the leaf colours' }).click()
+    await expect.poll(() => page.getByRole('status', { name: 'Leaf colours' }).innerText()).toMatch(/one leaf in each repeat|one fabric/)
+    expect((await boardDesign(page)).leaves[0]).toEqual(leafBeforeSpread)
+
     // Fill two areas: the centre with the background, the band with a new fabric.
     await page.getByRole('button', { name: 'Fill with background' }).click()
     await clickAt(page, [2, 1])
