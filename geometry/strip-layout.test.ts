@@ -139,6 +139,13 @@ describe('layoutStrips', () => {
     checkLayout(layout, pieces, 40)
   })
 
+  it('cuts thousands of pieces of one size strip by strip (400 berries × 36 repeats)', () => {
+    const layout = layoutStrips([{ for: 'berry', widthIn: 1.25, heightIn: 1.25, count: 14_400 }], { widthOfFabricIn: 40 })
+    // 40 / 1.25 = 32 squares across each 1 1/4 in strip; 14,400 / 32 = 450 strips × 1.25 in = 562.5 in.
+    expect(layout.lengthIn).toBe(562.5)
+    expect(layout.cuts).toHaveLength(14_400)
+  })
+
   it('passes the independent checker and never loses to first-fit decreasing height (random pieces)', () => {
     const eighths = (min: number, max: number) => fc.integer({ min: min * 8, max: max * 8 }).map((n) => n / 8)
     const piece = fc.record({ for: fc.constantFrom('A1', 'A2', 'B1', 'leaf', 'berry'), widthIn: eighths(0.5, 24), heightIn: eighths(0.5, 24), count: fc.integer({ min: 1, max: 8 }) })

@@ -237,7 +237,7 @@ function greedyStrips(kinds: readonly Kind[], width: number, strategy: Strategy)
       if (strategy === 'look-ahead') {
         const left = [...remaining]
         for (const placement of strip.placements) left[placement.kind]! -= 1
-        length = strip.height + totalHeight(firstFitDecreasingHeight(kinds, width, left))
+        length = strip.height + firstFitDecreasingLength(kinds, width, left)
       }
       if (length < bestLength - CUT_FIT_SLACK_INCHES || (length <= bestLength + CUT_FIT_SLACK_INCHES && score > bestScore + CUT_FIT_SLACK_INCHES)) {
         best = strip
@@ -254,25 +254,56 @@ function greedyStrips(kinds: readonly Kind[], width: number, strategy: Strategy)
 
 const totalHeight = (strips: readonly StripPlan[]): number => strips.reduce((sum, strip) => sum + strip.height, 0)
 
-/** First-fit decreasing height: every piece lying flat, tallest first, on the first shelf it fits. */
-function firstFitDecreasingHeight(kinds: readonly Kind[], width: number, counts: readonly number[] = kinds.map((kind) => kind.asked.length)): StripPlan[] {
-  const items = kinds.flatMap((kind, k) => {
-    const orientation = kind.orientations[0]!
-    return Array.from({ length: Math.max(0, counts[k]!) }, () => ({ kind: k, orientation }))
-  })
-  items.sort((a, b) => b.orientation.along - a.orientation.along || b.orientation.across - a.orientation.across || a.kind - b.kind)
-  const shelves: { height: number; x: number; placements: Placement[]; area: number }[] = []
-  for (const item of items) {
-    let shelf = shelves.find((candidate) => fits(item.orientation.along, candidate.height) && fits(candidate.x + item.orientation.across, width))
-    if (!shelf) {
-      shelf = { height: item.orientation.along, x: 0, placements: [], area: 0 }
-      shelves.push(shelf)
+interface Shelf {
+  readonly height: number
+  x: number
+  area: number
+  readonly runs: (Run & { readonly x: number })[]
+}
+
+/**
+ * First-fit decreasing height: every piece lying flat, tallest first, on the first shelf it fits.
+ * Pieces of one kind go as runs (a shelf takes as many as have room at once), which is the same
+ * as placing them one by one, since a shelf too full for one is too full for the next.
+ */
+function firstFitDecreasingShelves(kinds: readonly Kind[], width: number, counts: readonly number[]): Shelf[] {
+  const order = kinds.map((kind, k) => ({ k, orientation: kind.orientations[0]! }))
+    .sort((a, b) => b.orientation.along - a.orientation.along || b.orientation.across - a.orientation.across || a.k - b.k)
+  const shelves: Shelf[] = []
+  for (const { k, orientation } of order) {
+    let left = Math.max(0, counts[k]!)
+    const take = (shelf: Shelf): void => {
+      const count = Math.min(left, Math.floor((width - shelf.x + CUT_FIT_SLACK_INCHES) / orientation.across))
+      if (count <= 0) return
+      shelf.runs.push({ kind: k, orientation, count, x: shelf.x })
+      shelf.x += count * orientation.across
+      shelf.area += count * kinds[k]!.area
+      left -= count
     }
-    shelf.placements.push({ kind: item.kind, orientation: item.orientation, x: shelf.x, y: 0 })
-    shelf.x += item.orientation.across
-    shelf.area += kinds[item.kind]!.area
+    for (const shelf of shelves) {
+      if (left <= 0) break
+      if (fits(orientation.along, shelf.height)) take(shelf)
+    }
+    while (left > 0) {
+      const shelf: Shelf = { height: orientation.along, x: 0, area: 0, runs: [] }
+      shelves.push(shelf)
+      take(shelf)
+    }
   }
-  return shelves.map(({ height, placements, area }) => ({ height, placements, area }))
+  return shelves
+}
+
+/** The length first-fit decreasing height takes for `counts` pieces of each kind. */
+const firstFitDecreasingLength = (kinds: readonly Kind[], width: number, counts: readonly number[]): number =>
+  firstFitDecreasingShelves(kinds, width, counts).reduce((sum, shelf) => sum + shelf.height, 0)
+
+/** First-fit decreasing height as strips of placed pieces. */
+function firstFitDecreasingHeight(kinds: readonly Kind[], width: number): StripPlan[] {
+  return firstFitDecreasingShelves(kinds, width, kinds.map((kind) => kind.asked.length)).map((shelf) => ({
+    height: shelf.height,
+    area: shelf.area,
+    placements: shelf.runs.flatMap((run) => Array.from({ length: run.count }, (_, i): Placement => ({ kind: run.kind, orientation: run.orientation, x: run.x + i * run.orientation.across, y: 0 }))),
+  }))
 }
 
 /** Pieces merged by size (long × short), largest first; a piece too wide either way becomes a problem instead. */
@@ -311,7 +342,8 @@ function kindsOf(pieces: readonly PieceToCut[], width: number, problems: Cutting
  * @example firstFitDecreasingHeightInches([{ for: 'A1', widthIn: 3, heightIn: 4, count: 40 }], { widthOfFabricIn: 40 }) // 12
  */
 export function firstFitDecreasingHeightInches(pieces: readonly PieceToCut[], options: StripLayoutOptions): number {
-  return totalHeight(firstFitDecreasingHeight(kindsOf(pieces, options.widthOfFabricIn, []), options.widthOfFabricIn))
+  const kinds = kindsOf(pieces, options.widthOfFabricIn, [])
+  return firstFitDecreasingLength(kinds, options.widthOfFabricIn, kinds.map((kind) => kind.asked.length))
 }
 
 /**
