@@ -6,6 +6,7 @@ import {
   type InferCreationAttributes,
   type Sequelize,
 } from 'sequelize'
+import { designSummary } from '@/lib/design-summary'
 import type { PatternState } from '@/lib/schemas/pattern'
 
 /** A pattern as it stands now; every saved state of it is also kept in PatternRevision. */
@@ -16,6 +17,10 @@ export class Pattern extends Model<InferAttributes<Pattern>, InferCreationAttrib
   declare state: CreationOptional<PatternState>
   /** The design file (format `wreathwright-design`, version 1), as the designer saved it. */
   declare design: unknown
+  /** The design's summary (lib/design-summary.ts), written with it so the shelf never reads designs. */
+  declare repeats: CreationOptional<number>
+  declare outerDiameterInches: CreationOptional<number>
+  declare seamCount: CreationOptional<number>
   /** Goes up by one on every save; a save names the revision it started from. */
   declare revision: CreationOptional<number>
   declare createdAt: CreationOptional<Date>
@@ -30,10 +35,24 @@ export function initPattern(sequelize: Sequelize): void {
       name: { type: DataTypes.TEXT, allowNull: false },
       state: { type: DataTypes.TEXT, allowNull: false, defaultValue: 'draft' },
       design: { type: DataTypes.JSONB, allowNull: false },
+      repeats: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+      outerDiameterInches: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0 },
+      seamCount: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },
-    { sequelize, tableName: 'patterns', modelName: 'Pattern' },
+    {
+      sequelize,
+      tableName: 'patterns',
+      modelName: 'Pattern',
+      hooks: {
+        // Whoever saves a design (a service, a seed script, a test factory) saves its summary too.
+        // beforeSave, not beforeValidate: Sequelize adds fields changed in this hook to the UPDATE.
+        beforeSave(pattern) {
+          if (pattern.isNewRecord || pattern.changed('design')) pattern.set(designSummary(pattern.design))
+        },
+      },
+    },
   )
 }

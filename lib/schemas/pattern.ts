@@ -56,6 +56,10 @@ export const patternSummarySchema = z.object({
   name: z.string(),
   state: z.enum(PATTERN_STATES),
   revision: z.number().int().positive(),
+  /** The design's summary, kept beside it (lib/design-summary.ts): what the shelf shows of it. */
+  repeats: z.number(),
+  outerDiameterInches: z.number(),
+  seamCount: z.number(),
   createdAt: z.string(),
   updatedAt: z.string(),
 })

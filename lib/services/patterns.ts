@@ -25,6 +25,9 @@ function toSummary(pattern: Pattern): PatternSummary {
     name: pattern.name,
     state: pattern.state,
     revision: pattern.revision,
+    repeats: pattern.repeats,
+    outerDiameterInches: pattern.outerDiameterInches,
+    seamCount: pattern.seamCount,
     createdAt: pattern.createdAt.toISOString(),
     updatedAt: pattern.updatedAt.toISOString(),
   }
@@ -41,11 +44,19 @@ function toView(pattern: Pattern): PatternView {
   return { ...toSummary(pattern), ownerId: pattern.ownerId, design: storedDesign(pattern) }
 }
 
+/** What `listOwnPatterns` reads of a pattern: every field of PatternSummary, no design. */
+const SHELF_COLUMNS = ['id', 'name', 'state', 'revision', 'repeats', 'outerDiameterInches', 'seamCount', 'createdAt', 'updatedAt'] satisfies (keyof Pattern)[]
+
 /** The designer's own patterns, most recently changed first. */
 export async function listOwnPatterns(actor: Actor): Promise<PatternSummary[]> {
   authorize(actor, 'list-own-patterns')
   database()
-  const patterns = await Pattern.findAll({ where: { ownerId: actor.id }, order: [['updatedAt', 'DESC'], ['id', 'ASC']] })
+  // The shelf's columns only, never the designs (megabytes each at the limit): the summary is kept beside them.
+  const patterns = await Pattern.findAll({
+    where: { ownerId: actor.id },
+    attributes: SHELF_COLUMNS,
+    order: [['updatedAt', 'DESC'], ['id', 'ASC']],
+  })
   return patterns.map(toSummary)
 }
 

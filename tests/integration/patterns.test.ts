@@ -4,6 +4,7 @@ import { DELETE as deletePattern, GET as readPattern, PATCH as updatePattern } f
 import { GET as listRevisions } from '@/app/api/patterns/[id]/revisions/route'
 import { GET as listPatterns, POST as createPattern } from '@/app/api/patterns/route'
 import { database } from '@/lib/db'
+import { MAX_SEAMS, MAX_SECTIONS } from '@/lib/limits'
 import { Pattern, PatternRevision } from '@/models'
 import { closeDatabase, freshDatabase } from '../support/database'
 import { createPatternRow, createUser, sessionCookieFor } from '../support/factories'
@@ -257,5 +258,88 @@ describe('a stored design that no longer reads as a design', () => {
     const response = await call(listPatterns, { cookie })
     expect(response.status).toBe(200)
     expect((response.json as { patterns: { name: string }[] }).patterns.map((p) => p.name)).toEqual(['Damaged wreath'])
+  })
+})
+
+describe('the limits of what is stored (lib/limits.ts)', () => {
+  it('refuses too many seams with 422 naming the field and the limit, and stores nothing', async () => {
+    const { cookie } = await personWith(['designer'])
+    const seams = Array.from({ length: MAX_SEAMS + 1 }, (_, i) => ({ id: `s${i}`, from: [1 + (i % 7), 0], to: [0, 1 + (i % 5)] }))
+    const response = await call(createPattern, { method: 'POST', cookie, body: { name: 'Too big', design: ring({ seams }) } })
+    expect(response.status).toBe(422)
+    expect(response.json?.error.issues).toContainEqual({ path: 'design.seams', message: `at most ${MAX_SEAMS} seams` })
+    expect(await Pattern.count()).toBe(0)
+  })
+
+  it('refuses NUL in a name and a lone surrogate in a design with 422 naming the field', async () => {
+    const { user, cookie } = await personWith(['designer'])
+    const nul = await call(createPattern, { method: 'POST', cookie, body: { name: 'Acorn\u0000ring' } })
+    expect(nul.status).toBe(422)
+    expect(nul.json?.error.issues[0].path).toBe('name')
+    const pattern = await createPatternRow(user)
+    // JSON.stringify writes a lone surrogate as the escape \udc00, as a browser would send it.
+    const lone = await call(updatePattern, { method: 'PATCH', cookie, params: { id: pattern.id }, body: { revision: 1, design: ring({ seams: [{ id: 's\udc00', from: [4, 0], to: [0, 4] }] }) } })
+    expect(lone.status).toBe(422)
+    expect(lone.json?.error.issues[0].path).toBe('design.seams.0.id')
+    const renamed = await call(updatePattern, { method: 'PATCH', cookie, params: { id: pattern.id }, body: { revision: 1, name: 'Leaf \ud83c' } })
+    expect(renamed.status).toBe(422)
+    expect(renamed.json?.error.issues[0].path).toBe('name')
+    await pattern.reload()
+    expect([pattern.name, pattern.revision]).toEqual(['Test ring', 1])
+  })
+
+  it('stores a name exactly as the reply shows it: NFC, trimmed', async () => {
+    const { cookie } = await personWith(['designer'])
+    const created = await call(createPattern, { method: 'POST', cookie, body: { name: '  Cafe\u0301 ring ' } })
+    expect(created.status).toBe(201)
+    expect(created.json?.pattern.name).toBe('Caf\u00e9 ring')
+    const stored = await Pattern.findByPk(created.json?.pattern.id as string)
+    expect(stored?.name).toBe(created.json?.pattern.name)
+  })
+
+  it('refuses a 5,000-deep assembly with 422 on design.order.assembly, not a 500', async () => {
+    const { cookie } = await personWith(['designer'])
+    // Written by hand: JSON.stringify itself recurses once per level.
+    const assembly = `${'['.repeat(5000)}"A"${',"B"]'.repeat(5000)}`
+    const design = JSON.stringify(ring({ order: { sections: [{ label: 'A', areas: [[1, 1]] }], assembly: 'PLACE' } })).replace('"PLACE"', assembly)
+    const response = await call(createPattern, { method: 'POST', cookie, rawBody: `{"name":"Deep","design":${design}}` })
+    expect(response.status).toBe(422)
+    expect(response.json?.error.issues[0]).toEqual({ path: 'design.order.assembly', message: `at most ${MAX_SECTIONS} levels of joins (one per section)` })
+  })
+
+  it('lists patterns with their summary, without reading a single design', async () => {
+    const { user, cookie } = await personWith(['designer'])
+    await call(createPattern, { method: 'POST', cookie, body: { name: 'Acorn ring', design: ring() } })
+    await createPatternRow(user, { name: 'Blank' })
+    const queries: string[] = []
+    // Sequelize hands every query to options.logging (its typings leave `options` out).
+    const options = (database() as unknown as { options: { logging: unknown } }).options
+    const logging = options.logging
+    options.logging = (sql: string) => void queries.push(sql)
+    let response
+    try {
+      response = await call(listPatterns, { cookie })
+    } finally {
+      options.logging = logging
+    }
+    expect(response.status).toBe(200)
+    expect(response.json?.patterns.map((p: { name: string; repeats: number; outerDiameterInches: number; seamCount: number }) => [p.name, p.repeats, p.outerDiameterInches, p.seamCount])).toEqual([
+      ['Blank', 4, expect.any(Number), 0],
+      ['Acorn ring', 4, 18, 1],
+    ])
+    const patternQueries = queries.filter((sql) => /FROM "patterns"/.test(sql))
+    expect(patternQueries).toHaveLength(1)
+    expect(patternQueries[0]).not.toMatch(/"design"/)
+  })
+
+  it('keeps the summary in step with the design on every save', async () => {
+    const { user, cookie } = await personWith(['designer'])
+    const pattern = await createPatternRow(user, { design: ring() as never })
+    const seams = [{ id: 's1', from: [4, 0], to: [0, 4] }, { id: 's2', from: [6, 0], to: [0, 6] }]
+    const response = await call(updatePattern, { method: 'PATCH', cookie, params: { id: pattern.id }, body: { revision: 1, design: ring({ units: 'cm', ring: { innerRadius: 0, outerRadius: 25.4, repeats: 6, repeatMode: 'rotate' }, seams }) } })
+    expect(response.status).toBe(200)
+    await pattern.reload()
+    // 25.4 cm = 10 in (1959 agreement), 20 in across.
+    expect([pattern.repeats, pattern.outerDiameterInches, pattern.seamCount]).toEqual([6, 20, 2])
   })
 })
