@@ -1,4 +1,6 @@
-import { describe, expect, it } from 'vitest'
+import { NextRequest } from 'next/server'
+import { afterEach, describe, expect, it, vi } from 'vitest'
+import { proxy } from '@/proxy'
 import { contentSecurityPolicy, HSTS_VALUE, newNonce, securityOptionsFromEnv } from './security-headers'
 
 /** The policy as a map from directive name to its source list. */
@@ -68,5 +70,32 @@ describe('the settings', () => {
   it('keep HSTS for two years', () => {
     // hstspreload.org asks for max-age of at least one year (31536000); two years is common practice.
     expect(HSTS_VALUE).toBe('max-age=63072000; includeSubDomains')
+  })
+})
+
+describe('the proxy (proxy.ts)', () => {
+  afterEach(() => {
+    vi.unstubAllEnvs()
+  })
+
+  it('hands the page policy with its nonce to Next.js and sends HSTS when the public URL is https', () => {
+    vi.stubEnv('NODE_ENV', 'production')
+    vi.stubEnv('PUBLIC_URL', 'https://wreathwright.example')
+    const response = proxy(new NextRequest('https://wreathwright.example/patterns'))
+    const policy = response.headers.get('content-security-policy')
+    expect(policy).toMatch(/script-src 'self' 'nonce-[A-Za-z0-9+/]{22}==' 'strict-dynamic'/)
+    expect(policy).toContain('upgrade-insecure-requests')
+    // Next.js reads the nonce from the request's policy; NextResponse.next passes it on this way.
+    expect(response.headers.get('x-middleware-request-content-security-policy')).toBe(policy)
+    // RFC 6797 §6.1: Strict-Transport-Security with max-age.
+    expect(response.headers.get('strict-transport-security')).toBe(HSTS_VALUE)
+  })
+
+  it('sends no HSTS over plain http, and API answers a policy that loads nothing', () => {
+    vi.stubEnv('NODE_ENV', 'production')
+    vi.stubEnv('PUBLIC_URL', 'http://127.0.0.1:3000')
+    const response = proxy(new NextRequest('http://127.0.0.1:3000/api/patterns'))
+    expect(response.headers.get('strict-transport-security')).toBeNull()
+    expect(response.headers.get('content-security-policy')).toBe("default-src 'none'; frame-ancestors 'none'")
   })
 })

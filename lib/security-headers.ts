@@ -71,15 +71,16 @@ export function contentSecurityPolicy(nonce: string, options: SecurityOptions): 
 export const API_CONTENT_SECURITY_POLICY = "default-src 'none'; frame-ancestors 'none'"
 
 /**
- * Reads the options from the environment: https when PUBLIC_URL is an https URL; without
- * PUBLIC_URL, when the session cookie is Secure (on by default outside development, switched off
- * by the local demo and the tests, which serve plain http on loopback).
+ * Reads the options from the environment: https when PUBLIC_URL (the address people open the app
+ * at, required in production and checked by lib/env.ts) is an https URL; without PUBLIC_URL
+ * (development, tests), when the session cookie is Secure. Read from process.env directly, since
+ * the proxy must answer even where the rest of the server environment is not needed.
  */
 export function securityOptionsFromEnv(env: Record<string, string | undefined> = process.env): SecurityOptions {
   const development = env.NODE_ENV === 'development'
   const publicUrl = env.PUBLIC_URL
   const https = publicUrl
-    ? publicUrl.startsWith('https:')
+    ? URL.canParse(publicUrl) && new URL(publicUrl).protocol === 'https:'
     : env.SESSION_COOKIE_SECURE
       ? env.SESSION_COOKIE_SECURE === 'true'
       : !development

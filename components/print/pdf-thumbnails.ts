@@ -39,7 +39,8 @@ export interface ThumbnailSource {
  */
 export async function openThumbnails(bytes: Uint8Array): Promise<ThumbnailSource> {
   const pdfjs = await loadPdfjs()
-  const task: PDFDocumentLoadingTask = pdfjs.getDocument({ data: bytes.slice(), verbosity: 0 })
+  // isEvalSupported: false: pdfjs never tries `new Function` (the page's policy has no 'unsafe-eval').
+  const task: PDFDocumentLoadingTask = pdfjs.getDocument({ data: bytes.slice(), verbosity: 0, isEvalSupported: false })
   const doc: PDFDocumentProxy = await task.promise
   let closed = false
   let rendering: RenderTask | null = null
