@@ -51,9 +51,8 @@ function failOnCspViolations(browser: Browser): Browser {
   browser.newPage = async (options) => (await browser.newContext(options)).newPage()
   browser.close = async (options) => {
     await close(options)
-    if (violations.length > 0) {
-      throw new Error(`The Content-Security-Policy blocked ${violations.length} thing(s):\n${[...new Set(violations)].join('\n')}`)
-    }
+    const distinct = [...new Set(violations)]
+    if (distinct.length > 0) throw new Error(`The Content-Security-Policy blocked ${distinct.length} thing(s):\n${distinct.join('\n')}`)
   }
   return browser
 }
