@@ -83,12 +83,6 @@ function tooLarge(limit: number): ServiceError {
   return new ServiceError(`The request body is larger than this address accepts (${limit} bytes).`, 413)
 }
 
-/** Whether the request carries a body (announced, or chunked without a length). */
-function hasBody(request: Request): boolean {
-  const length = request.headers.get('content-length')
-  return (length !== null && length.trim() !== '0') || request.headers.has('transfer-encoding')
-}
-
 /** The first value of a header a proxy may have written as a list (`a, b`). */
 function firstValue(header: string | null): string | null {
   const value = header?.split(',')[0]?.trim()
@@ -142,7 +136,7 @@ async function readLimited(request: Request, limit: number): Promise<Uint8Array>
     if (done) break
     size += value.byteLength
     if (size > limit) {
-      // Stop reading; the answer closes the connection, so the rest is never taken in.
+      // Stop reading: the rest never reaches the app (Node's server drops it after the answer).
       reader.releaseLock()
       throw tooLarge(limit)
     }
@@ -167,14 +161,13 @@ function isJsonContentType(header: string | null): boolean {
 
 /**
  * Step 5: the body read whole within the limit, as JSON: another content type is a 415, more than
- * the limit a 413, malformed JSON (or not UTF-8) a 400. Calls `onRead` once every byte is in.
+ * the limit a 413, malformed JSON (or not UTF-8) a 400.
  */
-async function readJson(request: Request, limit: number, onRead: () => void): Promise<unknown> {
+async function readJson(request: Request, limit: number): Promise<unknown> {
   if (!isJsonContentType(request.headers.get('content-type'))) {
     throw new ServiceError('Send the request body as JSON (Content-Type: application/json).', 415)
   }
   const bytes = await readLimited(request, limit)
-  onRead()
   try {
     return JSON.parse(new TextDecoder('utf-8', { fatal: true }).decode(bytes))
   } catch {
@@ -202,7 +195,6 @@ export function route<Param extends string = never, S extends SessionRule = Sess
   return async (request: Request, context?: { params?: Promise<Params> }): Promise<Response> => {
     let response: Response
     let setCookie: string | null = null
-    let bodyRead = false
     try {
       checkAnnouncedSize(request, spec.bodyLimit)
       if (!SAFE_METHODS.has(request.method) && !isSameOrigin(request)) {
@@ -216,19 +208,18 @@ export function route<Param extends string = never, S extends SessionRule = Sess
       const resource = (spec.permit ? await spec.permit({ request, user, params }) : undefined) as Resource
       let body: BodyOf<Schema>
       if (spec.body) {
-        body = checkBody(await readJson(request, spec.bodyLimit, () => (bodyRead = true)), spec.body) as BodyOf<Schema>
+        body = checkBody(await readJson(request, spec.bodyLimit), spec.body) as BodyOf<Schema>
       } else {
         // No body expected: whatever came (chunked, without a length) must still fit the small limit.
         await readLimited(request, spec.bodyLimit)
-        bodyRead = true
         body = undefined as BodyOf<Schema>
       }
       response = await handler({ request, user, params, sessionId: check.session?.id ?? null, resource, body })
     } catch (error) {
       response = errorResponse(error)
-      // Refused before its body was read whole (too large, a stranger, no permission): close the
-      // connection after the answer instead of letting the server read the rest to keep it open.
-      if (!bodyRead && hasBody(request)) response.headers.set('connection', 'close')
+      // A body refused unread (too large, a stranger, no permission) is left to Node's server,
+      // which drops what still comes, chunk by chunk, without keeping it. Closing the connection
+      // instead lost the answer: a client still sending meets a reset before it reads the 413.
     }
     if (setCookie && !response.headers.has('set-cookie')) response.headers.append('set-cookie', setCookie)
     return response

@@ -44,11 +44,12 @@ function sendLargeBody(base: URL): Promise<number> {
     })
     socket.on('error', () => finish(0))
     socket.on('close', () => finish(0))
+    // One piece at a time, reading between pieces as a browser does, so an early answer is read.
     const writeBody = () => {
-      while (!done && written < BODY_BYTES) {
-        written += piece.byteLength
-        if (!socket.write(piece)) return void socket.once('drain', writeBody)
-      }
+      if (done || written >= BODY_BYTES) return
+      written += piece.byteLength
+      if (socket.write(piece)) setImmediate(writeBody)
+      else socket.once('drain', writeBody)
     }
     socket.once('connect', () => {
       socket.write(

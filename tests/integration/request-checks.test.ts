@@ -44,7 +44,6 @@ describe('body size, before anything else', () => {
     const { stream, counter } = countedStream(50 * MB)
     const response = await call(createPattern, { method: 'POST', stream, headers: { 'content-length': String(50 * MB) } })
     expect(response.status).toBe(413)
-    expect(response.headers.get('connection')).toBe('close')
     expect(counter.pulled).toBeLessThanOrEqual(64 * 1024)
   })
 
