@@ -90,6 +90,15 @@ export function formatInches(inches: number): string {
 }
 
 /**
+ * A length (inches in) in the reader's units: eighths of an inch, or centimetres to one decimal.
+ *
+ * @example formatLength(2.375, 'cm') // '6.0 cm'
+ */
+export function formatLength(inches: number, units: LengthUnits): string {
+  return units === 'cm' ? `${centimetresToMillimetre(inches)} cm` : formatInches(inches)
+}
+
+/**
  * A piece's size (inches in), with the unit written once.
  *
  * @example formatSize(3.25, 2.5, 'in') // '3 1/4 × 2 1/2 in'
