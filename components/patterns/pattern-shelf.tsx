@@ -7,6 +7,7 @@ import { ApiError, apiFetch, getJsonOf } from '@/lib/api-client'
 import {
   createPatternSchema, patternAnswerSchema, patternListAnswerSchema, patternNameSchema, type PatternSummary,
 } from '@/lib/schemas/pattern'
+import { ringInWords } from './ring-in-words'
 import { sortPatterns, type ShelfColumn, type SortDirection } from './sort-patterns'
 
 const COLUMNS: readonly { key: ShelfColumn; label: string }[] = [
@@ -78,6 +79,9 @@ export function PatternShelf() {
                   </button>
                 </th>
               ))}
+              <th scope="col" className="px-4 py-2 font-semibold">
+                Ring
+              </th>
               <th scope="col" className="px-4 py-2 text-right">
                 <span className="sr-only">Actions</span>
               </th>
@@ -214,6 +218,7 @@ function PatternRow({
       <td className="px-4 py-2 text-sm text-stone-600">
         <time dateTime={pattern.updatedAt}>{new Date(pattern.updatedAt).toLocaleString()}</time>
       </td>
+      <td className="px-4 py-2 text-sm text-stone-600">{ringInWords(pattern)}</td>
       <td className="space-x-3 px-4 py-2 text-right text-sm">
         <button type="button" onClick={() => setEditing(true)} className="text-thread-700 hover:underline" aria-label={`Rename ${pattern.name}`}>
           Rename
