@@ -34,6 +34,9 @@ export default async function PatternPage({ params }: { params: Promise<{ id: st
         <Link href="#print" className="rounded border border-stone-300 px-4 py-2 hover:bg-linen-100">
           Print the booklet
         </Link>
+        <Link href={`/patterns/${pattern.id}/fabric`} className="rounded border border-stone-300 px-4 py-2 hover:bg-linen-100">
+          Fabric and cutting
+        </Link>
       </div>
       <dl className="grid max-w-xl grid-cols-2 gap-x-6 gap-y-2 text-sm">
         <dt className="text-stone-500">State</dt>
