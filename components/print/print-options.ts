@@ -21,6 +21,7 @@ export interface PrintFormState {
 /** Friendly names of the booklet's parts for the checkboxes. */
 export const PART_TITLES: Readonly<Record<BookletPart, string>> = {
   cover: 'Cover, fabric and cutting list',
+  cutting: 'Cutting diagrams, fabric by fabric',
   cautions: 'Printing notes and cautions',
   steps: 'Sewing steps, joins and finishing',
   foundations: 'Foundations (true scale, tiled)',

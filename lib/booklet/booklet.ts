@@ -1,5 +1,5 @@
 /**
- * The pattern booklet: cover, sewing steps, foundations, templates, placement guide and cautions,
+ * The pattern booklet: cover, cutting diagrams, sewing steps, foundations, templates, placement guide and cautions,
  * in one PDF at true scale. Pure: the same code runs in the browser (the print dialog) and in
  * Node (the command line, the tests); no file or network access.
  */
@@ -9,6 +9,7 @@ import { bookletOptionsSchema, type BookletOptionsInput, type BookletPart } from
 import { writeCautions } from './cautions'
 import { createContext, type BookletContext } from './context'
 import { writeCover } from './cover'
+import { writeCuttingDiagrams } from './cutting-diagrams'
 import { writeFoundationPages, type FoundationSheet } from './foundation-pages'
 import { bookletModel, type BookletModel } from './model'
 import { describePages, foundationTilings, type BookletPage, type FoundationTiling } from './page-list'
@@ -55,6 +56,10 @@ export function writeBooklet(design: Design, input: BookletOptionsInput, onPage?
   if (include.has('cover')) {
     mark('cover')
     writeCover(context)
+  }
+  if (include.has('cutting')) {
+    mark('cutting')
+    writeCuttingDiagrams(context)
   }
   if (include.has('cautions')) {
     mark('cautions')

@@ -49,6 +49,7 @@ export interface FoundationTiling {
 /** Each part's name as the page descriptions use it. */
 export const PART_PAGE_NAMES: Readonly<Record<BookletPart, string>> = {
   cover: 'cover, fabric and cutting list',
+  cutting: 'cutting diagrams',
   cautions: 'printing notes and cautions',
   steps: 'sewing steps',
   foundations: 'foundations',

@@ -10,7 +10,7 @@ export const PAPER_NAMES = ['letter', 'legal', 'tabloid', 'a4', 'a3'] as const
 export type PaperName = (typeof PAPER_NAMES)[number]
 
 /** The parts a booklet can hold, in the order they are printed. */
-export const BOOKLET_PARTS = ['cover', 'cautions', 'steps', 'foundations', 'templates', 'guide'] as const
+export const BOOKLET_PARTS = ['cover', 'cutting', 'cautions', 'steps', 'foundations', 'templates', 'guide'] as const
 export type BookletPart = (typeof BOOKLET_PARTS)[number]
 
 /** Home printers leave about 0.25 in unprinted (common practice); 0.4 in leaves room to spare. */
