@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { parseDesign } from '../lib/schemas/design'
 import { DEMO_PATTERNS } from '../scripts/demo-data'
-import { fabricDisplayName, fabricRequirements } from './fabric-requirements'
+import { fabricDisplayName, fabricRequirements, fabricRoleInWords } from './fabric-requirements'
 import { design } from './fixtures/generators'
 import { planDesign } from './plan'
 import { metresToBuy, yardsToBuy } from './yardage'
@@ -22,8 +22,10 @@ describe('fabricRequirements', () => {
     expect([result.widthOfFabricIn, result.extraPercent]).toEqual([40, 10])
     expect(result.problems).toEqual([])
     for (const fabric of result.fabrics) {
-      expect(fabric.name).toBe(fabric.fabric)
-      expect(fabric.color).toBe(colorway.fabrics[fabric.fabric] ?? null)
+      // The demo's colourway names every fabric it uses: the name, never the role, is what a maker reads.
+      expect(fabric.name).toBe(colorway.fabrics[fabric.fabric]!.name)
+      expect(fabric.name).not.toBe(fabric.fabric)
+      expect(fabric.color).toBe(colorway.fabrics[fabric.fabric]!.color)
       // One cut per piece asked for.
       expect(fabric.cuts).toHaveLength(fabric.pieces.reduce((sum, piece) => sum + piece.count, 0))
       expect(fabric.lengthIn).toBeGreaterThanOrEqual(fabric.lowerBoundIn)
@@ -57,7 +59,20 @@ describe('fabricRequirements', () => {
     expect(background.cuts).toEqual([])
   })
 
-  it('names a fabric by its role until colourways carry names', () => {
-    expect(fabricDisplayName({ name: 'Autumn', fabrics: { background: '#f4ecd8' } }, 'background')).toBe('background')
+  it("names a fabric by the colourway's display name, and a role no colourway names in words", () => {
+    const autumn = { name: 'Autumn', fabrics: { background: { name: 'Cream tone-on-tone', color: '#f4ecd8' } } }
+    expect(fabricDisplayName(autumn, 'background')).toBe('Cream tone-on-tone')
+    expect(fabricDisplayName(autumn, 'leaf-dark')).toBe('Leaf dark')
+    expect(fabricDisplayName(null, 'background-shade')).toBe('Background shade')
+    // Only the colourway's own roles: a role spelled like an Object property is not Object's.
+    expect(fabricDisplayName(autumn, 'constructor')).toBe('Constructor')
+    expect(fabricRoleInWords('star_light  2')).toBe('Star light 2')
+  })
+
+  it('gives each fabric its name and colour from the colourway', () => {
+    const named = design({ fills: [{ at: [5, 5], fabric: 'background' }] })
+    const autumn = { name: 'Autumn', fabrics: { background: { name: 'Cream tone-on-tone', color: '#f4ecd8' } } }
+    const background = fabricRequirements(named, planDesign(named), autumn).fabrics.find((fabric) => fabric.fabric === 'background')!
+    expect(background).toMatchObject({ name: 'Cream tone-on-tone', color: '#f4ecd8' })
   })
 })

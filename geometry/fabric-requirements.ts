@@ -10,7 +10,7 @@ import {
 } from './cutting-pieces'
 import type { Plan } from './plan'
 import { layoutStrips, type CuttingProblem, type CuttingStrip, type PieceToCut, type PlacedCut } from './strip-layout'
-import type { Colorway, Design } from './types'
+import type { Colorway, ColorwayFabric, Design } from './types'
 import {
   DEFAULT_EXTRA_PERCENT, DEFAULT_WIDTH_OF_FABRIC_INCHES, FAT_EIGHTH, FAT_QUARTER, fitsOnPrecut, metresToBuy, yardsToBuy, type Precut,
 } from './yardage'
@@ -63,14 +63,35 @@ export interface FabricRequirements {
 }
 
 /**
- * The name a maker reads for a fabric role in a colourway. The one place it is decided: today a
- * colourway gives a role only a colour, so the name is the role itself.
+ * A fabric role in words, for a role no colourway names yet and for a version 1 file's fabrics
+ * (which had no names): dashes and underscores become spaces, the first letter a capital.
  *
- * @example fabricDisplayName({ name: 'Autumn', fabrics: { background: '#f4ecd8' } }, 'background') // 'background'
+ * @example fabricRoleInWords('leaf-dark') // 'Leaf dark'
  */
-export function fabricDisplayName(colorway: Colorway | null, fabric: string): string {
-  void colorway
-  return fabric
+export function fabricRoleInWords(fabric: string): string {
+  const words = fabric.replace(/[-_\s]+/g, ' ').trim()
+  return words.charAt(0).toUpperCase() + words.slice(1)
+}
+
+/**
+ * The fabric a colourway gives a role, if it gives one (its own keys only: a role named
+ * "constructor" is not Object's).
+ *
+ * @example colorwayFabric({ name: 'Autumn', fabrics: { stem: { name: 'Bark brown', color: '#4a3a2a' } } }, 'stem')?.color // '#4a3a2a'
+ */
+export function colorwayFabric(colorway: Colorway | null | undefined, fabric: string): ColorwayFabric | undefined {
+  return colorway && Object.hasOwn(colorway.fabrics, fabric) ? colorway.fabrics[fabric] : undefined
+}
+
+/**
+ * The name a maker reads for a fabric role in a colourway: the fabric's display name the
+ * colourway gives it, or the role in words when it gives none (or there is no colourway). The one
+ * place it is decided: the board, the tables, the booklet and the command line all ask here.
+ *
+ * @example fabricDisplayName({ name: 'Autumn', fabrics: { background: { name: 'Cream tone-on-tone', color: '#f4ecd8' } } }, 'background') // 'Cream tone-on-tone'
+ */
+export function fabricDisplayName(colorway: Colorway | null | undefined, fabric: string): string {
+  return colorwayFabric(colorway, fabric)?.name ?? fabricRoleInWords(fabric)
 }
 
 /**
@@ -91,7 +112,7 @@ export function fabricRequirements(design: Design, plan: Plan, colorway: Colorwa
     return {
       fabric,
       name: fabricDisplayName(colorway, fabric),
-      color: colorway?.fabrics[fabric] ?? null,
+      color: colorwayFabric(colorway, fabric)?.color ?? null,
       pieces,
       cuts: layout.cuts,
       strips: layout.strips,

@@ -22,7 +22,7 @@ const design = (overrides: Partial<Design> = {}): Design => ({
   stems: [{ radius: 6.5, finishedWidth: 0.375, fabric: 'stem' }],
   berries: [{ at: [3.2, 5.1], finishedDiameter: 0.5, fabric: 'berry' }],
   curls: [{ points: [[3, 5], [3.4, 5.6], [3.1, 6]] }],
-  colorways: [{ name: 'Autumn', fabrics: { background: '#f4ecd8' } }],
+  colorways: [{ name: 'Autumn', fabrics: { background: { name: 'Cream tone-on-tone', color: '#f4ecd8' } } }],
   order: { sections: [{ label: 'A', areas: [[0.2, 0.2], [2, 2]] }] },
   ...overrides,
 })

@@ -83,10 +83,25 @@ export interface Curl {
   readonly points: readonly Point[]
 }
 
+/** The fabric a colourway gives one role, as the maker buys it. */
+export interface ColorwayFabric {
+  /** What the maker reads and buys: "Cream tone-on-tone". */
+  readonly name: string
+  /** #rrggbb, how the board and the booklet draw it. */
+  readonly color: string
+  /** An uploaded swatch image, by its key in the object store. */
+  readonly swatch?: string
+}
+
+/**
+ * One way to colour the design (the same seams in other fabrics): every fabric role the design
+ * uses (background, leaf-dark, stem …) gets a fabric. Roles are the keys; the areas, leaves,
+ * stems and berries name roles, never fabrics, so a colourway changes without touching them.
+ */
 export interface Colorway {
   readonly name: string
-  /** Fabric role → colour as #rrggbb. */
-  readonly fabrics: Readonly<Record<string, string>>
+  /** Fabric role → the fabric this colourway gives it. */
+  readonly fabrics: Readonly<Record<string, ColorwayFabric>>
 }
 
 /** A join tree: a section label, or two subtrees joined along one straight seam. */
@@ -110,7 +125,8 @@ export interface Binding {
 
 /**
  * A design as the core sees it: already validated and converted to inches.
- * The file format (`wreathwright-design`, version 1) is parsed by lib/schemas/design.ts.
+ * The file format (`wreathwright-design`, version 2; version 1 is upgraded on read) is parsed by
+ * lib/schemas/design.ts.
  */
 export interface Design {
   readonly name: string

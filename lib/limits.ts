@@ -45,6 +45,8 @@ export const MAX_NAME_LENGTH = 120
 export const MAX_ID_LENGTH = 64
 /** Fabric roles ("background", "leaf-dark"): characters. */
 export const MAX_ROLE_LENGTH = 64
+/** An upload's key in the object store, as a design names a swatch image by it: characters (ASCII). */
+export const MAX_UPLOAD_KEY_LENGTH = 200
 
 /** The longest number JSON.stringify writes: `-1.2345678901234567e-308`, 24 characters. */
 const LONGEST_NUMBER = 24
@@ -76,8 +78,10 @@ export const MAX_DESIGN_BYTES = (() => {
   const berries = MAX_BERRIES * (POINT_BYTES + LONGEST_NUMBER + stringBytes(MAX_ROLE_LENGTH) + ITEM_OVERHEAD)
   const curls = MAX_CURLS * (MAX_POINTS_PER_CURL * POINT_BYTES + ITEM_OVERHEAD)
   const fills = MAX_AREAS * (POINT_BYTES + stringBytes(MAX_ROLE_LENGTH) + ITEM_OVERHEAD)
-  // A colour is "#rrggbb" (9 bytes with its quotes) after its role, a colon and a comma.
-  const colorways = MAX_COLORWAYS * (stringBytes(MAX_NAME_LENGTH) + MAX_FABRICS_PER_COLORWAY * (stringBytes(MAX_ROLE_LENGTH) + 11) + ITEM_OVERHEAD)
+  // Each fabric of a colourway: its role, then `{"name":…,"color":"#rrggbb","swatch":…}` (the
+  // swatch key is ASCII, one byte a character), keys and punctuation 40 bytes.
+  const fabric = stringBytes(MAX_ROLE_LENGTH) + stringBytes(MAX_NAME_LENGTH) + 9 + (MAX_UPLOAD_KEY_LENGTH + 2) + 40
+  const colorways = MAX_COLORWAYS * (stringBytes(MAX_NAME_LENGTH) + MAX_FABRICS_PER_COLORWAY * fabric + ITEM_OVERHEAD)
   // Every area of the order once; every section's label once in the sections, once in the join tree.
   const order = MAX_AREAS * POINT_BYTES + MAX_SECTIONS * (2 * stringBytes(MAX_ID_LENGTH) + ITEM_OVERHEAD)
   // Name, format, version, units, the ring, the binding and the top-level keys.

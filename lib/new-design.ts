@@ -11,7 +11,7 @@ export const NEW_RING: DesignFile['ring'] = { innerRadius: 0, outerRadius: 9, re
 export function emptyDesign(name: string, ring: DesignFile['ring'] = NEW_RING): DesignFile {
   return {
     format: 'wreathwright-design',
-    version: 1,
+    version: 2,
     name,
     units: 'in',
     ring,
@@ -21,7 +21,7 @@ export function emptyDesign(name: string, ring: DesignFile['ring'] = NEW_RING): 
     stems: [],
     berries: [],
     curls: [],
-    colorways: [{ name: 'Main', fabrics: { background: '#f4ecd8' } }],
+    colorways: [{ name: 'Main', fabrics: { background: { name: 'Background', color: '#f4ecd8' } } }],
     order: null,
   }
 }

@@ -25,7 +25,13 @@ function benchDesign(): Design {
     stems: [{ radius: 10, finishedWidth: 0.375, fabric: 'stem' }],
     berries: [{ at: [7, 7], finishedDiameter: 0.5, fabric: 'berry' }],
     curls: [{ points: [[8, 4], [8.5, 4.6], [8.2, 5.2]] }],
-    colorways: [{ name: 'Bench', fabrics: { background: '#f4ecd8', 'leaf-dark': '#2f5540', 'leaf-light': '#6f9a6a', stem: '#4a3a2a', berry: '#a3392b' } }],
+    colorways: [{
+      name: 'Bench',
+      fabrics: {
+        background: { name: 'Background', color: '#f4ecd8' }, 'leaf-dark': { name: 'Leaf dark', color: '#2f5540' },
+        'leaf-light': { name: 'Leaf light', color: '#6f9a6a' }, stem: { name: 'Stem', color: '#4a3a2a' }, berry: { name: 'Berry', color: '#a3392b' },
+      },
+    }],
   }
 }
 

@@ -61,13 +61,13 @@ describe('cli plan', () => {
   })
 
   it('exits 2 with one line for malformed JSON, a wrong version, a negative radius and NaN', async () => {
-    const cases = ['{"format": ', JSON.stringify({ ...valid, version: 2 }), JSON.stringify({ ...valid, ring: { ...valid.ring, outerRadius: -3 } }), JSON.stringify(valid).replace('"to":[3,', '"to":[NaN,')]
+    const cases = ['{"format": ', JSON.stringify({ ...valid, version: 3 }), JSON.stringify({ ...valid, ring: { ...valid.ring, outerRadius: -3 } }), JSON.stringify(valid).replace('"to":[3,', '"to":[NaN,')]
     for (const text of cases) {
       const result = await runCli(['plan', file(text)])
       expect(result.code, text).toBe(2)
       expectContract(result)
     }
-    expect((await runCli(['plan', file(JSON.stringify({ ...valid, version: 2 }))])).stderr).toMatch(/version/)
+    expect((await runCli(['plan', file(JSON.stringify({ ...valid, version: 3 }))])).stderr).toMatch(/version/)
   })
 
   it('refuses arguments plan does not take, in one line', async () => {
@@ -194,7 +194,9 @@ describe('cli cutting', () => {
       for (const cut of fabric.cuts) expect(cut.xIn >= 0 && cut.xIn + cut.widthIn <= 40).toBe(true)
       // Yards: length + 10 %, rounded up to 1/8 yd = 4.5 in (common practice).
       expect(fabric.yards).toBe(Math.ceil((fabric.lengthIn * 1.1) / 4.5) / 8)
-      expect(fabric.name).toBe(fabric.fabric)
+      // The colourway's display name of the fabric, never its role.
+      const named = (hollyberryWreath.colorways![0]!.fabrics as Record<string, { name: string }>)[fabric.fabric]
+      expect(fabric.name).toBe(named!.name)
     }
     // The stem: 2π × its radius + 4 in, cut 2 × 3/8 + 1/2 = 1 1/4 in wide (bias.ts).
     expect(json.stem).toMatchObject({ fabric: 'stem', cutWidthIn: 1.25 })

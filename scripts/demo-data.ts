@@ -37,7 +37,7 @@ const polar = (radius: number, degrees: number): [number, number] => [
 /** Sixths with a centre opening, alternately mirrored: two bands and a split outer area. */
 const lanternMedallion: DesignFile = {
   format: 'wreathwright-design',
-  version: 1,
+  version: 2,
   name: 'Lantern Medallion',
   units: 'in',
   ring: { innerRadius: 3, outerRadius: 10, repeats: 6, repeatMode: 'mirror' },
@@ -56,9 +56,26 @@ const lanternMedallion: DesignFile = {
   stems: [],
   berries: [],
   curls: [],
+  // Fabric names are invented for the demo: descriptions a shop might use, not real products.
   colorways: [
-    { name: 'Harvest', fabrics: { glow: '#e9b44c', frame: '#9b2915', sky: '#1d3557' } },
-    { name: 'Sea glass', fabrics: { glow: '#cfe8e3', frame: '#4f8a8b', sky: '#f6f1e7' } },
+    {
+      name: 'Harvest',
+      fabrics: {
+        glow: { name: 'Marigold crackle print', color: '#e9b44c' },
+        frame: { name: 'Brick red homespun', color: '#9b2915' },
+        sky: { name: 'Midnight ink solid', color: '#1d3557' },
+        binding: { name: 'Brick red homespun', color: '#9b2915' },
+      },
+    },
+    {
+      name: 'Sea glass',
+      fabrics: {
+        glow: { name: 'Seafoam watercolour batik', color: '#cfe8e3' },
+        frame: { name: 'Harbour teal linen-look', color: '#4f8a8b' },
+        sky: { name: 'Sandbar cream tone-on-tone', color: '#f6f1e7' },
+        binding: { name: 'Driftwood grey stripe', color: '#7d7f7c' },
+      },
+    },
   ],
   order: null,
 }
@@ -66,7 +83,7 @@ const lanternMedallion: DesignFile = {
 /** Eighths of a 16 in ring meeting at the centre. */
 const compassRing: DesignFile = {
   format: 'wreathwright-design',
-  version: 1,
+  version: 2,
   name: 'Eightfold Compass Ring',
   units: 'in',
   ring: { innerRadius: 0, outerRadius: 8, repeats: 8, repeatMode: 'rotate' },
@@ -85,14 +102,50 @@ const compassRing: DesignFile = {
   stems: [],
   berries: [],
   curls: [],
-  colorways: [{ name: 'Indigo', fabrics: { hub: '#f2c14e', ring: '#264653', light: '#f1faee', dark: '#1d3557' } }],
+  colorways: [
+    {
+      name: 'Indigo',
+      fabrics: {
+        hub: { name: 'Saffron pin dot', color: '#f2c14e' },
+        ring: { name: 'Deep lagoon solid', color: '#264653' },
+        light: { name: 'Snowberry white tone-on-tone', color: '#f1faee' },
+        dark: { name: 'Indigo night shibori print', color: '#1d3557' },
+        binding: { name: 'Indigo night shibori print', color: '#1d3557' },
+      },
+    },
+    {
+      name: 'Rosehip',
+      fabrics: {
+        hub: { name: 'Rosehip red small check', color: '#b23a48' },
+        ring: { name: 'Moss green shot cotton', color: '#5b7553' },
+        light: { name: 'Oatmeal linen-look', color: '#efe6d5' },
+        dark: { name: 'Plum wine crossweave', color: '#5c2a4a' },
+        binding: { name: 'Moss green shot cotton', color: '#5b7553' },
+      },
+    },
+  ],
   order: null,
+}
+
+/** A sketch: an empty ring in sixths, its background chosen in two colourways already. */
+const winterStarSketch: DesignFile = {
+  ...emptyDesign('Winter Star (sketch)', { innerRadius: 0, outerRadius: 10, repeats: 6, repeatMode: 'rotate' }),
+  colorways: [
+    {
+      name: 'Frost',
+      fabrics: { background: { name: 'Snowberry white tone-on-tone', color: '#f4f6f4' }, binding: { name: 'Glacier blue crossweave', color: '#8fb0c8' } },
+    },
+    {
+      name: 'Ember',
+      fabrics: { background: { name: 'Cinnamon stick tonal', color: '#8a4b2f' }, binding: { name: 'Charcoal ember solid', color: '#3a3332' } },
+    },
+  ],
 }
 
 export const DEMO_PATTERNS: readonly { owner: string; state: PatternState; design: DesignFile }[] = [
   { owner: 'marguerite@bramblelane.example', state: 'published', design: hollyberryWreath },
   { owner: 'marguerite@bramblelane.example', state: 'testing', design: lanternMedallion },
-  { owner: 'marguerite@bramblelane.example', state: 'draft', design: emptyDesign('Winter Star (sketch)', { innerRadius: 0, outerRadius: 10, repeats: 6, repeatMode: 'rotate' }) },
+  { owner: 'marguerite@bramblelane.example', state: 'draft', design: winterStarSketch },
   { owner: 'tomasz@juniperthread.example', state: 'draft', design: compassRing },
   {
     owner: 'tomasz@juniperthread.example',

@@ -128,17 +128,22 @@ describe('the flagship wreath (Hollyberry Wreath)', () => {
     }
   })
 
-  it('comes in two named colourways, each colouring every fabric role the design uses', () => {
+  it('comes in two named colourways, each giving every fabric role the design uses (the binding too) a named fabric', () => {
     const roles = new Set([
       ...design.fills.map((fill) => fill.fabric),
       ...design.leaves.flatMap((leaf) => leaf.layers),
       ...design.stems.map((stem) => stem.fabric),
       ...design.berries.map((berry) => berry.fabric),
+      design.binding?.fabric ?? 'binding',
     ])
     expect(design.colorways).toHaveLength(2)
     expect(new Set(design.colorways.map((colorway) => colorway.name)).size).toBe(2)
     for (const colorway of design.colorways) {
-      for (const role of roles) expect(colorway.fabrics[role], `${colorway.name}: ${role}`).toMatch(/^#[0-9a-f]{6}$/i)
+      for (const role of roles) {
+        expect(colorway.fabrics[role]?.color, `${colorway.name}: ${role}`).toMatch(/^#[0-9a-f]{6}$/i)
+        // A name a quilter could shop by, never the role.
+        expect(colorway.fabrics[role]?.name, `${colorway.name}: ${role}`).toMatch(/^[A-Z].* .+/)
+      }
     }
     // Every area has a fill: none is left without a fabric.
     for (const area of plan.areas) expect(design.fills.some((fill) => isPointInPolygon(fill.at, area.polygon)), area.label ?? area.id).toBe(true)

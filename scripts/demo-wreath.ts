@@ -93,7 +93,7 @@ const leafOnVine = (n: number, angle: number): NonNullable<DesignFile['leaves']>
 
 export const hollyberryWreath: DesignFile = {
   format: 'wreathwright-design',
-  version: 1,
+  version: 2,
   name: 'Hollyberry Wreath',
   units: 'in',
   ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
@@ -123,19 +123,34 @@ export const hollyberryWreath: DesignFile = {
   stems: [{ radius: STEM_RADIUS, finishedWidth: 0.375, fabric: 'stem' }],
   berries: [...berryCluster(10), ...berryCluster(54.5)],
   curls: [{ points: tendril(30, -1, -1, 0.9) }, { points: tendril(66, 1, -1, 0.9) }, { points: tendril(42, 1, 1, 0.8) }],
+  // Fabric names are invented for the demo: descriptions a shop might use, not real products.
   colorways: [
     {
       name: 'Snowberry Dusk',
       fabrics: {
-        background: '#eef2f5', 'background-shade': '#e1e8ee', 'star-dark': '#6f88a3', 'star-light': '#b4c4d4',
-        'leaf-dark': '#2f5540', 'leaf-light': '#7da37a', stem: '#4a3a2a', berry: '#a3392b',
+        background: { name: 'Snowberry white tone-on-tone', color: '#eef2f5' },
+        'background-shade': { name: 'Frosted pane crossweave', color: '#e1e8ee' },
+        'star-dark': { name: 'Slate blue ditsy print', color: '#6f88a3' },
+        'star-light': { name: 'Winter sky solid', color: '#b4c4d4' },
+        'leaf-dark': { name: 'Holly green batik', color: '#2f5540' },
+        'leaf-light': { name: 'Sage sprig print', color: '#7da37a' },
+        stem: { name: 'Bark brown shot cotton', color: '#4a3a2a' },
+        berry: { name: 'Rosehip red tonal dot', color: '#a3392b' },
+        binding: { name: 'Midnight spruce solid', color: '#24384a' },
       },
     },
     {
       name: 'Cider Orchard',
       fabrics: {
-        background: '#f6eddc', 'background-shade': '#eee0c4', 'star-dark': '#8c3b1f', 'star-light': '#d08a3c',
-        'leaf-dark': '#7a3d12', 'leaf-light': '#c8962e', stem: '#4b3020', berry: '#6e1f2e',
+        background: { name: 'Oat cream linen-look', color: '#f6eddc' },
+        'background-shade': { name: 'Wheat sheaf tone-on-tone', color: '#eee0c4' },
+        'star-dark': { name: 'Russet apple check', color: '#8c3b1f' },
+        'star-light': { name: 'Amber honey batik', color: '#d08a3c' },
+        'leaf-dark': { name: 'Cinnamon bark crossweave', color: '#7a3d12' },
+        'leaf-light': { name: 'Mustard seed dot', color: '#c8962e' },
+        stem: { name: 'Walnut shell solid', color: '#4b3020' },
+        berry: { name: 'Mulled plum tonal', color: '#6e1f2e' },
+        binding: { name: 'Burnt cider plaid', color: '#5a2a14' },
       },
     },
   ],

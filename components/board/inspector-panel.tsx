@@ -1,6 +1,7 @@
 'use client'
 
 import { useState } from 'react'
+import { fabricDisplayName } from '@/geometry/fabric-requirements'
 import { isPointedLeaf, LAYER_SCALE_RANGE, LAYER_TURN_LIMIT_DEGREES, leafLayers } from '@/geometry/leaf-template'
 import { boardPlan } from '@/lib/board/board-plan'
 import type { BoardDesign } from '@/lib/board/commands'
@@ -16,8 +17,14 @@ const small = 'rounded border border-stone-300 px-2 py-1 text-xs hover:bg-linen-
 
 const capitalised = (text: string): string => text.charAt(0).toUpperCase() + text.slice(1)
 
-function FabricSelect({ id, label, value, fabrics, onChange }: { id: string; label: string; value: string; fabrics: string[]; onChange: (fabric: string) => void }) {
-  const options = fabrics.includes(value) ? fabrics : [value, ...fabrics]
+/** The fabric roles of the colourway shown, each with the name the designer reads (`fabricDisplayName`). */
+interface Fabrics {
+  readonly roles: string[]
+  readonly nameOf: (fabric: string) => string
+}
+
+function FabricSelect({ id, label, value, fabrics, onChange }: { id: string; label: string; value: string; fabrics: Fabrics; onChange: (fabric: string) => void }) {
+  const options = fabrics.roles.includes(value) ? fabrics.roles : [value, ...fabrics.roles]
   return (
     <div className="flex items-center gap-1">
       <label htmlFor={id} className="text-xs text-stone-600">
@@ -26,7 +33,7 @@ function FabricSelect({ id, label, value, fabrics, onChange }: { id: string; lab
       <select id={id} value={value} onChange={(event) => onChange(event.target.value)} className="flex-1 rounded border border-stone-300 bg-white px-1 py-0.5 text-xs">
         {options.map((fabric) => (
           <option key={fabric} value={fabric}>
-            {fabric}
+            {fabrics.nameOf(fabric)}
           </option>
         ))}
       </select>
@@ -39,7 +46,8 @@ export function InspectorPanel({ store }: { store: BoardStore }) {
   const design = useBoard(store, designOf)
   const selection = useBoard(store, (state) => state.selection)
   const activeColorway = useBoard(store, (state) => state.activeColorway)
-  const fabrics = Object.keys((design.colorways.find((c) => c.name === activeColorway) ?? design.colorways[0])?.fabrics ?? {})
+  const colorway = design.colorways.find((c) => c.name === activeColorway) ?? design.colorways[0]
+  const fabrics: Fabrics = { roles: Object.keys(colorway?.fabrics ?? {}), nameOf: (fabric) => fabricDisplayName(colorway, fabric) }
   const units = design.units
 
   return (
@@ -90,7 +98,7 @@ export function InspectorPanel({ store }: { store: BoardStore }) {
   )
 }
 
-function LeafEditor({ store, design, leaf, fabrics }: { store: BoardStore; design: BoardDesign; leaf: Leaf; fabrics: string[] }) {
+function LeafEditor({ store, design, leaf, fabrics }: { store: BoardStore; design: BoardDesign; leaf: Leaf; fabrics: Fabrics }) {
   const [error, setError] = useState<string | null>(null)
   const units = design.units
   const change = (changes: Partial<Leaf>) => {
@@ -130,7 +138,7 @@ function LeafEditor({ store, design, leaf, fabrics }: { store: BoardStore; desig
  * the leaf's tilt) and its size (% of the leaf), so the layers beneath show. Unset values show the
  * default fan; "Default" puts a layer back on it.
  */
-function LayerEditor({ store, leaf, fabrics }: { store: BoardStore; leaf: Leaf; fabrics: string[] }) {
+function LayerEditor({ store, leaf, fabrics }: { store: BoardStore; leaf: Leaf; fabrics: Fabrics }) {
   const layers = leafLayers({ ...leaf, angle: leaf.angle ?? 0 })
   const leafId = leaf.id
   return (
@@ -177,14 +185,14 @@ function LayerEditor({ store, leaf, fabrics }: { store: BoardStore; leaf: Leaf; 
           </div>
         )
       })}
-      <button type="button" className={small} onClick={() => store.run('addLeafLayer', { leafId, fabric: fabrics[0] ?? leaf.layers[0]! })}>
+      <button type="button" className={small} onClick={() => store.run('addLeafLayer', { leafId, fabric: fabrics.roles[0] ?? leaf.layers[0]! })}>
         Add a layer on top
       </button>
     </fieldset>
   )
 }
 
-function StemRingEditor({ store, design, fabrics }: { store: BoardStore; design: BoardDesign; fabrics: string[] }) {
+function StemRingEditor({ store, design, fabrics }: { store: BoardStore; design: BoardDesign; fabrics: Fabrics }) {
   const stem = design.stems[0]
   const units = design.units
   const perInch = unitsPerInch(units)
@@ -198,7 +206,7 @@ function StemRingEditor({ store, design, fabrics }: { store: BoardStore; design:
             store.run(
               'setStemRing',
               event.target.checked
-                ? { radius: Math.round(design.ring.outerRadius * 0.8 * 100) / 100, finishedWidth: 0.375 * perInch, fabric: fabrics[0] ?? 'stem' }
+                ? { radius: Math.round(design.ring.outerRadius * 0.8 * 100) / 100, finishedWidth: 0.375 * perInch, fabric: fabrics.roles[0] ?? 'stem' }
                 : null,
             )
           }

@@ -4,7 +4,7 @@ import { useDeferredValue, useMemo } from 'react'
 import { boardPlan } from '@/lib/board/board-plan'
 import { formatSize } from '@/lib/units'
 import { design as designOf, type BoardStore } from '@/lib/board/store'
-import { sectionLetter, type JoinTree } from '@/geometry'
+import { fabricDisplayName, sectionLetter, type JoinTree } from '@/geometry'
 import { useBoard } from './use-board'
 
 const small = 'rounded border border-stone-300 bg-white px-2 py-1 text-xs hover:bg-linen-100 disabled:opacity-40'
@@ -34,12 +34,16 @@ export function PlanPanel({ store }: { store: BoardStore }) {
   const errors = plan?.problems.filter((p) => p.severity === 'error') ?? []
   const warnings = plan?.problems.filter((p) => p.severity === 'warning') ?? []
   const units = design.units
+  const activeColorway = useBoard(store, (state) => state.activeColorway)
+  const colorway = design.colorways.find((c) => c.name === activeColorway) ?? design.colorways[0]
+  /** A fabric role by the name the shown colourway gives it (never the role's key). */
+  const nameOf = (fabric: string) => fabricDisplayName(colorway, fabric)
 
   /** A leaf with its stacked fabrics, bottom first, as the maker reads it while sewing. */
   function describeLeaf(leafId: string): string {
     const leaf = design.leaves.find((l) => l.id === leafId)
     const name = result.leafNames.get(leafId) ?? 'a leaf'
-    return leaf ? `${name} (${leaf.layers.join(' under ')})` : name
+    return leaf ? `${name} (${leaf.layers.map(nameOf).join(' under ')})` : name
   }
 
   function checkHandOrder() {
@@ -116,7 +120,7 @@ export function PlanPanel({ store }: { store: BoardStore }) {
           </div>
           {current && (
             <p className="text-xs" data-testid="current-step" aria-live="polite">
-              <strong>Step {(step ?? 0) + 1} of {steps.length}: {current.label}</strong> — {current.fabric ?? 'no fabric yet'}.{' '}
+              <strong>Step {(step ?? 0) + 1} of {steps.length}: {current.label}</strong> — {current.fabric ? nameOf(current.fabric) : 'no fabric yet'}.{' '}
               {current.planned.leavesBefore.length > 0 && <>First baste {current.planned.leavesBefore.map(describeLeaf).join('; ')} in place. </>}
               {current.sewnAlong ? 'Lay the piece right side down over the sewn areas, sew on the marked line, flip and press.' : 'Place the piece wrong side to the unprinted side of the paper.'}{' '}
               Cut {formatSize(current.planned.roughCut.widthIn, current.planned.roughCut.heightIn, units)}.
@@ -135,7 +139,7 @@ export function PlanPanel({ store }: { store: BoardStore }) {
                   const area = result.areas.find((a) => a.id === id)!
                   return (
                     <li key={id} className="ml-2">
-                      {area.label} · {area.fabric ?? '—'} · cut {formatSize(area.planned.roughCut.widthIn, area.planned.roughCut.heightIn, units)}
+                      {area.label} · {area.fabric ? nameOf(area.fabric) : '—'} · cut {formatSize(area.planned.roughCut.widthIn, area.planned.roughCut.heightIn, units)}
                       {area.planned.leavesBefore.length > 0 && <> · baste {area.planned.leavesBefore.map((id) => result.leafNames.get(id) ?? 'a leaf').join(', ')} first</>}
                     </li>
                   )

@@ -24,10 +24,10 @@ export function screenPoints(points: readonly Point[], view: View, repeats: numb
  */
 export function RingShapes({ store, design, plan, view }: { store: BoardStore; design: BoardDesign; plan: BoardPlan; view: View }) {
   const colorwayName = useBoard(store, (state) => state.activeColorway)
-  const colours = useMemo(
-    () => design.colorways.find((c) => c.name === colorwayName)?.fabrics ?? design.colorways[0]?.fabrics ?? {},
-    [design.colorways, colorwayName],
-  )
+  const colours = useMemo(() => {
+    const fabrics = design.colorways.find((c) => c.name === colorwayName)?.fabrics ?? design.colorways[0]?.fabrics ?? {}
+    return Object.fromEntries(Object.entries(fabrics).map(([fabric, { color }]) => [fabric, color]))
+  }, [design.colorways, colorwayName])
   const scene = useMemo(() => ringScene(design, plan, colours), [design, plan, colours])
   const labels = useMemo(() => areaShapes(plan).filter((area) => area.label), [plan])
   const sections = sectionOutlines(plan)

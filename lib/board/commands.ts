@@ -7,7 +7,11 @@ import { scaleDesignLengths } from '@/geometry/design-lengths'
 import { LAYER_SCALE_RANGE, LAYER_TURN_LIMIT_DEGREES } from '@/geometry/leaf-template'
 import { spreadLeafFabrics } from '@/geometry/spread-leaf-fabrics'
 import type { Point } from '@/geometry'
-import type { DesignFile } from '@/lib/schemas/design'
+import { fabricRoleInWords } from '@/geometry/fabric-requirements'
+import { MAX_COLORWAYS, MAX_NAME_LENGTH } from '@/lib/limits'
+import {
+  colorwayFabricSchema, colorwayNameSchema, fabricNameSchema, fabricRoleSchema, hexColourSchema, type ColorwayFabric, type DesignFile,
+} from '@/lib/schemas/design'
 import { unitsPerInch } from '@/lib/units'
 
 type Seam = DesignFile['seams'][number]
@@ -140,31 +144,128 @@ export const clearFill = defineCommand({
   }),
 })
 
-/** The fabric roles of a colourway, with their colours; roles are shared by every colourway. */
+// Colourways. Fabric roles (background, leaf-dark …) are shared by every colourway; each colourway
+// gives every role a fabric: a display name, a colour and, optionally, a swatch image. A colourway
+// is named by its name (unique in a design). Arguments that the schema would refuse (an empty
+// name, a name taken, a colour that is not #rrggbb) leave the design as it is, so nothing is
+// recorded: the board's forms check with the same schemas first and say why.
+
+const changeFabric = (design: BoardDesign, colorway: string, fabric: string, change: (f: ColorwayFabric) => ColorwayFabric): BoardDesign => {
+  const target = design.colorways.find((c) => c.name === colorway)
+  if (!target || !Object.hasOwn(target.fabrics, fabric)) return design
+  return { ...design, colorways: design.colorways.map((c) => (c === target ? { ...c, fabrics: { ...c.fabrics, [fabric]: change(c.fabrics[fabric]!) } } : c)) }
+}
+
+/** The colour of one role's fabric in one colourway (#rrggbb). */
 export const setFabricColour = defineCommand({
   name: 'set-fabric-colour',
-  run: (design, { colorway, fabric, colour }: { colorway: string; fabric: string; colour: string }) => ({
-    ...design,
-    colorways: design.colorways.map((c) => (c.name === colorway ? { ...c, fabrics: { ...c.fabrics, [fabric]: colour } } : c)),
-  }),
+  run: (design, { colorway, fabric, colour }: { colorway: string; fabric: string; colour: string }) => {
+    const parsed = hexColourSchema.safeParse(colour)
+    return parsed.success ? changeFabric(design, colorway, fabric, (f) => ({ ...f, color: parsed.data.toLowerCase() })) : design
+  },
 })
 
-/** Adds a fabric role to every colourway, each with the given starting colour. */
+/** The display name of one role's fabric in one colourway ("Cream tone-on-tone"). */
+export const renameFabric = defineCommand({
+  name: 'rename-fabric',
+  run: (design, { colorway, fabric, name }: { colorway: string; fabric: string; name: string }) => {
+    const parsed = fabricNameSchema.safeParse(name)
+    return parsed.success ? changeFabric(design, colorway, fabric, (f) => ({ ...f, name: parsed.data })) : design
+  },
+})
+
+/** The swatch image of one role's fabric in one colourway, by its upload key; null removes it. */
+export const setFabricSwatch = defineCommand({
+  name: 'set-fabric-swatch',
+  run: (design, { colorway, fabric, swatch }: { colorway: string; fabric: string; swatch: string | null }) => {
+    if (swatch === null) return changeFabric(design, colorway, fabric, ({ swatch: _dropped, ...rest }) => rest)
+    const parsed = colorwayFabricSchema.shape.swatch.safeParse(swatch)
+    return parsed.success && parsed.data !== undefined ? changeFabric(design, colorway, fabric, (f) => ({ ...f, swatch: parsed.data })) : design
+  },
+})
+
+/**
+ * Adds a fabric role to every colourway, each with the given starting colour and a display name
+ * (default: the role in words, "leaf-medium" → "Leaf medium"). A role already there is left as it is.
+ */
 export const addFabric = defineCommand({
   name: 'add-fabric',
-  run: (design, { fabric, colour }: { fabric: string; colour: string }) => ({
-    ...design,
-    colorways: design.colorways.map((c) => (fabric in c.fabrics ? c : { ...c, fabrics: { ...c.fabrics, [fabric]: colour } })),
-  }),
+  run: (design, { fabric, colour, name }: { fabric: string; colour: string; name?: string }) => {
+    const role = fabricRoleSchema.safeParse(fabric)
+    const fabricName = fabricNameSchema.safeParse(name ?? fabricRoleInWords(fabric))
+    const color = hexColourSchema.safeParse(colour)
+    if (!role.success || !fabricName.success || !color.success) return design
+    const added: ColorwayFabric = { name: fabricName.data, color: color.data.toLowerCase() }
+    if (design.colorways.every((c) => Object.hasOwn(c.fabrics, role.data))) return design
+    return { ...design, colorways: design.colorways.map((c) => (Object.hasOwn(c.fabrics, role.data) ? c : { ...c, fabrics: { ...c.fabrics, [role.data]: added } })) }
+  },
 })
 
-/** A new colourway starts as a copy of another, to be recoloured. */
+const copyFabrics = (fabrics: Colorway['fabrics']): Colorway['fabrics'] =>
+  Object.fromEntries(Object.entries(fabrics).map(([fabric, f]) => [fabric, { ...f }]))
+
+/** A name no colourway of the design has yet: `base`, else `base 2`, `base 3` … */
+export function freeColorwayName(design: Pick<BoardDesign, 'colorways'>, base: string): string {
+  const taken = new Set(design.colorways.map((c) => c.name))
+  if (!taken.has(base)) return base
+  let n = 2
+  while (taken.has(`${base} ${n}`)) n += 1
+  return `${base} ${n}`
+}
+
+/** A new colourway, at the end, starts as a copy of another (default the first), to be recoloured. */
 export const addColorway = defineCommand({
   name: 'add-colorway',
   run: (design, { name, copyOf }: { name: string; copyOf?: string }) => {
-    if (design.colorways.some((c) => c.name === name)) return design
+    const parsed = colorwayNameSchema.safeParse(name)
+    if (!parsed.success || design.colorways.some((c) => c.name === parsed.data) || design.colorways.length >= MAX_COLORWAYS) return design
     const source = design.colorways.find((c) => c.name === copyOf) ?? design.colorways[0]
-    return { ...design, colorways: [...design.colorways, { name, fabrics: { ...(source?.fabrics ?? {}) } }] }
+    return { ...design, colorways: [...design.colorways, { name: parsed.data, fabrics: copyFabrics(source?.fabrics ?? {}) }] }
+  },
+})
+
+/** A copy of a colourway, right after it, named `<name> copy` (or the name given). */
+export const duplicateColorway = defineCommand({
+  name: 'duplicate-colorway',
+  run: (design, { colorway, name }: { colorway: string; name?: string }) => {
+    const index = design.colorways.findIndex((c) => c.name === colorway)
+    if (index < 0 || design.colorways.length >= MAX_COLORWAYS) return design
+    const parsed = colorwayNameSchema.safeParse(name ?? freeColorwayName(design, `${colorway} copy`.slice(0, MAX_NAME_LENGTH)))
+    if (!parsed.success || design.colorways.some((c) => c.name === parsed.data)) return design
+    const copy = { name: parsed.data, fabrics: copyFabrics(design.colorways[index]!.fabrics) }
+    return { ...design, colorways: [...design.colorways.slice(0, index + 1), copy, ...design.colorways.slice(index + 1)] }
+  },
+})
+
+export const renameColorway = defineCommand({
+  name: 'rename-colorway',
+  run: (design, { colorway, name }: { colorway: string; name: string }) => {
+    const parsed = colorwayNameSchema.safeParse(name)
+    if (!parsed.success || parsed.data === colorway || design.colorways.some((c) => c.name === parsed.data)) return design
+    if (!design.colorways.some((c) => c.name === colorway)) return design
+    return { ...design, colorways: design.colorways.map((c) => (c.name === colorway ? { ...c, name: parsed.data } : c)) }
+  },
+})
+
+/** Moves a colourway earlier (`by` −1) or later (+1) in the list; the first is the default one. */
+export const moveColorway = defineCommand({
+  name: 'move-colorway',
+  run: (design, { colorway, by }: { colorway: string; by: number }) => {
+    const from = design.colorways.findIndex((c) => c.name === colorway)
+    const to = Math.min(design.colorways.length - 1, Math.max(0, from + Math.trunc(by)))
+    if (from < 0 || to === from) return design
+    const colorways = design.colorways.filter((_, i) => i !== from)
+    colorways.splice(to, 0, design.colorways[from]!)
+    return { ...design, colorways }
+  },
+})
+
+/** Deletes a colourway; the last one of a design is never deleted (the board always shows one). */
+export const deleteColorway = defineCommand({
+  name: 'delete-colorway',
+  run: (design, { colorway }: { colorway: string }) => {
+    if (design.colorways.length <= 1 || !design.colorways.some((c) => c.name === colorway)) return design
+    return { ...design, colorways: design.colorways.filter((c) => c.name !== colorway) }
   },
 })
 
@@ -357,8 +458,14 @@ export const commands = {
   fillArea,
   clearFill,
   setFabricColour,
+  renameFabric,
+  setFabricSwatch,
   addFabric,
   addColorway,
+  duplicateColorway,
+  renameColorway,
+  moveColorway,
+  deleteColorway,
   addLeaf,
   updateLeaf,
   flipLeafSide,

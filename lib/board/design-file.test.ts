@@ -5,7 +5,7 @@ import { designFileName, exportDesignFile, importDesignFile } from './design-fil
 function design(overrides: Partial<DesignFile> = {}): DesignFile {
   return {
     format: 'wreathwright-design',
-    version: 1,
+    version: 2,
     name: 'Winter Star',
     units: 'in',
     ring: { innerRadius: 0, outerRadius: 9, repeats: 6, repeatMode: 'mirror' },
@@ -15,7 +15,10 @@ function design(overrides: Partial<DesignFile> = {}): DesignFile {
     stems: [],
     berries: [],
     curls: [],
-    colorways: [{ name: 'Winter', fabrics: { background: '#f4ecd8', 'leaf-dark': '#23402f' } }],
+    colorways: [
+      { name: 'Winter', fabrics: { background: { name: 'Cream tone-on-tone', color: '#f4ecd8', swatch: 'uploads/u1/cream.webp' }, 'leaf-dark': { name: 'Spruce batik', color: '#23402f' } } },
+      { name: 'Ember', fabrics: { background: { name: 'Cinnamon stick tonal', color: '#8a4b2f' }, 'leaf-dark': { name: 'Moss shot cotton', color: '#5b7553' } } },
+    ],
     order: null,
     ...overrides,
   }
@@ -36,15 +39,28 @@ describe('exporting the design file', () => {
     expect(file.fileName).toBe('winter-star.wreathwright.json')
     expect(file.mimeType).toBe('application/json')
     expect(file.text.endsWith('}\n')).toBe(true)
-    expect(file.text).toContain('\n  "format": "wreathwright-design",\n  "version": 1,')
+    expect(file.text).toContain('\n  "format": "wreathwright-design",\n  "version": 2,')
     expect(Object.keys(JSON.parse(file.text) as object)).toEqual([
       'format', 'version', 'name', 'units', 'ring', 'seams', 'fills', 'leaves', 'stems', 'berries', 'curls', 'colorways', 'order',
     ])
   })
 
-  it('reads back exactly what it wrote', () => {
+  it('reads back exactly what it wrote: version 2, every colourway with its fabrics named', () => {
     const original = design()
     expect(importDesignFile(exportDesignFile(original).text)).toEqual({ ok: true, design: original })
+  })
+
+  it('opens a version 1 file, upgraded; exporting it writes version 2 with names from the roles', () => {
+    const v1 = { ...design(), version: 1, colorways: [{ name: 'Winter', fabrics: { background: '#f4ecd8', 'leaf-dark': '#23402f' } }] }
+    const imported = importDesignFile(JSON.stringify(v1))
+    if (!imported.ok) throw new Error(imported.message)
+    expect(imported.design.version).toBe(2)
+    expect(imported.design.colorways).toEqual([
+      { name: 'Winter', fabrics: { background: { name: 'Background', color: '#f4ecd8' }, 'leaf-dark': { name: 'Leaf dark', color: '#23402f' } } },
+    ])
+    const written = JSON.parse(exportDesignFile(imported.design).text) as DesignFile
+    expect(written.version).toBe(2)
+    expect(importDesignFile(exportDesignFile(imported.design).text)).toEqual({ ok: true, design: imported.design })
   })
 
   it('writes layer offsets only for a leaf that has them, and reads them back', () => {

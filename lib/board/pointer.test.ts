@@ -8,7 +8,7 @@ import { createBoardStore, design, type Tool } from './store'
 const quarterRing = (overrides: Partial<DesignFile> = {}): DesignFile => ({
   ...emptyDesign('Pointer test'),
   seams: [],
-  colorways: [{ name: 'Autumn', fabrics: { background: '#f4ecd8', rust: '#8a3b12' } }],
+  colorways: [{ name: 'Autumn', fabrics: { background: { name: 'Cream tone-on-tone', color: '#f4ecd8' }, rust: { name: 'Rust homespun', color: '#8a3b12' } } }],
   ...overrides,
 })
 

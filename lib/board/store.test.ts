@@ -7,7 +7,7 @@ import { createBoardStore, design } from './store'
 const emptyQuarterRing = (overrides: Partial<DesignFile> = {}): DesignFile => ({
   ...emptyDesign('Store test'),
   seams: [],
-  colorways: [{ name: 'Autumn', fabrics: { background: '#f4ecd8', leaf: '#8a3b12' } }],
+  colorways: [{ name: 'Autumn', fabrics: { background: { name: 'Cream tone-on-tone', color: '#f4ecd8' }, leaf: { name: 'Rust homespun', color: '#8a3b12' } } }],
   ...overrides,
 })
 

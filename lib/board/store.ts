@@ -162,8 +162,9 @@ export function createBoardStore(file: DesignFile, overrides: Partial<Omit<Board
   }
   const setHistory = (history: History<BoardDesign>) => {
     if (history === state.history) return
-    // A selection that points at something undone away is dropped.
-    set(keepValidSelection({ ...state, history }))
+    // A selection that points at something undone away is dropped; the active colourway follows
+    // a rename and moves to a neighbour when it is deleted (or undone away).
+    set(keepActiveColorway(state.history.present, keepValidSelection({ ...state, history })))
   }
 
   /** Private: every caller goes through a named operation below. */
@@ -211,6 +212,19 @@ export function createBoardStore(file: DesignFile, overrides: Partial<Omit<Board
     restartHandOrder: () => update({ handOrderDraft: [[]] }),
     endHandOrder: () => update({ tool: 'select', handOrderDraft: null }),
   }
+}
+
+/**
+ * The colourway shown stays the one chosen while it exists. When a command (or an undo) takes its
+ * name away, the board shows the colourway now at its place in the list: the renamed one after a
+ * rename, the next one (or the one before, for the last) after a delete.
+ */
+function keepActiveColorway(before: BoardDesign, state: BoardState): BoardState {
+  const colorways = design(state).colorways
+  if (colorways.some((c) => c.name === state.activeColorway)) return state
+  const index = before.colorways.findIndex((c) => c.name === state.activeColorway)
+  const next = colorways[Math.min(Math.max(index, 0), colorways.length - 1)]
+  return next ? { ...state, activeColorway: next.name } : state
 }
 
 function keepValidSelection(state: BoardState): BoardState {

@@ -25,17 +25,19 @@ describe('the cover warns of parts with no fabric', () => {
     const design = designFrom(wreathFile({ fills: [], colorways: [] }))
     const text = await coverText(buildBooklet(design, { paper: 'letter', parts: ['cover'] }))
     expect(text).toMatch(/Fabrics not chosen yet: No area has a fabric: A1, .* have none\./)
-    expect(text).toMatch(/The design has no colourway, so no fabric has a colour: berry \(berries\), leaf-dark \(leaves\), leaf-light \(leaves\) and stem \(the stem ring\)\./)
+    expect(text).toMatch(/The design has no colourway, so no fabric has a colour: Berry \(berries\), Leaf dark \(leaves\), Leaf light \(leaves\) and Stem \(the stem ring\)\./)
+    // The cutting list heads the areas with no fabric as the warning says.
+    expect(text).toMatch(/under "Unassigned"/)
     expect(text).toMatch(/printed grey/)
   })
 
   it('names the areas left unfilled and the roles the colourway does not colour', () => {
     const sentences = missingFabrics(model({
       fills: [{ at: [1, 1], fabric: 'background' }],
-      colorways: [{ name: 'Bare', fabrics: { background: '#f4ecd8', berry: '#a3392b' } }],
+      colorways: [{ name: 'Bare', fabrics: { background: { name: 'Cream tone-on-tone', color: '#f4ecd8' }, berry: { name: 'Cranberry dot', color: '#a3392b' } } }],
     }))
     expect(sentences[0]).toMatch(/^Areas (\w\d, )+\w\d and \w\d have no fabric\.$/)
-    expect(sentences[1]).toBe('The colourway Bare gives no colour to leaf-dark (leaves), leaf-light (leaves) and stem (the stem ring).')
+    expect(sentences[1]).toBe('The colourway Bare gives no colour to Leaf dark (leaves), Leaf light (leaves) and Stem (the stem ring).')
   })
 })
 

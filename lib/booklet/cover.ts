@@ -3,14 +3,14 @@
  * its size, and the fabric and cutting list that follows it.
  */
 import type { jsPDF } from 'jspdf'
-import { applyToPolygon, applyTransform, mapSmoothCurve, outlineFromPolygon, repeatTransforms, smoothCurve, tryPlaceLeafLayers, type AffineTransform, type Point } from '@/geometry'
+import { applyToPolygon, applyTransform, colorwayFabric, mapSmoothCurve, outlineFromPolygon, repeatTransforms, smoothCurve, tryPlaceLeafLayers, type AffineTransform, type Point } from '@/geometry'
 import { formatInches, inchesToCentimetres } from '@/lib/units'
 import { font } from './chrome'
 import { startPage, type BookletContext } from './context'
 import { fitView, rgb, solidPen, toPage, traceCurve, tracePath, tracePolygon, type View } from './draw'
 import { bindingLengthInches, cuttingList } from './fabric-list'
 import { BINDING_JOIN_INCHES, bindingPlan } from './finishing'
-import { fabricColour, UNASSIGNED_FABRIC, type BookletModel } from './model'
+import { fabricColour, fabricName, UNASSIGNED_FABRIC, type BookletModel } from './model'
 import { PAPERS } from './paper'
 import { startFlow } from './flow'
 
@@ -114,7 +114,7 @@ export function writeCover(context: BookletContext): void {
   const missing = missingFabrics(model)
   if (missing.length > 0) {
     font(doc, 10, 'bold', 0)
-    const warning: string[] = doc.splitTextToSize(`Fabrics not chosen yet: ${missing.join(' ')} These parts are printed grey (the cutting list counts areas without a fabric under "unassigned"). Choose their fabrics on the drafting board before cutting.`, width)
+    const warning: string[] = doc.splitTextToSize(`Fabrics not chosen yet: ${missing.join(' ')} These parts are printed grey (the cutting list counts areas without a fabric under "${fabricName(model, UNASSIGNED_FABRIC)}"). Choose their fabrics on the drafting board before cutting.`, width)
     doc.text(warning, x, line + 4)
     line += warning.length * 12 + 6
   }
@@ -157,9 +157,9 @@ export function missingFabrics(model: BookletModel): string[] {
   for (const leaf of design.leaves) leaf.layers.forEach((fabric) => use(fabric, 'leaves'))
   for (const stem of design.stems) use(stem.fabric, 'the stem ring')
   for (const berry of design.berries) use(berry.fabric, 'berries')
-  const uncoloured = [...uses.entries()].filter(([fabric]) => !colorway?.fabrics[fabric]).sort(([a], [b]) => a.localeCompare(b))
+  const uncoloured = [...uses.entries()].filter(([fabric]) => !colorwayFabric(colorway, fabric)).sort(([a], [b]) => a.localeCompare(b))
   if (uncoloured.length > 0) {
-    const list = listInWords(uncoloured.map(([fabric, parts]) => `${fabric} (${[...parts].join(', ')})`))
+    const list = listInWords(uncoloured.map(([fabric, parts]) => `${fabricName(model, fabric)} (${[...parts].join(', ')})`))
     sentences.push(colorway
       ? `The colourway ${colorway.name} gives no colour to ${list}.`
       : `The design has no colourway, so no fabric has a colour: ${list}.`)
@@ -179,14 +179,14 @@ function writeFabricPages(context: BookletContext): void {
     solidPen(doc, 0.4)
     doc.rect(flow.left, flow.y, 14, 10, 'FD')
     font(doc, 10, 'bold')
-    doc.text(fabric, flow.left + 20, flow.y + 8)
+    doc.text(fabricName(model, fabric), flow.left + 20, flow.y + 8)
     flow.y += 10
     for (const piece of pieces) flow.paragraph(piece, { indent: 20, size: 8.5 })
   }
   flow.gap(8)
   flow.heading('Binding')
   const binding = bindingPlan(model.design)
-  flow.paragraph(`Double-fold bias binding, cut ${formatInches(binding.cutWidthIn)} wide from ${binding.fabric}: ${bindingLengthInches(model)} in in all, a strip for each curved edge (a curved edge must be bound with strips cut on the bias). Fold each strip in half lengthwise, wrong sides together, and press.`)
+  flow.paragraph(`Double-fold bias binding, cut ${formatInches(binding.cutWidthIn)} wide from ${fabricName(model, binding.fabric)}: ${bindingLengthInches(model)} in in all, a strip for each curved edge (a curved edge must be bound with strips cut on the bias). Fold each strip in half lengthwise, wrong sides together, and press.`)
   for (const edge of binding.edges) {
     flow.paragraph(`- ${edge.edge === 'outer' ? 'Outer' : 'Inner'} edge: 2 × 3.14 × ${formatInches(edge.radiusIn)} = ${edge.circumferenceIn.toFixed(1)} in, plus ${BINDING_JOIN_INCHES} in for joining the ends: ${edge.stripLengthIn} in.`, { indent: 10 })
   }

@@ -18,7 +18,7 @@ import { font } from './chrome'
 import type { BookletContext } from './context'
 import { dashedPen, solidPen, toPage, tracePath, tracePolygon, type View } from './draw'
 import { leafName } from './leaves'
-import { leavesInBooklet, sectionAreas, type BookletModel, type FoundationKind } from './model'
+import { fabricName, leavesInBooklet, sectionAreas, type BookletModel, type FoundationKind } from './model'
 import { pageFrame, type PageRect } from './paper'
 import { tileDrawing, writeTiledDrawing, type TiledDrawing } from './tiled-drawing'
 import type { TileLayout } from './tiling'
@@ -109,10 +109,10 @@ function foundationSheet(model: BookletModel, kind: FoundationKind): FoundationS
     // Area labels are placed first, so the leaf notes can keep clear of them.
     const labels = printed.flatMap(({ area }) => {
       const at = toPage(view, applyTransform(placement, area.point))
-      const fabric = model.fabricOf.get(area.id) ?? ''
       font(doc, 6.5)
+      const fabric = fittingName(fabricName(model, model.fabricOf.get(area.id) ?? ''), (text) => fitsIn(window, at, Math.max(doc.getTextWidth(text), 20) / 2 + 2, 12))
+      if (fabric === null) return []
       const fabricWidth = doc.getTextWidth(fabric)
-      if (!fitsIn(window, at, Math.max(fabricWidth, 20) / 2 + 2, 12)) return []
       font(doc, 10, 'bold')
       const groundWidth = Math.max(fabricWidth, doc.getTextWidth(area.label ?? '')) + 4
       const ground: PageRect = { x: at[0] - groundWidth / 2, y: at[1] - 9, width: groundWidth, height: 19.5 }
@@ -167,6 +167,7 @@ function seamLines(polygons: readonly Polygon[]): Segment[] {
 interface PrintedLeaf {
   /** Its plain name ("leaf 1 of A2"), never its id. */
   readonly name: string
+  /** Its layers' fabrics by name in the booklet's colourway, bottom first. */
   readonly layers: readonly string[]
   readonly outline: Polygon
   readonly ticks: readonly [Point, Point][]
@@ -186,7 +187,7 @@ function leavesOfSection(model: BookletModel, kind: FoundationKind, sheetPlaceme
       const t = sheetPlacement
       return {
         name: leafName(model, leaf.id),
-        layers: leaf.layers,
+        layers: leaf.layers.map((fabric) => fabricName(model, fabric)),
         outline: applyToPolygon(t, placement.finishedOutline),
         ticks: ticks.map(([a, b]): [Point, Point] => [applyTransform(t, a), applyTransform(t, b)]),
         tip: applyTransform(t, placement.tip),
@@ -244,6 +245,21 @@ function drawLeafMarks(doc: jsPDF, view: View, window: PageRect, leaf: PrintedLe
       return
     }
   }
+}
+
+/**
+ * A fabric's name as it fits under an area label: whole, or cut short with "..." (a long display
+ * name must not cost the area its label); null when not even a short one fits.
+ *
+ * @example fittingName('Snowberry white tone-on-tone', (text) => text.length <= 12) // 'Snowberry...'
+ */
+export function fittingName(name: string, fits: (text: string) => boolean): string | null {
+  if (fits(name)) return name
+  for (let length = name.length - 1; length >= 4; length -= 1) {
+    const short = `${name.slice(0, length).trimEnd()}...`
+    if (fits(short)) return short
+  }
+  return null
 }
 
 /** True when a box of half-width `halfWidth` and `height` below the baseline-ish point fits the window. */

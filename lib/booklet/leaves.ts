@@ -6,7 +6,7 @@
  */
 import { leafBaseOnSeam, leafLayers, PIECES_PER_FOLDED_LEAF, type Leaf, type PlanArea, type Point, type Segment } from '@/geometry'
 import { formatInches } from '@/lib/units'
-import type { BookletModel } from './model'
+import { fabricName, type BookletModel } from './model'
 
 /** A seam end this close to an outline edge or an area's boundary lies on it, inches (seam ends snap within 0.01 in). */
 const ON_EDGE_INCHES = 0.02
@@ -64,15 +64,15 @@ export function leafName(model: BookletModel, leafId: string): string {
 }
 
 /**
- * The layers in words, bottom first, with each layer's size and any turn of its own (as seen on
- * the fabric side).
+ * The layers in words, bottom first, each by its fabric's name in the model's colourway, with its
+ * size and any turn of its own (as seen on the fabric side).
  *
- * @example layersInWords(leaf) // 'layers bottom first: leaf-dark 1 3/4 × 7/8 in, leaf-light 1 5/8 × 3/4 in turned 10° counter-clockwise'
+ * @example layersInWords(model, leaf) // 'layers bottom first: Holly green batik 1 3/4 × 7/8 in, Sage sprig print 1 5/8 × 3/4 in turned 10° counter-clockwise'
  */
-export function layersInWords(leaf: Leaf): string {
+export function layersInWords(model: BookletModel, leaf: Leaf): string {
   const words = leafLayers(leaf).map(({ fabric, length, width, turn }) => {
     const turned = Math.abs(turn) < SQUARE_DEGREES ? '' : ` turned ${Math.round(Math.abs(turn))}° ${turn > 0 ? 'counter-clockwise' : 'clockwise'}`
-    return `${fabric} ${formatInches(length).replace(' in', '')} × ${formatInches(width)}${turned}`
+    return `${fabricName(model, fabric)} ${formatInches(length).replace(' in', '')} × ${formatInches(width)}${turned}`
   })
   return words.length > 1 ? `layers bottom first: ${words.join(', ')}` : `one layer: ${words[0] ?? ''}`
 }

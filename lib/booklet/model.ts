@@ -3,7 +3,7 @@
  * each area's fabric, the foundations to print and the fabric each repeat needs. Pure data.
  */
 import {
-  areaUnderLeaf, fabricsOfAreas, IDENTITY, leafNames, planDesign, printedSideTransform, scaleDesign,
+  areaUnderLeaf, colorwayFabric, fabricDisplayName, fabricsOfAreas, IDENTITY, leafNames, planDesign, printedSideTransform, scaleDesign,
   tryPlaceLeaf, UNASSIGNED_FABRIC, type AffineTransform, type Colorway, type Design, type Leaf, type LeafPlacement, type Plan, type PlanArea,
 } from '@/geometry'
 import { SAME_SIZE_INCHES } from '@/geometry/tolerances'
@@ -95,12 +95,22 @@ function oddNumbers(n: number, first: number): string {
 }
 
 /**
+ * The name the maker reads for a fabric role: the fabric the model's colourway gives it, or the
+ * role in words (`fabricDisplayName`). Every page that names a fabric asks here, never prints a role.
+ *
+ * @example fabricName(model, 'leaf-dark') // 'Holly green batik'
+ */
+export function fabricName(model: BookletModel, fabric: string): string {
+  return fabricDisplayName(model.colorway, fabric)
+}
+
+/**
  * The colour of a fabric role in the model's colourway (grey when it has none).
  *
  * @example fabricColour(model, 'background') // '#f4ecd8'
  */
 export function fabricColour(model: BookletModel, fabric: string): string | undefined {
-  return model.colorway?.fabrics[fabric]
+  return colorwayFabric(model.colorway, fabric)?.color
 }
 
 /**

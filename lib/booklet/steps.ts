@@ -14,7 +14,7 @@ import { dashedPen, fitView, rgb, solidPen, toPage, tracePath, tracePolygon } fr
 import { startFlow, WRAP_SLACK_PT } from './flow'
 import { bindingPlan, stemSewing, stemStrip } from './finishing'
 import { layersInWords, leafBatches, leafName, leafPlace, PIECES_PER_FOLDED_LEAF } from './leaves'
-import { fabricColour, leavesInBooklet, sectionAreas, type BookletModel, type FoundationKind, type LeafInBooklet } from './model'
+import { fabricColour, fabricName, leavesInBooklet, sectionAreas, type BookletModel, type FoundationKind, type LeafInBooklet } from './model'
 
 /** A corner of an area this close to a seam's line lies on it, inches. */
 const SEAM_LINE_INCHES = 0.01
@@ -64,7 +64,7 @@ function sharesLine(earlier: PlanArea, sewnAlong: Segment): boolean {
 
 /** What the maker does for one area, in words. */
 function stepText(model: BookletModel, area: PlanArea, previous: PlanArea[]): string[] {
-  const fabric = model.fabricOf.get(area.id) ?? ''
+  const fabric = fabricName(model, model.fabricOf.get(area.id) ?? '')
   const cut = `${formatInches(area.roughCut.widthIn).replace(' in', '')} × ${formatInches(area.roughCut.heightIn).replace(' in', '')}`
   if (area.sewnAlong === null) {
     return [`${area.label}: ${fabric}. Cut ${cut} in. Lay it wrong side to the unprinted side of the paper, right side out, covering ${area.label} with at least 1/4 in to spare all round; pin or glue it in place.`]
@@ -85,7 +85,7 @@ function stepText(model: BookletModel, area: PlanArea, previous: PlanArea[]): st
  */
 function leafBastingWords(model: BookletModel, entry: LeafInBooklet, line: Segment): string {
   const place = leafPlace(model, entry.leaf, line, entry.over, entry.catcher)
-  return `${place.name} (${layersInWords(entry.leaf)}): unfold the paper and lay the leaf on the fabric side ${place.words}, its raw edges on the trimmed edge (1/4 in past the line). From the printed side, baste on the line through it with long stitches, so it stays put and its place shows on the fabric side.`
+  return `${place.name} (${layersInWords(model, entry.leaf)}): unfold the paper and lay the leaf on the fabric side ${place.words}, its raw edges on the trimmed edge (1/4 in past the line). From the printed side, baste on the line through it with long stitches, so it stays put and its place shows on the fabric side.`
 }
 
 /** The section seen from the printed side: sewn areas grey, this one in its colour, the piece before the flip dashed. */
@@ -165,7 +165,7 @@ export function writeSteps(context: BookletContext): void {
       const seam = model.design.seams.find((s) => s.id === entry.leaf.seam)
       const line = seam ? joinLine(entry, seam.from, seam.to) : null
       const place = line ? leafPlace(model, entry.leaf, line, entry.over, null) : null
-      flow.paragraph(`- ${leafName(model, entry.leaf.id)} on section ${entry.section} (${layersInWords(entry.leaf)}): ${place ? `lay it on the fabric side ${place.words}; from the printed side, baste on the line through it.` : 'baste it on its marks.'}`, { indent: 10, size: 8.5 })
+      flow.paragraph(`- ${leafName(model, entry.leaf.id)} on section ${entry.section} (${layersInWords(model, entry.leaf)}): ${place ? `lay it on the fabric side ${place.words}; from the printed side, baste on the line through it.` : 'baste it on its marks.'}`, { indent: 10, size: 8.5 })
     }
   }
   flow.heading('Joining the repeats')
@@ -200,7 +200,7 @@ function writeLeafPreparation(model: BookletModel, flow: ReturnType<typeof start
   flow.heading('Prepare the leaves')
   flow.paragraph(`Make every folded leaf before you sew the foundations, one fabric at a time (batch them: cut all, sew all, turn and press all). The ring needs ${perRepeat * design.ring.repeats} folded leaves: ${perRepeat} per repeat × ${design.ring.repeats} repeats (each layer of a stacked leaf is a folded leaf of its own).`)
   for (const batch of batches) {
-    flow.paragraph(`- ${batch.fabric}: ${batch.folded} folded leaves ${formatInches(batch.lengthIn).replace(' in', '')} × ${formatInches(batch.widthIn)}, from ${batch.pieces} pieces.`, { indent: 10 })
+    flow.paragraph(`- ${fabricName(model, batch.fabric)}: ${batch.folded} folded leaves ${formatInches(batch.lengthIn).replace(' in', '')} × ${formatInches(batch.widthIn)}, from ${batch.pieces} pieces.`, { indent: 10 })
   }
   flow.paragraph(`Each folded leaf is made of ${PIECES_PER_FOLDED_LEAF} pieces cut from its leaf template (see the templates): lay two pieces of its fabric, a little larger than the template, right sides together; trace the template's solid sew line on the top one and sew on it, leaving the open end open; cut both on the dashed cut line; clip across the tip, turn right side out through the open end, push out the point and press flat.`)
 }
@@ -221,6 +221,6 @@ function writeFinishing(context: BookletContext, flow: ReturnType<typeof startFl
   }
   const binding = bindingPlan(design)
   const edges = binding.edges.map((edge) => `${edge.stripLengthIn} in for the ${edge.edge} edge`).join(' and ')
-  steps.push(`Bind the ${binding.edges.length > 1 ? 'outer and inner curved edges' : 'curved edge'} with double-fold bias binding cut ${formatInches(binding.cutWidthIn)} wide from ${binding.fabric} (${edges}, see the cutting list); join each strip's ends on its own edge.`)
+  steps.push(`Bind the ${binding.edges.length > 1 ? 'outer and inner curved edges' : 'curved edge'} with double-fold bias binding cut ${formatInches(binding.cutWidthIn)} wide from ${fabricName(context.model, binding.fabric)} (${edges}, see the cutting list); join each strip's ends on its own edge.`)
   steps.forEach((step, index) => flow.paragraph(`${index + 1}. ${step}`))
 }

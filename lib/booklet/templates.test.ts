@@ -96,7 +96,7 @@ describe('templates of stacked leaves', () => {
     // (and drawn) 1 5/8 × 3/4 in, to the nearest 1/8 in.
     const doc = await openPdf(buildBooklet(designFrom(wreathFile()), { paper: 'letter', parts: ['templates'] }))
     const text = (await Promise.all((await templatePages(doc)).map(async (page) => (await pageText(doc, page)).map((item) => item.text).join(' ')))).join(' ')
-    expect(text).toMatch(/Leaf 1 3\/4 × 7\/8 in 8 [^:]*: leaf-dark\b/)
-    expect(text).toMatch(/Leaf 1 5\/8 × 3\/4 in 8 [^:]*: leaf-light\b/)
+    expect(text).toMatch(/Leaf 1 3\/4 × 7\/8 in 8 [^:]*: Holly green batik\b/)
+    expect(text).toMatch(/Leaf 1 5\/8 × 3\/4 in 8 [^:]*: Sage sprig print\b/)
   })
 })

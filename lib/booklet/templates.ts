@@ -8,6 +8,7 @@ import { formatInches, POINTS_PER_INCH } from '@/lib/units'
 import { drawHeader, drawTestSquares, font, HEADER_HEIGHT_PT, TEST_BAND_HEIGHT_PT } from './chrome'
 import { startPage, type BookletContext } from './context'
 import { dashedPen, solidPen, toPage, traceCurve, tracePath, tracePolygon, trueScaleView, type View } from './draw'
+import { fabricName } from './model'
 import { writeTiledDrawing } from './tiled-drawing'
 
 interface Template {
@@ -57,7 +58,7 @@ function leafTemplates(context: BookletContext): Template[] {
     templates.push({
       widthIn: box[2] - box[0],
       heightIn: box[3] - box[1],
-      caption: [`Leaf ${sizeInWords(length).replace(' in', '')} × ${sizeInWords(width)}`, `${count} folded leaves = ${2 * count} pieces: ${[...fabrics].join(', ')}`],
+      caption: [`Leaf ${sizeInWords(length).replace(' in', '')} × ${sizeInWords(width)}`, `${count} folded leaves = ${2 * count} pieces: ${[...fabrics].map((fabric) => fabricName(context.model, fabric)).join(', ')}`],
       draw: (doc, left, top) => {
         const view = trueScaleView(box[0], box[3], left, top)
         dashedPen(doc, 0.6, [4, 2])

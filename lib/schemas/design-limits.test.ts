@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest'
 import {
   MAX_AREAS, MAX_BERRIES, MAX_COLORWAYS, MAX_CURLS, MAX_DESIGN_BYTES, MAX_DESIGN_FILE_BYTES, MAX_FABRICS_PER_COLORWAY, MAX_ID_LENGTH,
   MAX_LAYERS_PER_LEAF, MAX_LEAVES, MAX_NAME_LENGTH, MAX_POINTS_PER_CURL, MAX_ROLE_LENGTH, MAX_SEAMS, MAX_SECTIONS, MAX_STEMS,
+  MAX_UPLOAD_KEY_LENGTH,
 } from '@/lib/limits'
 import { designFileSchema, nestingDepth, parseDesign } from './design'
 
@@ -51,7 +52,12 @@ function largestDesign(): Record<string, unknown> {
     stems: Array.from({ length: MAX_STEMS }, () => ({ radius: HUGE, finishedWidth: HUGE, fabric: role })),
     berries: Array.from({ length: MAX_BERRIES }, () => ({ at: point, finishedDiameter: HUGE, fabric: role })),
     curls: Array.from({ length: MAX_CURLS }, () => ({ points: Array.from({ length: MAX_POINTS_PER_CURL }, () => point) })),
-    colorways: longest(MAX_COLORWAYS, MAX_NAME_LENGTH).map((name) => ({ name, fabrics: Object.fromEntries(roles.map((r) => [r, '#aabbcc'])) })),
+    // Version 2: every fabric of every colourway named at the longest, with the longest swatch key (ASCII).
+    version: 2,
+    colorways: longest(MAX_COLORWAYS, MAX_NAME_LENGTH).map((name) => ({
+      name,
+      fabrics: Object.fromEntries(roles.map((r) => [r, { name, color: '#aabbcc', swatch: 'k'.repeat(MAX_UPLOAD_KEY_LENGTH) }])),
+    })),
     order: {
       sections: labels.map((label, i) => ({ label, areas: Array.from({ length: i < MAX_AREAS % MAX_SECTIONS ? 3 : 2 }, () => point) })),
       assembly,

@@ -76,7 +76,8 @@ describe('parseDesign', () => {
 
   it('rejects units other than in and cm, and a wrong format or version', () => {
     expect(firstIssuePath(designFile({ units: 'mm' }))).toBe('units')
-    expect(firstIssuePath(designFile({ version: 2 }))).toBe('version')
+    expect(firstIssuePath(designFile({ version: 3 }))).toBe('version')
+    expect(firstIssuePath(designFile({ version: '1' }))).toBe('version')
     expect(firstIssuePath(designFile({ format: 'other' }))).toBe('format')
   })
 

@@ -1,15 +1,21 @@
 /**
- * The design file (format `wreathwright-design`, version 1) as one zod schema, shared by the
+ * The design file (format `wreathwright-design`, version 2) as one zod schema, shared by the
  * API, the drafting board and the command line. `parseDesign` is the one edge where a file
  * becomes the core's `Design`: centimetres are converted to inches here, once.
+ *
+ * Version 2 gives each fabric role of a colourway a fabric (`{ name, color, swatch? }`) where
+ * version 1 gave it only a colour. A version 1 file still reads: `designFileSchema` upgrades it
+ * first (`upgradeDesignFile`), so every reader — the API, the board, the command line, the
+ * stored revisions — gets version 2, and every writer writes version 2.
  */
 import { z } from 'zod'
 import { scaleDesignLengths } from '@/geometry/design-lengths'
+import { fabricRoleInWords } from '@/geometry/fabric-requirements'
 import { LAYER_SCALE_RANGE, LAYER_TURN_LIMIT_DEGREES } from '@/geometry/leaf-template'
 import type { Design, HandSetOrder, JoinTree, Point } from '@/geometry/types'
 import {
   MAX_AREAS, MAX_BERRIES, MAX_COLORWAYS, MAX_CURLS, MAX_FABRICS_PER_COLORWAY, MAX_ID_LENGTH, MAX_LAYERS_PER_LEAF, MAX_LEAVES,
-  MAX_NAME_LENGTH, MAX_POINTS_PER_CURL, MAX_ROLE_LENGTH, MAX_SEAMS, MAX_SECTIONS, MAX_STEMS,
+  MAX_NAME_LENGTH, MAX_POINTS_PER_CURL, MAX_ROLE_LENGTH, MAX_SEAMS, MAX_SECTIONS, MAX_STEMS, MAX_UPLOAD_KEY_LENGTH,
 } from '@/lib/limits'
 import { CENTIMETRES_PER_INCH } from '@/lib/units'
 import { text } from './text'
@@ -60,10 +66,34 @@ const stem = z.strictObject({ radius: positive, finishedWidth: positive, fabric:
 const binding = z.strictObject({ cutWidth: positive.optional(), fabric: role.optional() })
 const berry = z.strictObject({ at: point, finishedDiameter: positive, fabric: role })
 const curl = z.strictObject({ points: list(point, MAX_POINTS_PER_CURL, 'points in a curl').min(2) })
+/** A colour as `#rrggbb`. */
+export const hexColourSchema = z.string().regex(/^#[0-9a-fA-F]{6}$/, 'a colour is #rrggbb')
+
+/**
+ * A colourway's name ("Winter berries"), and a fabric's display name ("Cream tone-on-tone"): the
+ * schemas the board's forms and its commands check with, the same as the file's.
+ */
+export const colorwayNameSchema = text({ max: MAX_NAME_LENGTH })
+export const fabricNameSchema = text({ max: MAX_NAME_LENGTH })
+/** A fabric role: the key the areas, leaves, stems and berries name ("leaf-dark"). */
+export const fabricRoleSchema = role
+
+/**
+ * An uploaded swatch image, by its key in the object store (uploads are stored and checked
+ * elsewhere; the design keeps only the key). The characters an object key may safely hold.
+ */
+const uploadKey = text({ max: MAX_UPLOAD_KEY_LENGTH }).regex(
+  /^(?!\/)(?!.*\.\.)[A-Za-z0-9!_.*'()/-]+$/,
+  "a swatch is an upload key: letters, digits and ! _ . * ' ( ) / -, not starting with / and without ..",
+)
+
+/** What a colourway gives one fabric role: the fabric as the maker buys it. */
+export const colorwayFabricSchema = z.strictObject({ name: fabricNameSchema, color: hexColourSchema, swatch: uploadKey.optional() })
+
 const colorway = z.strictObject({
-  name: text({ max: MAX_NAME_LENGTH }),
+  name: colorwayNameSchema,
   fabrics: z
-    .record(role, z.string().regex(/^#[0-9a-fA-F]{6}$/, 'a colour is #rrggbb'))
+    .record(role, colorwayFabricSchema)
     .refine((fabrics) => Object.keys(fabrics).length <= MAX_FABRICS_PER_COLORWAY, `at most ${MAX_FABRICS_PER_COLORWAY} fabrics in a colourway`),
 })
 
@@ -131,15 +161,13 @@ const ring = z
   })
 
 /**
- * The schema of a design file. Unknown keys are rejected, each issue carries the path of the
- * offending field.
- *
- * @example designFileSchema.safeParse(JSON.parse(text)).success
+ * The schema of a version 2 design file. Unknown keys are rejected, each issue carries the path of
+ * the offending field.
  */
-export const designFileSchema = z
+const designFileV2Schema = z
   .strictObject({
     format: z.literal('wreathwright-design'),
-    version: z.literal(1),
+    version: z.literal(2),
     name: text({ max: MAX_NAME_LENGTH, min: 0 }),
     units: z.enum(['in', 'cm']),
     ring,
@@ -177,10 +205,50 @@ export const designFileSchema = z
       }
       labels.add(section.label)
     })
+    const colorwayNames = new Set<string>()
+    ;(file.colorways ?? []).forEach((c, index) => {
+      if (colorwayNames.has(c.name)) context.addIssue({ code: 'custom', path: ['colorways', index, 'name'], message: `colourway "${c.name}" is named twice` })
+      colorwayNames.add(c.name)
+    })
   })
 
-/** A design file as written on disk (in its own units). */
+const isRecord = (value: unknown): value is Record<string, unknown> => typeof value === 'object' && value !== null && !Array.isArray(value)
+
+/**
+ * A version 1 file as version 2, before validation; anything else is returned as it is. Version 1
+ * gave each role of a colourway only its colour: the fabric takes the role in words as its name
+ * ("leaf-dark" → "Leaf dark") and that colour (a wrong colour is still refused, at
+ * `colorways.0.fabrics.<role>.color`). Nothing else changed between the versions.
+ *
+ * @example (upgradeDesignFile({ version: 1, colorways: [{ name: 'Holly', fabrics: { 'leaf-dark': '#2f5540' } }] }) as { colorways: unknown }).colorways // [{ name: 'Holly', fabrics: { 'leaf-dark': { name: 'Leaf dark', color: '#2f5540' } } }]
+ */
+export function upgradeDesignFile(json: unknown): unknown {
+  if (!isRecord(json) || json.version !== 1) return json
+  const { colorways, ...rest } = json
+  if (!Array.isArray(colorways)) return { ...rest, version: 2, ...(colorways !== undefined && { colorways }) }
+  return {
+    ...rest,
+    version: 2,
+    colorways: colorways.map((c: unknown) =>
+      isRecord(c) && isRecord(c.fabrics)
+        ? { ...c, fabrics: Object.fromEntries(Object.entries(c.fabrics).map(([fabric, color]) => [fabric, { name: fabricRoleInWords(fabric), color }])) }
+        : c,
+    ),
+  }
+}
+
+/**
+ * The schema of a design file: version 2, or version 1 upgraded to version 2 on the way in
+ * (`upgradeDesignFile`). Its output is always version 2.
+ *
+ * @example designFileSchema.safeParse(JSON.parse(text)).success
+ */
+export const designFileSchema = z.preprocess(upgradeDesignFile, designFileV2Schema)
+
+/** A design file as written on disk (in its own units), version 2. */
 export type DesignFile = z.infer<typeof designFileSchema>
+/** What a colourway gives one role: `{ name, color, swatch? }`. */
+export type ColorwayFabric = z.infer<typeof colorwayFabricSchema>
 
 /** One reason a file is not a valid design, with the dotted path of the field, e.g. `ring.outerRadius`. */
 export interface DesignIssue {
@@ -256,7 +324,10 @@ function toInchesDesign(original: DesignFile): Design {
     stems: (file.stems ?? []).map((s) => ({ radius: s.radius, finishedWidth: s.finishedWidth, fabric: s.fabric })),
     berries: (file.berries ?? []).map((b) => ({ at: at(b.at), finishedDiameter: b.finishedDiameter, fabric: b.fabric })),
     curls: (file.curls ?? []).map((c) => ({ points: c.points.map(at) })),
-    colorways: (file.colorways ?? []).map((c) => ({ name: c.name, fabrics: { ...c.fabrics } })),
+    colorways: (file.colorways ?? []).map((c) => ({
+      name: c.name,
+      fabrics: Object.fromEntries(Object.entries(c.fabrics).map(([fabric, f]) => [fabric, { ...f }])),
+    })),
     order,
     ...(file.binding && { binding: { ...file.binding } }),
   }

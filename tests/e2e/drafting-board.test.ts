@@ -93,10 +93,11 @@ describe('a designer drafts a ring on the board', () => {
     await expect.poll(() => page.getByRole('status', { name: 'Leaf colours' }).innerText()).toMatch(/one leaf in each repeat|one fabric/)
     expect((await boardDesign(page)).leaves[0]).toEqual(leafBeforeSpread)
 
-    // Fill two areas: the centre with the background, the band with a new fabric.
-    await page.getByRole('button', { name: 'Fill with background' }).click()
+    // Fill two areas: the centre with the background, the band with a new fabric role (named in
+    // words; its key is derived: "Band" → band).
+    await page.getByRole('button', { name: 'Fill with Background' }).click()
     await clickAt(page, [2, 1])
-    await page.getByLabel('New fabric name').fill('band')
+    await page.getByLabel('New fabric role').fill('Band')
     await page.getByRole('button', { name: 'Add', exact: true }).click()
     await page.keyboard.press('f')
     await clickAt(page, [5.5, 2])

@@ -20,7 +20,7 @@ export function designFrom(file: DesignFile): Design {
 export function wreathFile(overrides: Partial<DesignFile> = {}): DesignFile {
   return {
     format: 'wreathwright-design',
-    version: 1,
+    version: 2,
     name: 'Test Wreath',
     units: 'in',
     ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' },
@@ -43,8 +43,24 @@ export function wreathFile(overrides: Partial<DesignFile> = {}): DesignFile {
     berries: [{ at: polar(7.75, 20), finishedDiameter: 0.625, fabric: 'berry' }],
     curls: [{ points: [polar(8.1, 40), polar(8.4, 44), polar(8.2, 49)] }],
     colorways: [
-      { name: 'Holly', fabrics: { background: '#f4ecd8', band: '#c9d6b8', sky: '#b8c9d6', 'leaf-dark': '#2f5540', 'leaf-light': '#6f9a6a', stem: '#4a3a2a', berry: '#a3392b' } },
-      { name: 'Frost', fabrics: { background: '#eef2f5', band: '#c8d4de', sky: '#dde6ee', 'leaf-dark': '#41607a', 'leaf-light': '#8fb0c8', stem: '#5b6670', berry: '#d9dee3' } },
+      {
+        name: 'Holly',
+        fabrics: {
+          background: { name: 'Parchment tone-on-tone', color: '#f4ecd8' }, band: { name: 'Pale fern crossweave', color: '#c9d6b8' },
+          sky: { name: 'Morning mist solid', color: '#b8c9d6' }, 'leaf-dark': { name: 'Holly green batik', color: '#2f5540' },
+          'leaf-light': { name: 'Sage sprig print', color: '#6f9a6a' }, stem: { name: 'Bark brown shot cotton', color: '#4a3a2a' },
+          berry: { name: 'Rosehip red tonal dot', color: '#a3392b' },
+        },
+      },
+      {
+        name: 'Frost',
+        fabrics: {
+          background: { name: 'Snowberry white tone-on-tone', color: '#eef2f5' }, band: { name: 'Icicle blue crossweave', color: '#c8d4de' },
+          sky: { name: 'Frozen pond solid', color: '#dde6ee' }, 'leaf-dark': { name: 'Spruce shadow batik', color: '#41607a' },
+          'leaf-light': { name: 'Glacier print', color: '#8fb0c8' }, stem: { name: 'Pewter shot cotton', color: '#5b6670' },
+          berry: { name: 'Silver birch dot', color: '#d9dee3' },
+        },
+      },
     ],
     order: null,
     ...overrides,
