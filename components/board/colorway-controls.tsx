@@ -2,7 +2,8 @@
 
 import { useState, type FormEvent } from 'react'
 import { fabricRoleInWords } from '@/geometry/fabric-requirements'
-import { freeColorwayName, type BoardDesign } from '@/lib/board/commands'
+import { boardActions, type ActionContext } from '@/lib/board/actions'
+import type { BoardDesign } from '@/lib/board/commands'
 import type { BoardStore } from '@/lib/board/store'
 import { MAX_COLORWAYS } from '@/lib/limits'
 import { colorwayNameSchema, fabricNameSchema, fabricRoleSchema } from '@/lib/schemas/design'
@@ -20,25 +21,12 @@ const firstMessage = (result: { success: boolean; error?: { issues: readonly { m
  * move and delete them. Every change is an undoable board command; names are checked with the
  * design file's own schema (`colorwayNameSchema`) before the command runs.
  */
-export function ColorwayControls({ store, design, colorway }: { store: BoardStore; design: BoardDesign; colorway: Colorway | undefined }) {
+export function ColorwayControls({ context, design, colorway }: { context: ActionContext; design: BoardDesign; colorway: Colorway | undefined }) {
+  const { store } = context
   const [renaming, setRenaming] = useState(false)
   const [error, setError] = useState<string | null>(null)
   const index = design.colorways.findIndex((c) => c === colorway)
   const full = design.colorways.length >= MAX_COLORWAYS
-
-  function create() {
-    const name = freeColorwayName(design, `Colourway ${design.colorways.length + 1}`)
-    store.run('addColorway', { name, copyOf: colorway?.name })
-    store.chooseColorway(name)
-  }
-
-  function duplicate() {
-    if (!colorway) return
-    const before = new Set(design.colorways.map((c) => c.name))
-    store.run('duplicateColorway', { colorway: colorway.name })
-    const copy = store.getState().history.present.colorways.find((c) => !before.has(c.name))
-    if (copy) store.chooseColorway(copy.name)
-  }
 
   function rename(event: FormEvent<HTMLFormElement>) {
     event.preventDefault()
@@ -71,10 +59,10 @@ export function ColorwayControls({ store, design, colorway }: { store: BoardStor
         </select>
       </div>
       <div className="flex flex-wrap gap-1" role="group" aria-label="Colourway actions">
-        <button type="button" onClick={create} disabled={full} className={button}>
+        <button type="button" onClick={() => boardActions.newColorway.run(context)} disabled={full} title={boardActions.newColorway.label} className={button}>
           New
         </button>
-        <button type="button" onClick={duplicate} disabled={full || !colorway} className={button}>
+        <button type="button" onClick={() => boardActions.duplicateColorway.run(context)} disabled={full || !colorway} title={boardActions.duplicateColorway.label} className={button}>
           Duplicate
         </button>
         <button type="button" onClick={() => { setRenaming(!renaming); setError(null) }} disabled={!colorway} aria-expanded={renaming} className={button}>
@@ -94,9 +82,9 @@ export function ColorwayControls({ store, design, colorway }: { store: BoardStor
         </button>
         <button
           type="button"
-          onClick={() => colorway && store.run('deleteColorway', { colorway: colorway.name })}
+          onClick={() => boardActions.deleteColorway.run(context)}
           disabled={design.colorways.length <= 1}
-          title={design.colorways.length <= 1 ? 'A design keeps at least one colourway.' : undefined}
+          title={design.colorways.length <= 1 ? 'A design keeps at least one colourway.' : boardActions.deleteColorway.label}
           className={button}
         >
           Delete

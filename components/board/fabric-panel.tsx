@@ -22,7 +22,7 @@ export function FabricPanel({ store, context }: { store: BoardStore; context: Ac
       <h2 id="fabrics-heading" className="text-sm font-semibold uppercase tracking-wide text-stone-500">
         Fabrics
       </h2>
-      <ColorwayControls store={store} design={design} colorway={colorway} />
+      <ColorwayControls context={context} design={design} colorway={colorway} />
       <ColorwayFabrics store={store} colorway={colorway} activeFabric={activeFabric} />
       <AddFabricRoleForm store={store} design={design} />
       <LeafSpreadButton context={context} />

@@ -2,7 +2,8 @@
  * What the toolbar buttons, the keyboard shortcuts and the help panel offer: one table, so a
  * shortcut always does exactly what its button does.
  */
-import type { BoardStore, Tool } from './store'
+import { freeColorwayName } from './commands'
+import { design, type BoardStore, type Tool } from './store'
 
 export interface ActionContext {
   readonly store: BoardStore
@@ -38,6 +39,21 @@ function deleteSelection({ store }: ActionContext): void {
 
 const PAN_STEP_PIXELS = 60
 
+/** The colourway the board shows (the first when the chosen one is gone). */
+function shownColorway(store: BoardStore): string | undefined {
+  const { activeColorway } = store.getState()
+  const colorways = design(store.getState()).colorways
+  return (colorways.find((c) => c.name === activeColorway) ?? colorways[0])?.name
+}
+
+/** Runs a colourway command that adds one, and shows the colourway it added. */
+function showAdded(store: BoardStore, add: () => void): void {
+  const before = new Set(design(store.getState()).colorways.map((c) => c.name))
+  add()
+  const added = design(store.getState()).colorways.find((c) => !before.has(c.name))
+  if (added) store.chooseColorway(added.name)
+}
+
 export const boardActions = {
   selectTool: tool('select', 'Select and move', 'v'),
   seamTool: tool('seam', 'Draw seams', 's'),
@@ -66,6 +82,29 @@ export const boardActions = {
     label: 'Spread the leaf colours around the ring',
     keys: [],
     run: ({ store }) => store.run('spreadLeafColours', {}),
+  },
+  // Buttons in the fabric panel, for the colourway the board shows; no keys.
+  newColorway: {
+    label: 'New colourway (a copy of the one shown, to recolour)',
+    keys: [],
+    run: ({ store }) =>
+      showAdded(store, () => store.run('addColorway', { name: freeColorwayName(design(store.getState()), `Colourway ${design(store.getState()).colorways.length + 1}`), copyOf: shownColorway(store) })),
+  },
+  duplicateColorway: {
+    label: 'Duplicate the colourway shown',
+    keys: [],
+    run: ({ store }) => {
+      const shown = shownColorway(store)
+      if (shown !== undefined) showAdded(store, () => store.run('duplicateColorway', { colorway: shown }))
+    },
+  },
+  deleteColorway: {
+    label: 'Delete the colourway shown (a design keeps at least one)',
+    keys: [],
+    run: ({ store }) => {
+      const shown = shownColorway(store)
+      if (shown !== undefined) store.run('deleteColorway', { colorway: shown })
+    },
   },
   nextStep: { label: 'Next sewing step', keys: [']'], run: ({ store }) => store.nextStep() },
   previousStep: { label: 'Previous sewing step', keys: ['['], run: ({ store }) => store.previousStep() },
