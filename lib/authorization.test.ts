@@ -38,3 +38,21 @@ describe('authorize', () => {
     expect(() => authorize(person(['designer']), 'create-pattern')).not.toThrow()
   })
 })
+
+describe('uploads', () => {
+  it('lets designers and admins upload theme-fabric photos and swatches, nobody else', () => {
+    expect(can(person(['designer']), 'upload-image', 'fabric-photo')).toBe(true)
+    expect(can(person(['admin']), 'upload-image', 'swatch')).toBe(true)
+    expect(can(person(['quilter']), 'upload-image', 'fabric-photo')).toBe(false)
+    expect(can(null, 'upload-image', 'fabric-photo')).toBe(false)
+  })
+
+  it('shows an upload to its owner and admins only; to anyone else it is missing', () => {
+    const upload = { ownerId: 'person-1' }
+    expect(can(person(['designer']), 'read-upload', upload)).toBe(true)
+    expect(can(person(['admin'], 'admin-1'), 'read-upload', upload)).toBe(true)
+    expect(can(person(['designer'], 'person-2'), 'read-upload', upload)).toBe(false)
+    expect(() => authorize(person(['designer'], 'person-2'), 'read-upload', upload)).toThrow(NotFoundError)
+    expect(() => authorize(null, 'read-upload', upload)).toThrow(UnauthenticatedError)
+  })
+})

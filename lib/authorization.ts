@@ -10,6 +10,14 @@ import { ForbiddenError, NotFoundError, UnauthenticatedError } from '@/lib/error
 /** The signed-in person, as far as permissions care; null when nobody is signed in. */
 export type Actor = { readonly id: string; readonly roles: readonly Role[] } | null
 
+/** An uploaded image, as far as permissions care (models/upload.ts). */
+export interface UploadFacts {
+  readonly ownerId: string
+}
+
+/** What an upload is for: a designer's theme-fabric photos and swatches (covers and report photos later). */
+export type UploadPurpose = 'fabric-photo' | 'swatch'
+
 export interface PatternFacts {
   readonly ownerId: string
   readonly state: PatternState
@@ -23,6 +31,8 @@ type Rules = {
   'delete-pattern': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
   'change-pattern-state': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
   'manage-users': (actor: NonNullable<Actor>) => boolean
+  'upload-image': (actor: NonNullable<Actor>, purpose: UploadPurpose) => boolean
+  'read-upload': (actor: NonNullable<Actor>, upload: UploadFacts) => boolean
 }
 
 export type Action = keyof Rules
@@ -42,6 +52,10 @@ const rules: Rules = {
   'delete-pattern': (actor, pattern) => isOwningDesigner(actor, pattern) || isAdmin(actor),
   'change-pattern-state': (actor, pattern) => isOwningDesigner(actor, pattern) || isAdmin(actor),
   'manage-users': (actor) => isAdmin(actor),
+  // Theme-fabric photos and swatches serve pattern design.
+  'upload-image': (actor) => hasRole(actor, 'designer') || isAdmin(actor),
+  // Uploads are private to their owner; admins may look at any (e.g. to review what was reported).
+  'read-upload': (actor, upload) => upload.ownerId === actor.id || isAdmin(actor),
 }
 
 type ResourceOf<A extends Action> = Parameters<Rules[A]> extends [unknown, infer R] ? [resource: R] : []
@@ -64,5 +78,6 @@ export function authorize<A extends Action>(actor: Actor, action: A, ...resource
   if (!actor) throw new UnauthenticatedError()
   if (can(actor, action, ...resource)) return
   if (action === 'read-pattern') throw new NotFoundError('No such pattern.')
+  if (action === 'read-upload') throw new NotFoundError('No such upload.')
   throw new ForbiddenError()
 }

@@ -1,11 +1,13 @@
 import { describe, expect, it } from 'vitest'
-import { originSettings, type ServerEnv } from './env'
+import { objectStoreSettings, originSettings, type ServerEnv } from './env'
 
 const env = (overrides: Partial<ServerEnv>): ServerEnv => ({
   DATABASE_URL: 'postgres://127.0.0.1/x',
   NODE_ENV: 'development',
   DATABASE_LOG: 'false',
   TRUST_PROXY: 'false',
+  S3_REGION: 'us-east-1',
+  S3_KEY_PREFIX: '',
   ...overrides,
 })
 
@@ -28,5 +30,17 @@ describe('originSettings', () => {
 
   it('trusts forwarded headers only when TRUST_PROXY says so', () => {
     expect(originSettings(env({ TRUST_PROXY: 'true' })).trustProxy).toBe(true)
+  })
+})
+
+describe('objectStoreSettings', () => {
+  it('is null until both the endpoint and the bucket are set: uploads then answer 503', () => {
+    expect(objectStoreSettings(env({}))).toBeNull()
+    expect(objectStoreSettings(env({ S3_ENDPOINT: 'http://127.0.0.1:9000' }))).toBeNull()
+  })
+
+  it('passes credentials only as a pair', () => {
+    const settings = objectStoreSettings(env({ S3_ENDPOINT: 'http://127.0.0.1:9000', S3_BUCKET: 'uploads', S3_ACCESS_KEY_ID: 'id' }))
+    expect(settings).toEqual({ endpoint: 'http://127.0.0.1:9000', bucket: 'uploads', region: 'us-east-1', credentials: undefined, keyPrefix: '' })
   })
 })

@@ -30,6 +30,21 @@ const serverEnvSchema = z.object({
    * (overwriting what clients send). Off by default: those headers are then ignored.
    */
   TRUST_PROXY: z.enum(['true', 'false']).default('false'),
+  /**
+   * The object store uploads (photos, swatches) are kept in: any S3-compatible service, reached
+   * through the S3 SDK with path-style addresses. `npm run demo` and `npm test` start a local one on
+   * loopback and set these; without S3_ENDPOINT and S3_BUCKET, uploads answer 503.
+   */
+  S3_ENDPOINT: z
+    .string()
+    .refine((value) => URL.canParse(value) && /^https?:$/.test(new URL(value).protocol), 'an http(s) URL')
+    .optional(),
+  S3_BUCKET: z.string().min(3).max(63).optional(),
+  S3_REGION: z.string().min(1).default('us-east-1'),
+  S3_ACCESS_KEY_ID: z.string().min(1).optional(),
+  S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
+  /** Put before every object key, e.g. `wreathwright/` when the bucket is shared with others. */
+  S3_KEY_PREFIX: z.string().max(200).default(''),
 })
 
 export type ServerEnv = z.infer<typeof serverEnvSchema>
@@ -70,4 +85,20 @@ export function originSettings(env: ServerEnv = serverEnv()): OriginSettings {
   if (env.NODE_ENV === 'production') throw new Error('The server environment is incomplete or wrong: PUBLIC_URL')
   const port = env.PORT ?? 3000
   return { origins: [`http://127.0.0.1:${port}`, `http://localhost:${port}`], trustProxy }
+}
+
+/** Where uploads are stored; null when no object store is configured. */
+export interface ObjectStoreSettings {
+  readonly endpoint: string
+  readonly bucket: string
+  readonly region: string
+  readonly credentials?: { readonly accessKeyId: string; readonly secretAccessKey: string }
+  readonly keyPrefix: string
+}
+
+export function objectStoreSettings(env: ServerEnv = serverEnv()): ObjectStoreSettings | null {
+  if (!env.S3_ENDPOINT || !env.S3_BUCKET) return null
+  const credentials =
+    env.S3_ACCESS_KEY_ID && env.S3_SECRET_ACCESS_KEY ? { accessKeyId: env.S3_ACCESS_KEY_ID, secretAccessKey: env.S3_SECRET_ACCESS_KEY } : undefined
+  return { endpoint: env.S3_ENDPOINT, bucket: env.S3_BUCKET, region: env.S3_REGION, credentials, keyPrefix: env.S3_KEY_PREFIX }
 }

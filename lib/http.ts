@@ -22,7 +22,8 @@ import {
  *   3. session: a route that needs one answers strangers 401, whatever the body or the ids;
  *   4. permission: the route's step (loading what it acts on and asking lib/authorization.ts),
  *      so that a pattern someone may not see is 404 exactly like a missing one;
- *   5. body contents: 415 unless JSON, 400 if malformed, 422 naming each field the schema refuses.
+ *   5. body contents: 415 unless JSON, 400 if malformed, 422 naming each field the schema refuses
+ *      (a route declaring `body: 'bytes'`, an upload, gets the raw bytes read within its limit).
  * Service errors become JSON with their status; the session cookie is refreshed or cleared.
  */
 
@@ -59,7 +60,10 @@ export interface RouteContext<Params, S extends SessionRule, Resource, Body> ext
   readonly body: Body
 }
 
-export interface RouteSpec<Param extends string, S extends SessionRule, Resource, Schema extends z.ZodType | undefined> {
+/** A route's body: a JSON schema, or `'bytes'` for a raw body (an upload) the handler checks itself. */
+type BodySpec = z.ZodType | 'bytes' | undefined
+
+export interface RouteSpec<Param extends string, S extends SessionRule, Resource, Schema extends BodySpec> {
   /** The names of the path's dynamic segments, e.g. `['id']` for app/api/patterns/[id]. */
   readonly params?: readonly Param[]
   /** The largest body accepted, in bytes: one of BODY_LIMITS. */
@@ -71,11 +75,11 @@ export interface RouteSpec<Param extends string, S extends SessionRule, Resource
    * 404; what it returns is the handler's `resource`. Runs before the body is read.
    */
   readonly permit?: (context: PermitContext<Record<Param, string>, S>) => Resource | Promise<Resource>
-  /** The JSON body's schema; without one the route takes no body. */
+  /** The JSON body's schema, or 'bytes' for the raw body; without either the route takes no body. */
   readonly body?: Schema
 }
 
-type BodyOf<Schema> = Schema extends z.ZodType ? z.output<Schema> : undefined
+type BodyOf<Schema> = Schema extends z.ZodType ? z.output<Schema> : Schema extends 'bytes' ? Uint8Array : undefined
 
 type Handler<Params, S extends SessionRule, Resource, Body> = (context: RouteContext<Params, S, Resource, Body>) => Promise<Response>
 
@@ -187,7 +191,7 @@ function checkBody<Schema extends z.ZodType>(body: unknown, schema: Schema): z.o
  * `export const GET = route({ bodyLimit: BODY_LIMITS.none, session: 'required', permit: ({ user }) =>
  * authorize(user, 'list-own-patterns') }, async ({ user }) => Response.json(await listOwnPatterns(user)))`.
  */
-export function route<Param extends string = never, S extends SessionRule = SessionRule, Resource = undefined, Schema extends z.ZodType | undefined = undefined>(
+export function route<Param extends string = never, S extends SessionRule = SessionRule, Resource = undefined, Schema extends BodySpec = undefined>(
   spec: RouteSpec<Param, S, Resource, Schema>,
   handler: Handler<Record<Param, string>, S, Resource, BodyOf<Schema>>,
 ) {
@@ -207,7 +211,9 @@ export function route<Param extends string = never, S extends SessionRule = Sess
       const params = ((await context?.params) ?? {}) as Params
       const resource = (spec.permit ? await spec.permit({ request, user, params }) : undefined) as Resource
       let body: BodyOf<Schema>
-      if (spec.body) {
+      if (spec.body === 'bytes') {
+        body = (await readLimited(request, spec.bodyLimit)) as BodyOf<Schema>
+      } else if (spec.body) {
         body = checkBody(await readJson(request, spec.bodyLimit), spec.body) as BodyOf<Schema>
       } else {
         // No body expected: whatever came (chunked, without a length) must still fit the small limit.

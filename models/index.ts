@@ -2,9 +2,10 @@ import type { Sequelize } from 'sequelize'
 import { initPattern, Pattern } from './pattern'
 import { initPatternRevision, PatternRevision } from './pattern-revision'
 import { initSession, Session } from './session'
+import { initUpload, Upload } from './upload'
 import { initUser, User } from './user'
 
-export { Pattern, PatternRevision, Session, User }
+export { Pattern, PatternRevision, Session, Upload, User }
 
 /** Binds every model to one Sequelize instance and declares how they relate. */
 export function initModels(sequelize: Sequelize): void {
@@ -12,6 +13,7 @@ export function initModels(sequelize: Sequelize): void {
   initSession(sequelize)
   initPattern(sequelize)
   initPatternRevision(sequelize)
+  initUpload(sequelize)
 
   User.hasMany(Session, { foreignKey: 'userId', onDelete: 'CASCADE' })
   Session.belongsTo(User, { foreignKey: 'userId' })
@@ -19,4 +21,5 @@ export function initModels(sequelize: Sequelize): void {
   Pattern.belongsTo(User, { foreignKey: 'ownerId', as: 'owner' })
   Pattern.hasMany(PatternRevision, { foreignKey: 'patternId', onDelete: 'CASCADE' })
   PatternRevision.belongsTo(Pattern, { foreignKey: 'patternId' })
+  User.hasMany(Upload, { foreignKey: 'ownerId', onDelete: 'CASCADE' })
 }

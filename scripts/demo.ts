@@ -4,16 +4,20 @@
  * under a folder the postgres user cannot enter). Data is kept between runs; the password of its
  * postgres role is in .data/postgres-<port>.password (mode 600). Ctrl-C stops everything this
  * script started.
- * Settings: WREATHWRIGHT_DB_PORT (default 54329), PORT (default 3000).
+ * Uploads go to a local S3-compatible object store (s3rver) on 127.0.0.1, objects kept in
+ * .data/objects/, stopped with the rest.
+ * Settings: WREATHWRIGHT_DB_PORT (default 54329), WREATHWRIGHT_S3_PORT (default 54330), PORT (default 3000).
  */
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { isPortTaken, run, startProcess, stopProcess, waitForHttp } from './processes'
+import { startObjectStore, type ObjectStore } from './object-store'
 import { isClusterRunning, projectClusterFolder, projectPasswordFile, startCluster, type Cluster } from './postgres'
 
 const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..')
 const databasePort = Number(process.env.WREATHWRIGHT_DB_PORT ?? 54329)
 const appPort = Number(process.env.PORT ?? 3000)
+const objectStorePort = Number(process.env.WREATHWRIGHT_S3_PORT ?? 54330)
 
 /** A problem the person running the demo can fix: one line on stderr, exit code 2, no stack trace. */
 function refuse(message: string): never {
@@ -29,6 +33,10 @@ if (!clusterWasRunning && (await isPortTaken(databasePort))) {
   refuse(`something else already listens on 127.0.0.1:${databasePort}, where the demo's PostgreSQL goes; stop it or set WREATHWRIGHT_DB_PORT`)
 }
 
+if (await isPortTaken(objectStorePort)) {
+  refuse(`something already listens on 127.0.0.1:${objectStorePort}, where the demo's object store goes; stop it or set WREATHWRIGHT_S3_PORT`)
+}
+
 let cluster: Cluster
 try {
   cluster = startCluster(clusterFolder, databasePort, { passwordFile: projectPasswordFile(projectRoot, databasePort) })
@@ -37,8 +45,17 @@ try {
   console.error(`demo: could not start PostgreSQL: ${(error as Error).message.trim()}`)
   process.exit(1)
 }
+let objectStore: ObjectStore
+try {
+  objectStore = await startObjectStore(path.join(projectRoot, '.data', 'objects'), objectStorePort, 'wreathwright')
+} catch (error) {
+  console.error(`demo: could not start the object store: ${(error as Error).message.trim()}`)
+  if (!clusterWasRunning) cluster.stop()
+  process.exit(1)
+}
 const env = {
   ...process.env,
+  ...objectStore.env,
   DATABASE_URL: cluster.url('wreathwright'),
   NEXT_TELEMETRY_DISABLED: '1',
   // The demo serves plain http on loopback; a Secure cookie would not be sent back.
@@ -54,6 +71,7 @@ async function stopAll(code: number): Promise<never> {
   if (!stopping) {
     stopping = true
     await stopProcess(app)
+    await objectStore.stop().catch((error: Error) => console.error(`demo: could not stop the object store: ${error.message}`))
     if (!clusterWasRunning) {
       try {
         cluster.stop()
@@ -83,6 +101,7 @@ try {
   console.log(`
 Wreathwright is running at http://127.0.0.1:${appPort}
 PostgreSQL: 127.0.0.1:${databasePort}, data in ${cluster.folder}, password in ${projectPasswordFile(projectRoot, databasePort)}
+Object store (S3): ${objectStore.url}, bucket ${objectStore.bucket}, data in ${objectStore.folder}
 
 Demo sign-ins (password for all: ${DEMO_PASSWORD}):
 ${DEMO_PEOPLE.map((person) => `  ${person.email.padEnd(34)} ${person.note}`).join('\n')}

@@ -3,15 +3,17 @@
  *   1. ESLint and knip (unused files, exports, dependencies) over the whole project, as `npm run lint`;
  *   2. a throwaway PostgreSQL cluster in a temporary folder, on a free loopback port, with a
  *      throwaway password (in that folder, mode 600; the database URLs carry it);
- *   3. unit and integration tests (vitest), the integration ones against that database;
- *   4. the app built and started on a free port with demo data in a second database;
- *   5. end-to-end tests in headless Debian Chromium (playwright-core) against it.
+ *   3. a throwaway S3-compatible object store (s3rver) in that folder, on a free loopback port;
+ *   4. unit and integration tests (vitest), the integration ones against that database and store;
+ *   5. the app built and started on a free port with demo data in a second database;
+ *   6. end-to-end tests in headless Debian Chromium (playwright-core) against it.
  * Exits non-zero if anything failed, a lint finding included. Pass vitest filters after `--`, e.g.
  * `npm test -- shelf`; they narrow the tests, never the lint, which always covers every file.
  */
 import fs from 'node:fs'
 import os from 'node:os'
 import path from 'node:path'
+import { startObjectStore, type ObjectStore } from './object-store'
 import { freePort, run, startProcess, stopProcess, waitForHttp } from './processes'
 import { startCluster, type Cluster } from './postgres'
 
@@ -23,9 +25,11 @@ fs.mkdirSync(reports)
 
 let cluster: Cluster | undefined
 let app: ReturnType<typeof startProcess> | undefined
+let objectStore: ObjectStore | undefined
 
 async function cleanUp(): Promise<void> {
   await stopProcess(app)
+  await objectStore?.stop().catch((error: Error) => console.error(`tests: could not stop the object store: ${error.message}`))
   try {
     cluster?.stop()
   } catch (error) {
@@ -74,13 +78,14 @@ try {
   })
   cluster.createDatabase('wreathwright_test')
   cluster.createDatabase('wreathwright_e2e')
+  objectStore = await startObjectStore(path.join(workFolder, 'objects'), await freePort(), 'wreathwright-test')
 
   console.log('\n== unit and integration tests ==')
-  const testEnv = { ...baseEnv, DATABASE_URL: cluster.url('wreathwright_test'), NODE_ENV: 'test' as const }
+  const testEnv = { ...baseEnv, ...objectStore.env, DATABASE_URL: cluster.url('wreathwright_test'), NODE_ENV: 'test' as const }
   if ((await vitest(['unit', 'integration'], path.join(reports, 'unit.json'), testEnv)) !== 0) failedSteps.push('unit/integration')
 
   console.log('\n== build and start the app for end-to-end tests ==')
-  const e2eEnv = { ...baseEnv, DATABASE_URL: cluster.url('wreathwright_e2e'), SESSION_COOKIE_SECURE: 'false' }
+  const e2eEnv = { ...baseEnv, ...objectStore.env, DATABASE_URL: cluster.url('wreathwright_e2e'), SESSION_COOKIE_SECURE: 'false' }
   const prepared =
     (await run('npx', ['tsx', 'scripts/migrate.ts', 'up'], e2eEnv)) === 0 &&
     (await run('npx', ['tsx', 'scripts/seed-demo.ts'], e2eEnv)) === 0 &&

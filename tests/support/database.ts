@@ -9,7 +9,7 @@ export async function freshDatabase(): Promise<void> {
   if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set: run integration tests through `npm test`')
   const sequelize = database()
   await createMigrator(sequelize).up()
-  await sequelize.query('TRUNCATE users, sessions, patterns, pattern_revisions, rate_limits RESTART IDENTITY CASCADE')
+  await sequelize.query('TRUNCATE users, sessions, patterns, pattern_revisions, rate_limits, uploads RESTART IDENTITY CASCADE')
 }
 
 export { closeDatabase }
