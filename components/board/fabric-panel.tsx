@@ -4,6 +4,7 @@ import type { ActionContext } from '@/lib/board/actions'
 import { design as designOf, type BoardStore } from '@/lib/board/store'
 import { AddFabricRoleForm, ColorwayControls, ColorwayFabrics } from './colorway-controls'
 import { LeafSpreadButton } from './leaf-spread-button'
+import { ThemePhoto } from './theme-photo'
 import { useBoard } from './use-board'
 
 /**
@@ -24,6 +25,7 @@ export function FabricPanel({ store, context }: { store: BoardStore; context: Ac
       </h2>
       <ColorwayControls context={context} design={design} colorway={colorway} />
       <ColorwayFabrics store={store} colorway={colorway} activeFabric={activeFabric} />
+      <ThemePhoto store={store} colorway={colorway} />
       <AddFabricRoleForm store={store} design={design} />
       <LeafSpreadButton context={context} />
     </section>
