@@ -15,7 +15,7 @@ export class Pattern extends Model<InferAttributes<Pattern>, InferCreationAttrib
   declare ownerId: string
   declare name: string
   declare state: CreationOptional<PatternState>
-  /** The design file (format `wreathwright-design`, version 1), as the designer saved it. */
+  /** The design file (format `wreathwright-design`, version 2; older rows upgraded by migration 20261202-0060), as the designer saved it. */
   declare design: unknown
   /** The design's summary (lib/design-summary.ts), written with it so the shelf never reads designs. */
   declare repeats: CreationOptional<number>

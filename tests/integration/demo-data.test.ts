@@ -28,6 +28,20 @@ describe('demo data', () => {
     expect(wreath!.revision).toBe(7)
   })
 
+  it('stores every demo pattern in design format version 2, in at least two colourways with every fabric named', async () => {
+    await seedDemoData()
+    for (const pattern of await Pattern.findAll()) {
+      const parsed = parseDesign(pattern.design)
+      expect(parsed.ok, pattern.name).toBe(true)
+      if (!parsed.ok) continue
+      expect((pattern.design as { version: number }).version, pattern.name).toBe(2)
+      expect(parsed.file.colorways!.length, pattern.name).toBeGreaterThanOrEqual(2)
+      for (const colorway of parsed.file.colorways!) {
+        for (const [role, fabric] of Object.entries(colorway.fabrics)) expect(fabric.name, `${pattern.name} / ${colorway.name}`).not.toBe(role)
+      }
+    }
+  })
+
   it('holds only valid design files', () => {
     for (const demo of DEMO_PATTERNS) expect(parseDesign(demo.design).ok, demo.design.name).toBe(true)
   })
