@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import type { DesignFile } from '@/lib/schemas/design'
-import { designFileName, exportDesignFile, importDesignFile } from './design-file'
+import { DESIGN_FILE_MAX_BYTES, designFileName, exportDesignFile, importDesignFile } from './design-file'
 
 function design(overrides: Partial<DesignFile> = {}): DesignFile {
   return {
@@ -112,7 +112,7 @@ describe('importing a design file', () => {
   })
 
   it('refuses a file far larger than any design', () => {
-    const result = importDesignFile(' '.repeat(6 * 1024 * 1024))
+    const result = importDesignFile(' '.repeat(DESIGN_FILE_MAX_BYTES + 1))
     expect(result).toMatchObject({ ok: false, message: 'This file is too large to be a Wreathwright design file.' })
   })
 })

@@ -3,13 +3,18 @@
  * what the board holds as readable JSON, import reads a file back and hands over a design only
  * when the whole file is valid, so a bad file can never half-replace the board.
  */
+import { MAX_DESIGN_FILE_BYTES } from '@/lib/limits'
 import { designFileSchema, type DesignFile, type DesignIssue } from '@/lib/schemas/design'
 
 export const DESIGN_FILE_EXTENSION = '.wreathwright.json'
 export const DESIGN_FILE_MIME_TYPE = 'application/json'
 
-/** Larger than any hand-drawn design by far; refusing it keeps a wrong file from freezing the tab. */
-export const DESIGN_FILE_MAX_BYTES = 5 * 1024 * 1024
+/**
+ * The largest design file the board reads: the command line's limit (`MAX_DESIGN_FILE_BYTES`, room
+ * for the largest design written indented, as export writes it), so every design the board can
+ * export it can read back. Refusing a larger file keeps a wrong file from freezing the tab.
+ */
+export const DESIGN_FILE_MAX_BYTES = MAX_DESIGN_FILE_BYTES
 
 /** The keys in the order geometry.md lists them, so exported files read the same way. */
 const KEY_ORDER = ['format', 'version', 'name', 'units', 'ring', 'seams', 'fills', 'leaves', 'stems', 'berries', 'curls', 'colorways', 'order'] as const
