@@ -52,4 +52,15 @@ describe('npm run demo on a taken port', () => {
     ])
     expect(result.stdout).toBe('')
   }, 30_000)
+
+  it("says in one line that the object store's port is taken and exits 2, before starting PostgreSQL", async () => {
+    const objectStorePort = await occupyPort()
+    const databasePort = await freePort()
+    const result = await runDemo({ PORT: String(await freePort()), WREATHWRIGHT_DB_PORT: String(databasePort), WREATHWRIGHT_S3_PORT: String(objectStorePort) })
+    expect(result.code).toBe(2)
+    expect(result.stderr.trim().split('\n')).toEqual([
+      `demo: something already listens on 127.0.0.1:${objectStorePort}, where the demo's object store goes; stop it or set WREATHWRIGHT_S3_PORT`,
+    ])
+    expect(result.stdout).toBe('')
+  }, 30_000)
 })
