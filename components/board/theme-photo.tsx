@@ -94,7 +94,7 @@ export function ThemePhoto({ store, colorway }: { store: BoardStore; colorway: C
     <div className="space-y-2 rounded border border-stone-200 bg-white/60 p-2" data-testid="theme-photo">
       <div className="flex items-center justify-between gap-2">
         <h3 className="text-xs font-semibold text-stone-600">Theme fabric photo</h3>
-        <button type="button" className={button} disabled={progress !== null} onClick={() => input.current?.click()}>
+        <button type="button" className={`${button} shrink-0 whitespace-nowrap`} disabled={progress !== null} onClick={() => input.current?.click()}>
           {photo ? 'Another photo' : 'Upload a photo'}
         </button>
         <input
