@@ -119,7 +119,7 @@ describe('a designer works on their patterns', () => {
   it('starts a pattern without a design as an empty ring that is a valid design file', async () => {
     const { cookie } = await personWith(['designer'])
     const created = await call(createPattern, { method: 'POST', cookie, body: { name: 'Blank' } })
-    expect(created.json?.pattern.design).toMatchObject({ format: 'wreathwright-design', version: 1, seams: [] })
+    expect(created.json?.pattern.design).toMatchObject({ format: 'wreathwright-design', version: 2, seams: [] })
   })
 
   it('refuses a save from a stale revision with 409 and changes nothing', async () => {
