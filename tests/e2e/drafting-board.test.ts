@@ -106,6 +106,19 @@ describe('a designer drafts a ring on the board', () => {
       { at: expect.any(Array), fabric: 'band' },
     ])
 
+    // Colourways: duplicate the one shown and rename a fabric of the copy; the first keeps its
+    // names, the copy is shown, and its swatch reads the new name, never the role.
+    await page.getByRole('button', { name: 'Duplicate', exact: true }).click()
+    await expect.poll(async () => (await boardDesign(page)).colorways.map((c: { name: string }) => c.name)).toEqual(['Main', 'Main copy'])
+    expect(await page.locator('#colorway').inputValue()).toBe('Main copy')
+    const backgroundName = page.getByLabel('Name of the background fabric in Main copy')
+    await backgroundName.fill('Oatmeal linen-look')
+    await backgroundName.press('Enter')
+    await expect
+      .poll(async () => (await boardDesign(page)).colorways.map((c: { fabrics: Record<string, { name: string }> }) => c.fabrics.background?.name))
+      .toEqual(['Background', 'Oatmeal linen-look'])
+    await page.getByRole('button', { name: 'Fill with Oatmeal linen-look' }).waitFor()
+
     // The printed side: the mirror image as it goes on the paper.
     await page.getByRole('button', { name: 'Printed side' }).click()
     expect(await page.getByRole('button', { name: 'Printed side' }).getAttribute('aria-pressed')).toBe('true')
@@ -120,6 +133,7 @@ describe('a designer drafts a ring on the board', () => {
     expect(after.seams).toEqual(before.seams)
     expect(after.leaves).toEqual(before.leaves)
     expect(after.fills).toEqual(before.fills)
+    expect(after.colorways).toEqual(before.colorways)
     await expect.poll(planStatus).toBe('Sewable: 4 areas in 1 section.')
     // The board opens on the side it was left on.
     expect(await page.getByRole('button', { name: 'Printed side' }).getAttribute('aria-pressed')).toBe('true')
