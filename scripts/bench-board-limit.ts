@@ -6,14 +6,8 @@
  *
  * Starts its own throwaway PostgreSQL and the built app, like the test runner.
  */
-import fs from 'node:fs'
-import os from 'node:os'
-import path from 'node:path'
-import { chromium } from 'playwright-core'
 import { MAX_BERRIES, MAX_CURLS, MAX_POINTS_PER_CURL, MAX_SEAMS } from '../lib/limits'
-import { DEMO_PASSWORD } from './demo-data'
-import { startCluster } from './postgres'
-import { freePort, run, startProcess, stopProcess, waitForHttp } from './processes'
+import { launchBenchBrowser, signedInDesignerPage, startBenchApp } from './bench-app'
 
 const OPENINGS = 5
 
@@ -41,32 +35,11 @@ function designAtTheLimit() {
   }
 }
 
-const work = fs.mkdtempSync(path.join(os.tmpdir(), 'wreathwright-bench-'))
-fs.chmodSync(work, 0o755)
-const cluster = startCluster(path.join(work, 'postgres'), await freePort(), { throwaway: true, passwordFile: path.join(work, 'postgres.password') })
-let app: ReturnType<typeof startProcess> | undefined
+const bench = await startBenchApp({ demoData: true })
 try {
-  cluster.createDatabase('wreathwright_bench')
-  const env = { ...process.env, DATABASE_URL: cluster.url('wreathwright_bench'), SESSION_COOKIE_SECURE: 'false', NEXT_TELEMETRY_DISABLED: '1' }
-  for (const [command, args] of [['npx', ['tsx', 'scripts/migrate.ts', 'up']], ['npx', ['tsx', 'scripts/seed-demo.ts']], ['npx', ['next', 'build']]] as const) {
-    if ((await run(command, [...args], env)) !== 0) throw new Error(`${args.join(' ')} failed`)
-  }
-  const port = await freePort()
-  const base = `http://127.0.0.1:${port}`
-  app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(port)], { ...env, PUBLIC_URL: base }, { quiet: true })
-  await waitForHttp(`${base}/api/health`)
-
-  const browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-  })
-  const page = await browser.newPage({ viewport: { width: 1280, height: 800 } })
-  await page.goto(`${base}/sign-in`)
-  await page.getByLabel('E-mail address').fill('marguerite@bramblelane.example')
-  await page.getByLabel('Password').fill(DEMO_PASSWORD)
-  await page.getByRole('button', { name: 'Sign in' }).click()
-  await page.getByTestId('signed-in-as').waitFor()
+  const base = bench.base
+  const browser = await launchBenchBrowser()
+  const page = await signedInDesignerPage(browser, base)
   const created = await page.evaluate(async (design) => {
     const response = await fetch('/api/patterns', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ name: 'Bench limit', design }) })
     return { status: response.status, body: (await response.json()) as { pattern?: { id: string } } }
@@ -90,7 +63,5 @@ try {
   console.log(`  navigation → plan shown: ${timings.map((t) => `${(t / 1000).toFixed(2)} s`).join(', ')}; median ${(sorted[OPENINGS >> 1]! / 1000).toFixed(2)} s`)
   console.log('  goal: under 2 s')
 } finally {
-  await stopProcess(app)
-  cluster.stop()
-  fs.rmSync(work, { recursive: true, force: true })
+  await bench.stop()
 }

@@ -6,13 +6,7 @@
  *
  * Starts its own throwaway PostgreSQL and the built app, like the test runner.
  */
-import fs from 'node:fs'
-import os from 'node:os'
-import path from 'node:path'
-import { chromium } from 'playwright-core'
-import { DEMO_PASSWORD } from './demo-data'
-import { startCluster } from './postgres'
-import { freePort, run, startProcess, stopProcess, waitForHttp } from './processes'
+import { launchBenchBrowser, percentile, signedInDesignerPage, startBenchApp } from './bench-app'
 
 const MOVES = 200
 
@@ -32,34 +26,11 @@ function fortyAreaDesign() {
   }
 }
 
-const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))]!
-
-const work = fs.mkdtempSync(path.join(os.tmpdir(), 'wreathwright-bench-'))
-fs.chmodSync(work, 0o755)
-const cluster = startCluster(path.join(work, 'postgres'), await freePort(), { throwaway: true, passwordFile: path.join(work, 'postgres.password') })
-let app: ReturnType<typeof startProcess> | undefined
+const bench = await startBenchApp({ demoData: true })
 try {
-  cluster.createDatabase('wreathwright_bench')
-  const env = { ...process.env, DATABASE_URL: cluster.url('wreathwright_bench'), SESSION_COOKIE_SECURE: 'false', NEXT_TELEMETRY_DISABLED: '1' }
-  for (const [command, args] of [['npx', ['tsx', 'scripts/migrate.ts', 'up']], ['npx', ['tsx', 'scripts/seed-demo.ts']], ['npx', ['next', 'build']]] as const) {
-    if ((await run(command, [...args], env)) !== 0) throw new Error(`${args.join(' ')} failed`)
-  }
-  const port = await freePort()
-  const base = `http://127.0.0.1:${port}`
-  app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(port)], { ...env, PUBLIC_URL: base }, { quiet: true })
-  await waitForHttp(`${base}/api/health`)
-
-  const browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    args: ['--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
-  })
-  const page = await browser.newPage({ viewport: { width: 1280, height: 800 } })
-  await page.goto(`${base}/sign-in`)
-  await page.getByLabel('E-mail address').fill('marguerite@bramblelane.example')
-  await page.getByLabel('Password').fill(DEMO_PASSWORD)
-  await page.getByRole('button', { name: 'Sign in' }).click()
-  await page.getByTestId('signed-in-as').waitFor()
+  const base = bench.base
+  const browser = await launchBenchBrowser()
+  const page = await signedInDesignerPage(browser, base)
   const id = await page.evaluate(async (design) => {
     const response = await fetch('/api/patterns', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ name: 'Bench rings', design }) })
     return ((await response.json()) as { pattern: { id: string } }).pattern.id
@@ -104,7 +75,5 @@ try {
   console.log(`  pointer move → canvas drawn: median ${percentile(sorted, 50).toFixed(1)} ms, 95th percentile ${percentile(sorted, 95).toFixed(1)} ms, worst ${sorted.at(-1)!.toFixed(1)} ms`)
   console.log('  goal: median < 16 ms, 95th percentile < 33 ms')
 } finally {
-  await stopProcess(app)
-  cluster.stop()
-  fs.rmSync(work, { recursive: true, force: true })
+  await bench.stop()
 }

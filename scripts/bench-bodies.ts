@@ -7,20 +7,14 @@
  * Starts its own throwaway PostgreSQL and the built app, like the test runner. Traffic goes to
  * 127.0.0.1 only and stops by itself (a fixed number of health checks, at most LOAD_SECONDS).
  */
-import fs from 'node:fs'
 import net from 'node:net'
-import os from 'node:os'
-import path from 'node:path'
-import { startCluster } from './postgres'
-import { freePort, run, startProcess, stopProcess, waitForHttp } from './processes'
+import { percentile, startBenchApp } from './bench-app'
 
 const BODY_BYTES = 10 * 1024 * 1024
 /** Clients sending large bodies at the same time, each one after the other without pause. */
 const SENDERS = 4
 const HEALTH_CHECKS = 400
 const LOAD_SECONDS = 60
-
-const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor((p / 100) * sorted.length))]!
 
 /** Sends one large body as an attacker would, writing it whole unless the server answers or closes first. */
 function sendLargeBody(base: URL): Promise<number> {
@@ -77,21 +71,9 @@ const summary = (times: number[]) => {
   return `median ${percentile(sorted, 50).toFixed(1)} ms, 99th percentile ${percentile(sorted, 99).toFixed(1)} ms, worst ${sorted.at(-1)!.toFixed(1)} ms`
 }
 
-const work = fs.mkdtempSync(path.join(os.tmpdir(), 'wreathwright-bench-'))
-fs.chmodSync(work, 0o755)
-const cluster = startCluster(path.join(work, 'postgres'), await freePort(), { throwaway: true, passwordFile: path.join(work, 'postgres.password') })
-let app: ReturnType<typeof startProcess> | undefined
+const bench = await startBenchApp({ demoData: false })
 try {
-  cluster.createDatabase('wreathwright_bench')
-  const env = { ...process.env, DATABASE_URL: cluster.url('wreathwright_bench'), SESSION_COOKIE_SECURE: 'false', NEXT_TELEMETRY_DISABLED: '1' }
-  for (const [command, args] of [['npx', ['tsx', 'scripts/migrate.ts', 'up']], ['npx', ['next', 'build']]] as const) {
-    if ((await run(command, [...args], env)) !== 0) throw new Error(`${args.join(' ')} failed`)
-  }
-  const port = await freePort()
-  const base = new URL(`http://127.0.0.1:${port}`)
-  app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(port)], { ...env, PUBLIC_URL: base.origin }, { quiet: true })
-  await waitForHttp(new URL('/api/health', base).toString())
-
+  const base = new URL(bench.base)
   await timeHealthChecks(base, 50) // warm-up
   const quiet = await timeHealthChecks(base, HEALTH_CHECKS)
 
@@ -115,7 +97,5 @@ try {
   console.log(`  large bodies: ${answered}`)
   console.log('  goal: 99th percentile under load ≤ 100 ms; every large body answered 413')
 } finally {
-  await stopProcess(app)
-  cluster.stop()
-  fs.rmSync(work, { recursive: true, force: true })
+  await bench.stop()
 }
