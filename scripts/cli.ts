@@ -7,12 +7,10 @@
  */
 import { pathToFileURL } from 'node:url'
 import { planDesign } from '../geometry/plan'
+import { UsageError } from './command-arguments'
 import { DesignFileError, readDesignFile } from './design-file'
 import { runCuttingCommand } from './cutting-command'
 import { runPdfCommand } from './pdf-command'
-
-/** An error meant for the user: printed as one line, exit 2. */
-class UsageError extends Error {}
 
 function oneLine(text: string): string {
   return text.replace(/\s+/g, ' ').trim()

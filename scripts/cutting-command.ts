@@ -11,33 +11,11 @@ import { planDesign } from '../geometry/plan'
 import { OUTPUT_DECIMALS } from '../geometry/tolerances'
 import { DEFAULT_EXTRA_PERCENT, DEFAULT_WIDTH_OF_FABRIC_INCHES } from '../geometry/yardage'
 import { DesignFileError, readDesignFile } from './design-file'
-
-/** A message for the user: one line, exit 2. */
-class UsageError extends Error {}
+import { parseCommandArguments, UsageError } from './command-arguments'
 
 const USAGE = 'usage: cli cutting <design.json> [--colorway NAME] [--width-of-fabric IN] [--extra PERCENT]'
 const FLAGS = ['--colorway', '--width-of-fabric', '--extra'] as const
 type Flag = (typeof FLAGS)[number]
-
-function parseArguments(args: readonly string[]): { designPath: string; flags: Partial<Record<Flag, string>> } {
-  const flags: Partial<Record<Flag, string>> = {}
-  const positional: string[] = []
-  for (let i = 0; i < args.length; i += 1) {
-    const arg = args[i]!
-    if (!arg.startsWith('--')) {
-      positional.push(arg)
-      continue
-    }
-    const [name, inline] = arg.includes('=') ? [arg.slice(0, arg.indexOf('=')), arg.slice(arg.indexOf('=') + 1)] : [arg, undefined]
-    if (!(FLAGS as readonly string[]).includes(name)) throw new UsageError(`unknown option ${name}; ${USAGE}`)
-    const value = inline ?? args[(i += 1)]
-    if (value === undefined || value === '') throw new UsageError(`${name} needs a value`)
-    if (flags[name as Flag] !== undefined) throw new UsageError(`${name} is given twice`)
-    flags[name as Flag] = value
-  }
-  if (positional.length !== 1) throw new UsageError(positional.length === 0 ? USAGE : `expected one design file, got ${positional.length}; ${USAGE}`)
-  return { designPath: positional[0]!, flags }
-}
 
 /** A number flag: finite, and positive (the width) or at least 0 (the extra). */
 function numberFlag(text: string | undefined, name: Flag, what: string, isAllowed: (value: number) => boolean): number | undefined {
@@ -85,7 +63,7 @@ function toJson(result: FabricRequirements): unknown {
  */
 export async function runCuttingCommand(args: readonly string[]): Promise<{ code: number; stdout: string; stderr: string }> {
   try {
-    const { designPath, flags } = parseArguments(args)
+    const { designPath, flags } = parseCommandArguments(args, FLAGS, USAGE)
     const widthOfFabricIn = numberFlag(flags['--width-of-fabric'], '--width-of-fabric', 'a positive number of inches', (value) => value > 0) ?? DEFAULT_WIDTH_OF_FABRIC_INCHES
     const extraPercent = numberFlag(flags['--extra'], '--extra', 'a percentage of 0 or more', (value) => value >= 0) ?? DEFAULT_EXTRA_PERCENT
     const { design } = await readDesignFile(designPath)

@@ -11,34 +11,12 @@ import { writeFile } from 'node:fs/promises'
 import { buildBooklet } from '../lib/booklet/booklet'
 import { BOOKLET_PARTS, bookletOptionsSchema, PAPER_NAMES, type BookletOptionsInput } from '../lib/schemas/booklet'
 import { DesignFileError, readDesignFile } from './design-file'
-
-/** A message for the user: one line, exit 2. */
-class UsageError extends Error {}
+import { parseCommandArguments, UsageError } from './command-arguments'
 
 const USAGE = `usage: cli pdf <design.json> --paper ${PAPER_NAMES.join('|')} [--colorway NAME] [--diameter INCHES] [--orientation portrait|landscape] [--margin INCHES] [--overlap INCHES] [--parts ${BOOKLET_PARTS.join(',')}] --out <file.pdf>`
 
 const FLAGS = ['--paper', '--colorway', '--diameter', '--orientation', '--margin', '--overlap', '--parts', '--out'] as const
 type Flag = (typeof FLAGS)[number]
-
-function parseArguments(args: readonly string[]): { designPath: string; flags: Partial<Record<Flag, string>> } {
-  const flags: Partial<Record<Flag, string>> = {}
-  const positional: string[] = []
-  for (let i = 0; i < args.length; i += 1) {
-    const arg = args[i]!
-    if (!arg.startsWith('--')) {
-      positional.push(arg)
-      continue
-    }
-    const [name, inline] = arg.includes('=') ? [arg.slice(0, arg.indexOf('=')), arg.slice(arg.indexOf('=') + 1)] : [arg, undefined]
-    if (!(FLAGS as readonly string[]).includes(name)) throw new UsageError(`unknown option ${name}; ${USAGE}`)
-    const value = inline ?? args[(i += 1)]
-    if (value === undefined || value === '') throw new UsageError(`${name} needs a value`)
-    if (flags[name as Flag] !== undefined) throw new UsageError(`${name} is given twice`)
-    flags[name as Flag] = value
-  }
-  if (positional.length !== 1) throw new UsageError(positional.length === 0 ? USAGE : `expected one design file, got ${positional.length}; ${USAGE}`)
-  return { designPath: positional[0]!, flags }
-}
 
 function lengthFlag(flags: Partial<Record<Flag, string>>, name: Flag): number | undefined {
   const text = flags[name]
@@ -59,7 +37,7 @@ function oneLine(text: string): string {
  */
 export async function runPdfCommand(args: string[], io: { stdout(text: string): void; stderr(text: string): void }): Promise<number> {
   try {
-    const { designPath, flags } = parseArguments(args)
+    const { designPath, flags } = parseCommandArguments(args, FLAGS, USAGE)
     if (!flags['--paper']) throw new UsageError(`--paper is required (${PAPER_NAMES.join(', ')})`)
     if (!flags['--out']) throw new UsageError('--out <file.pdf> is required')
     const parsed = await readDesignFile(designPath)
