@@ -1,10 +1,10 @@
 import type { Metadata } from 'next'
 import Link from 'next/link'
-import { notFound } from 'next/navigation'
 import { PrintDialog } from '@/components/print/print-dialog'
 import { requireUser } from '@/lib/auth/current-user'
 import { UnreadableDesign } from '@/components/patterns/unreadable-design'
-import { NotFoundError, StoredDesignError } from '@/lib/errors'
+import { StoredDesignError } from '@/lib/errors'
+import { loadForPatternPage } from '@/lib/pattern-page'
 import { getPattern, listRevisions } from '@/lib/services/patterns'
 
 export const metadata: Metadata = { title: 'Pattern' }
@@ -12,11 +12,7 @@ export const metadata: Metadata = { title: 'Pattern' }
 export default async function PatternPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params
   const user = await requireUser(undefined, `/patterns/${id}`)
-  const loaded = await Promise.all([getPattern(user, id), listRevisions(user, id)]).catch((error: unknown) => {
-    if (error instanceof NotFoundError) notFound()
-    if (error instanceof StoredDesignError) return error
-    throw error
-  })
+  const loaded = await loadForPatternPage(Promise.all([getPattern(user, id), listRevisions(user, id)]))
   if (loaded instanceof StoredDesignError) return <UnreadableDesign error={loaded} />
   const [pattern, revisions] = loaded
   const { ring } = pattern.design

@@ -1,10 +1,10 @@
 import type { Metadata } from 'next'
 import Link from 'next/link'
-import { notFound } from 'next/navigation'
 import { FabricScreen } from '@/components/fabric/fabric-screen'
 import { UnreadableDesign } from '@/components/patterns/unreadable-design'
 import { requireUser } from '@/lib/auth/current-user'
-import { NotFoundError, StoredDesignError } from '@/lib/errors'
+import { StoredDesignError } from '@/lib/errors'
+import { loadForPatternPage } from '@/lib/pattern-page'
 import { getPattern } from '@/lib/services/patterns'
 
 export const metadata: Metadata = { title: 'Fabric and cutting' }
@@ -13,11 +13,7 @@ export const metadata: Metadata = { title: 'Fabric and cutting' }
 export default async function FabricPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params
   const user = await requireUser(undefined, `/patterns/${id}/fabric`)
-  const pattern = await getPattern(user, id).catch((error: unknown) => {
-    if (error instanceof NotFoundError) notFound()
-    if (error instanceof StoredDesignError) return error
-    throw error
-  })
+  const pattern = await loadForPatternPage(getPattern(user, id))
   if (pattern instanceof StoredDesignError) return <UnreadableDesign error={pattern} />
   return (
     <article className="mx-auto max-w-6xl space-y-6">

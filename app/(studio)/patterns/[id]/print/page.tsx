@@ -1,10 +1,10 @@
 import type { Metadata } from 'next'
 import Link from 'next/link'
-import { notFound } from 'next/navigation'
 import { PrintDialog } from '@/components/print/print-dialog'
 import { requireUser } from '@/lib/auth/current-user'
 import { UnreadableDesign } from '@/components/patterns/unreadable-design'
-import { NotFoundError, StoredDesignError } from '@/lib/errors'
+import { StoredDesignError } from '@/lib/errors'
+import { loadForPatternPage } from '@/lib/pattern-page'
 import { getPattern } from '@/lib/services/patterns'
 
 export const metadata: Metadata = { title: 'Print room' }
@@ -13,11 +13,7 @@ export const metadata: Metadata = { title: 'Print room' }
 export default async function PrintPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params
   const user = await requireUser(undefined, `/patterns/${id}/print`)
-  const pattern = await getPattern(user, id).catch((error: unknown) => {
-    if (error instanceof NotFoundError) notFound()
-    if (error instanceof StoredDesignError) return error
-    throw error
-  })
+  const pattern = await loadForPatternPage(getPattern(user, id))
   if (pattern instanceof StoredDesignError) return <UnreadableDesign error={pattern} />
   return (
     <article className="mx-auto max-w-6xl space-y-6">
