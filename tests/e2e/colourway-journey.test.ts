@@ -58,7 +58,9 @@ describe('a colourway from the board to the fabric page', () => {
     const page = await context.newPage()
     const pageErrors: string[] = []
     page.on('pageerror', (error) => pageErrors.push(String(error)))
-    await signInThroughPage(page, 'marguerite@bramblelane.example', DEMO_PASSWORD)
+    // Tomasz, not Marguerite: the board shows a designer's latest theme photo, which the
+    // theme-photo test expects Marguerite not to have yet.
+    await signInThroughPage(page, 'tomasz@juniperthread.example', DEMO_PASSWORD)
     const name = `Journey ${Date.now()}`
     const id = await page.evaluate(async (design) => {
       const response = await fetch('/api/patterns', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ name: design.name, design }) })
