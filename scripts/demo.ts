@@ -99,9 +99,10 @@ try {
   await waitForHttp(`http://127.0.0.1:${appPort}/api/health`)
 
   console.log(`
-Wreathwright is running at http://127.0.0.1:${appPort}
-PostgreSQL: 127.0.0.1:${databasePort}, data in ${cluster.folder}, password in ${projectPasswordFile(projectRoot, databasePort)}
-Object store (S3): ${objectStore.url}, bucket ${objectStore.bucket}, data in ${objectStore.folder}
+Wreathwright is running. What the demo started, one line each:
+app: http://127.0.0.1:${appPort}
+database: http://127.0.0.1:${databasePort} (PostgreSQL; data in ${cluster.folder}, password in ${projectPasswordFile(projectRoot, databasePort)})
+object-store: ${objectStore.url} (S3-compatible, bucket ${objectStore.bucket}; data in ${objectStore.folder})
 
 Demo sign-ins (password for all: ${DEMO_PASSWORD}):
 ${DEMO_PEOPLE.map((person) => `  ${person.email.padEnd(34)} ${person.note}`).join('\n')}
