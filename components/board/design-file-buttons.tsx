@@ -4,20 +4,9 @@ import { useRef, useState, type ChangeEvent } from 'react'
 import { exportDesignFile, importDesignFile, DESIGN_FILE_MAX_BYTES } from '@/lib/board/design-file'
 import type { BoardStore } from '@/lib/board/store'
 import type { DesignIssue } from '@/lib/schemas/design'
+import { downloadFile } from '@/components/ui/download'
 
 type Notice = { readonly kind: 'done'; readonly text: string } | { readonly kind: 'refused'; readonly text: string; readonly issues: readonly DesignIssue[] }
-
-function download(fileName: string, text: string, mimeType: string) {
-  const url = URL.createObjectURL(new Blob([text], { type: mimeType }))
-  const link = document.createElement('a')
-  link.href = url
-  link.download = fileName
-  document.body.append(link)
-  link.click()
-  link.remove()
-  // Some browsers read the URL after click() returns; give them a moment before letting it go.
-  setTimeout(() => URL.revokeObjectURL(url), 1_000)
-}
 
 /**
  * Export the board's design as a design file, or import one in its place (one undo step). An
@@ -31,7 +20,7 @@ export function DesignFileButtons({ store }: { store: BoardStore }) {
 
   function exportFile() {
     const file = exportDesignFile(store.getState().history.present)
-    download(file.fileName, file.text, file.mimeType)
+    downloadFile(file.text, file.fileName, file.mimeType)
     setNotice({ kind: 'done', text: `Exported ${file.fileName}.` })
   }
 

@@ -16,20 +16,8 @@ import {
 import { leafPreparation } from '@/lib/fabric/leaf-preparation'
 import { parseDesign, type DesignFile } from '@/lib/schemas/design'
 import { formatLength, formatSize, inchesToCentimetres, type LengthUnits } from '@/lib/units'
+import { downloadFile } from '@/components/ui/download'
 import { CuttingDiagramFigure } from './cutting-diagram-figure'
-
-/** Starts a download of text as a file. */
-function downloadText(text: string, fileName: string, type: string): void {
-  const url = URL.createObjectURL(new Blob([text], { type }))
-  const link = document.createElement('a')
-  link.href = url
-  link.download = fileName
-  document.body.append(link)
-  link.click()
-  link.remove()
-  // Give the browser a moment to start the download before the URL goes.
-  setTimeout(() => URL.revokeObjectURL(url), 10_000)
-}
 
 const yesNo = (value: boolean): string => (value ? 'yes' : 'no')
 
@@ -103,7 +91,7 @@ function FabricWorkspace({ name, design, units }: { name: string; design: Design
           <input className="w-20 rounded border border-stone-300 px-2 py-1" inputMode="decimal" value={extraPercent} onChange={(event) => changeSettings({ widthOfFabric, extraPercent: event.target.value })} aria-describedby="fabric-settings-status" />
         </label>
         <div className="flex gap-3">
-          <button type="button" className="rounded bg-thread-700 px-4 py-2 text-sm text-white hover:bg-thread-800" onClick={() => downloadText(fabricCsv(colorwayLabel, shown), fabricCsvFileName(name, colorway?.name ?? ''), 'text/csv;charset=utf-8')}>
+          <button type="button" className="rounded bg-thread-700 px-4 py-2 text-sm text-white hover:bg-thread-800" onClick={() => downloadFile(fabricCsv(colorwayLabel, shown), fabricCsvFileName(name, colorway?.name ?? ''), 'text/csv;charset=utf-8')}>
             Download CSV
           </button>
           <button type="button" className="rounded border border-stone-300 px-4 py-2 text-sm hover:bg-linen-100" onClick={() => window.print()}>

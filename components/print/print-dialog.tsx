@@ -10,22 +10,10 @@ import { useMemo, useState, type FormEvent } from 'react'
 import { PAPERS } from '@/lib/booklet/paper'
 import { PAPER_NAMES, DEFAULT_MARGIN_INCHES, DEFAULT_OVERLAP_INCHES, type BookletPart, type PaperName } from '@/lib/schemas/booklet'
 import { parseDesign, type DesignFile } from '@/lib/schemas/design'
+import { downloadFile } from '@/components/ui/download'
 import { BookletPreview } from './booklet-preview'
 import { ALL_PARTS, bookletFileName, PART_TITLES, printOptionsFrom } from './print-options'
 import { optionsKey, useBookletPreview } from './use-booklet-preview'
-
-/** Starts a download of bytes as a PDF file. */
-function download(bytes: Uint8Array, fileName: string): void {
-  const url = URL.createObjectURL(new Blob([bytes.slice().buffer], { type: 'application/pdf' }))
-  const link = document.createElement('a')
-  link.href = url
-  link.download = fileName
-  document.body.append(link)
-  link.click()
-  link.remove()
-  // Give the browser a moment to start the download before the URL goes.
-  setTimeout(() => URL.revokeObjectURL(url), 10_000)
-}
 
 /**
  * The print dialog for one pattern's design.
@@ -63,7 +51,7 @@ export function PrintDialog({ name, design }: { name: string; design: DesignFile
     if (!ready) return
     const fileName = bookletFileName(name, ready.options)
     // The very bytes the thumbnails were drawn from.
-    download(ready.bytes, fileName)
+    downloadFile(ready.bytes.slice(), fileName, 'application/pdf')
     setDownloaded({ key: ready.key, text: `Downloaded ${fileName} (${ready.pages.length} pages).` })
   }
 
