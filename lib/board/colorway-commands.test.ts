@@ -4,6 +4,11 @@ import { designFileSchema, type DesignFile } from '@/lib/schemas/design'
 import { boardActions } from './actions'
 import { createBoardStore, design as designOf, type BoardStore } from './store'
 
+/** Upload ids, as the upload route answers them (made up). */
+const SWATCH = '0b6e4a1c-3f2d-4c8e-9a71-5d2e8f4b6c10'
+const PHOTO = '7c1d9e35-8a42-4f06-b3e1-2a9c5d7f8e04'
+const OTHER_PHOTO = 'e3a95b20-6c1f-4d7a-8e52-b0f4c9d3a617'
+
 /** Two colourways of the same two roles, as the board keeps them. */
 function twoColorways(): DesignFile {
   return {
@@ -47,15 +52,70 @@ describe('colourway commands on the board', () => {
     expect(colorwaysOf(store)).toEqual(twoColorways().colorways)
   })
 
-  it('sets and removes a swatch image by its upload key', () => {
+  it('sets and removes a swatch image by its upload id, each one undoable step; redo puts it back', () => {
     const store = createBoardStore(twoColorways())
-    store.run('setFabricSwatch', { colorway: 'Holly', fabric: 'leaf-dark', swatch: 'uploads/u1/holly.webp' })
-    expect(colorwaysOf(store)[0]!.fabrics['leaf-dark']!.swatch).toBe('uploads/u1/holly.webp')
+    const swatch = () => colorwaysOf(store)[0]!.fabrics['leaf-dark']!.swatch
+    store.run('setFabricSwatch', { colorway: 'Holly', fabric: 'leaf-dark', swatch: SWATCH.toUpperCase() })
+    // Kept as the upload route answers ids: lower case.
+    expect(swatch()).toBe(SWATCH)
+    expect(colorwaysOf(store)[1]!.fabrics['leaf-dark']!.swatch).toBeUndefined()
     expect(valid(store)).toBe(true)
-    store.run('setFabricSwatch', { colorway: 'Holly', fabric: 'leaf-dark', swatch: '../etc/passwd' })
-    expect(colorwaysOf(store)[0]!.fabrics['leaf-dark']!.swatch).toBe('uploads/u1/holly.webp')
+    const history = store.getState().history
+    // Not an upload id (an object-store key, a path), or the swatch it already has: nothing recorded.
+    for (const refused of ['uploads/u1/holly.webp', '../etc/passwd', `${SWATCH}x`, SWATCH]) store.run('setFabricSwatch', { colorway: 'Holly', fabric: 'leaf-dark', swatch: refused })
+    expect(store.getState().history).toBe(history)
     store.run('setFabricSwatch', { colorway: 'Holly', fabric: 'leaf-dark', swatch: null })
     expect('swatch' in colorwaysOf(store)[0]!.fabrics['leaf-dark']!).toBe(false)
+    store.undo()
+    expect(swatch()).toBe(SWATCH)
+    store.undo()
+    expect(colorwaysOf(store)).toEqual(twoColorways().colorways)
+    store.redo()
+    expect(swatch()).toBe(SWATCH)
+  })
+
+  it('sets the theme photo of one colourway, removes it, and undo and redo step through each', () => {
+    const store = createBoardStore(twoColorways(), { activeColorway: 'Frost' })
+    const photos = () => colorwaysOf(store).map((c) => c.themePhoto)
+    store.run('setThemePhoto', { colorway: 'Frost', upload: PHOTO })
+    expect(photos()).toEqual([undefined, PHOTO])
+    expect(valid(store)).toBe(true)
+    store.run('setThemePhoto', { colorway: 'Frost', upload: OTHER_PHOTO })
+    expect(photos()).toEqual([undefined, OTHER_PHOTO])
+    const history = store.getState().history
+    for (const refused of ['not-an-id', 'uploads/u1/frost.webp', OTHER_PHOTO]) store.run('setThemePhoto', { colorway: 'Frost', upload: refused })
+    store.run('setThemePhoto', { colorway: 'Holly', upload: null })
+    store.run('setThemePhoto', { colorway: 'Winter', upload: PHOTO })
+    expect(store.getState().history).toBe(history)
+    store.run('setThemePhoto', { colorway: 'Frost', upload: null })
+    expect(photos()).toEqual([undefined, undefined])
+    expect('themePhoto' in colorwaysOf(store)[1]!).toBe(false)
+    store.undo()
+    expect(photos()).toEqual([undefined, OTHER_PHOTO])
+    store.undo()
+    expect(photos()).toEqual([undefined, PHOTO])
+    store.undo()
+    expect(colorwaysOf(store)).toEqual(twoColorways().colorways)
+    store.redo()
+    store.redo()
+    expect(photos()).toEqual([undefined, OTHER_PHOTO])
+  })
+
+  it('keeps the theme photo and the swatches on a duplicate, not on a new colourway', () => {
+    const store = createBoardStore(twoColorways())
+    store.run('setThemePhoto', { colorway: 'Holly', upload: PHOTO })
+    store.run('setFabricSwatch', { colorway: 'Holly', fabric: 'background', swatch: SWATCH })
+    boardActions.duplicateColorway.run(context(store))
+    expect(colorwaysOf(store)[1]).toMatchObject({ name: 'Holly copy', themePhoto: PHOTO, fabrics: { background: { swatch: SWATCH } } })
+    // The copy's photo is its own to change.
+    store.run('setThemePhoto', { colorway: 'Holly copy', upload: OTHER_PHOTO })
+    expect(colorwaysOf(store)[0]!.themePhoto).toBe(PHOTO)
+    store.chooseColorway('Holly')
+    boardActions.newColorway.run(context(store))
+    expect(colorwaysOf(store)[3]!.name).toBe('Colourway 4')
+    expect(colorwaysOf(store)[3]!.themePhoto).toBeUndefined()
+    expect(colorwaysOf(store)[3]!.fabrics.background!.swatch).toBe(SWATCH)
+    expect(valid(store)).toBe(true)
   })
 
   it('adds a fabric role to every colourway, named in words, in one undoable step', () => {

@@ -10,7 +10,7 @@ import type { Point } from '@/geometry'
 import { fabricRoleInWords } from '@/geometry/fabric-requirements'
 import { MAX_COLORWAYS, MAX_NAME_LENGTH } from '@/lib/limits'
 import {
-  colorwayFabricSchema, colorwayNameSchema, fabricNameSchema, fabricRoleSchema, hexColourSchema, type ColorwayFabric, type DesignFile,
+  colorwayNameSchema, fabricNameSchema, fabricRoleSchema, hexColourSchema, uploadIdSchema, type ColorwayFabric, type DesignFile,
 } from '@/lib/schemas/design'
 import { unitsPerInch } from '@/lib/units'
 
@@ -174,13 +174,34 @@ export const renameFabric = defineCommand({
   },
 })
 
-/** The swatch image of one role's fabric in one colourway, by its upload key; null removes it. */
+/** The swatch image of one role's fabric in one colourway, by its upload id; null removes it. */
 export const setFabricSwatch = defineCommand({
   name: 'set-fabric-swatch',
   run: (design, { colorway, fabric, swatch }: { colorway: string; fabric: string; swatch: string | null }) => {
-    if (swatch === null) return changeFabric(design, colorway, fabric, ({ swatch: _dropped, ...rest }) => rest)
-    const parsed = colorwayFabricSchema.shape.swatch.safeParse(swatch)
-    return parsed.success && parsed.data !== undefined ? changeFabric(design, colorway, fabric, (f) => ({ ...f, swatch: parsed.data })) : design
+    const parsed = swatch === null ? null : uploadIdSchema.safeParse(swatch)
+    const current = design.colorways.find((c) => c.name === colorway)?.fabrics[fabric]
+    // Nothing to change records nothing: an id refused, or the swatch it already has (or none).
+    if ((parsed && !parsed.success) || current?.swatch === (parsed?.data ?? undefined)) return design
+    return changeFabric(design, colorway, fabric, ({ swatch: _dropped, ...rest }) => (parsed ? { ...rest, swatch: parsed.data! } : rest))
+  },
+})
+
+/**
+ * The theme-fabric photo a colourway starts from, by its upload id (its palette is the upload's);
+ * null removes it. Each colourway has its own: the board shows the photo of the one shown.
+ */
+export const setThemePhoto = defineCommand({
+  name: 'set-theme-photo',
+  run: (design, { colorway, upload }: { colorway: string; upload: string | null }) => {
+    const target = design.colorways.find((c) => c.name === colorway)
+    if (!target) return design
+    const replaced = (next: Colorway): BoardDesign => ({ ...design, colorways: design.colorways.map((c) => (c === target ? next : c)) })
+    if (upload === null) {
+      const { themePhoto, ...rest } = target
+      return themePhoto === undefined ? design : replaced(rest)
+    }
+    const parsed = uploadIdSchema.safeParse(upload)
+    return !parsed.success || parsed.data === target.themePhoto ? design : replaced({ ...target, themePhoto: parsed.data })
   },
 })
 
@@ -213,7 +234,10 @@ export function freeColorwayName(design: Pick<BoardDesign, 'colorways'>, base: s
   return `${base} ${n}`
 }
 
-/** A new colourway, at the end, starts as a copy of another (default the first), to be recoloured. */
+/**
+ * A new colourway, at the end, starts as a copy of another's fabrics (default the first), to be
+ * recoloured; not of its theme photo, as a new colourway usually starts from a fabric of its own.
+ */
 export const addColorway = defineCommand({
   name: 'add-colorway',
   run: (design, { name, copyOf }: { name: string; copyOf?: string }) => {
@@ -232,7 +256,8 @@ export const duplicateColorway = defineCommand({
     if (index < 0 || design.colorways.length >= MAX_COLORWAYS) return design
     const parsed = colorwayNameSchema.safeParse(name ?? freeColorwayName(design, `${colorway} copy`.slice(0, MAX_NAME_LENGTH)))
     if (!parsed.success || design.colorways.some((c) => c.name === parsed.data)) return design
-    const copy = { name: parsed.data, fabrics: copyFabrics(design.colorways[index]!.fabrics) }
+    // The copy keeps the theme photo: the same fabric to start from, recoloured from there.
+    const copy = { ...design.colorways[index]!, name: parsed.data, fabrics: copyFabrics(design.colorways[index]!.fabrics) }
     return { ...design, colorways: [...design.colorways.slice(0, index + 1), copy, ...design.colorways.slice(index + 1)] }
   },
 })
@@ -460,6 +485,7 @@ export const commands = {
   setFabricColour,
   renameFabric,
   setFabricSwatch,
+  setThemePhoto,
   addFabric,
   addColorway,
   duplicateColorway,

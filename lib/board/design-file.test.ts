@@ -2,6 +2,10 @@ import { describe, expect, it } from 'vitest'
 import type { DesignFile } from '@/lib/schemas/design'
 import { DESIGN_FILE_MAX_BYTES, designFileName, exportDesignFile, importDesignFile } from './design-file'
 
+/** Upload ids, as the upload route answers them (made up). */
+const SWATCH = '0b6e4a1c-3f2d-4c8e-9a71-5d2e8f4b6c10'
+const THEME_PHOTO = '7c1d9e35-8a42-4f06-b3e1-2a9c5d7f8e04'
+
 function design(overrides: Partial<DesignFile> = {}): DesignFile {
   return {
     format: 'wreathwright-design',
@@ -16,7 +20,11 @@ function design(overrides: Partial<DesignFile> = {}): DesignFile {
     berries: [],
     curls: [],
     colorways: [
-      { name: 'Winter', fabrics: { background: { name: 'Cream tone-on-tone', color: '#f4ecd8', swatch: 'uploads/u1/cream.webp' }, 'leaf-dark': { name: 'Spruce batik', color: '#23402f' } } },
+      {
+        name: 'Winter',
+        fabrics: { background: { name: 'Cream tone-on-tone', color: '#f4ecd8', swatch: SWATCH }, 'leaf-dark': { name: 'Spruce batik', color: '#23402f' } },
+        themePhoto: THEME_PHOTO,
+      },
       { name: 'Ember', fabrics: { background: { name: 'Cinnamon stick tonal', color: '#8a4b2f' }, 'leaf-dark': { name: 'Moss shot cotton', color: '#5b7553' } } },
     ],
     order: null,
@@ -48,6 +56,13 @@ describe('exporting the design file', () => {
   it('reads back exactly what it wrote: version 2, every colourway with its fabrics named', () => {
     const original = design()
     expect(importDesignFile(exportDesignFile(original).text)).toEqual({ ok: true, design: original })
+  })
+
+  it("keeps each colourway's theme photo and each fabric's swatch, as upload ids", () => {
+    const written = JSON.parse(exportDesignFile(design()).text) as DesignFile
+    expect(written.colorways?.[0]).toMatchObject({ themePhoto: THEME_PHOTO, fabrics: { background: { swatch: SWATCH } } })
+    // The second colourway has neither, and the file says nothing of them.
+    expect(Object.keys(written.colorways![1]!)).toEqual(['name', 'fabrics'])
   })
 
   it('opens a version 1 file, upgraded; exporting it writes version 2 with names from the roles', () => {

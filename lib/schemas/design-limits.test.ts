@@ -2,7 +2,6 @@ import { describe, expect, it } from 'vitest'
 import {
   MAX_AREAS, MAX_BERRIES, MAX_COLORWAYS, MAX_CURLS, MAX_DESIGN_BYTES, MAX_DESIGN_FILE_BYTES, MAX_FABRICS_PER_COLORWAY, MAX_ID_LENGTH,
   MAX_LAYERS_PER_LEAF, MAX_LEAVES, MAX_NAME_LENGTH, MAX_POINTS_PER_CURL, MAX_ROLE_LENGTH, MAX_SEAMS, MAX_SECTIONS, MAX_STEMS,
-  MAX_UPLOAD_KEY_LENGTH,
 } from '@/lib/limits'
 import { designFileSchema, nestingDepth, parseDesign } from './design'
 
@@ -31,6 +30,8 @@ const LONG = -Number.parseFloat('2.2250738585072014e-308')
 const HUGE = Number.parseFloat('2.2250738585072014e+300')
 const FRACTION = Number.parseFloat('0.12345678901234568')
 const point = [LONG, LONG]
+/** An upload id (a UUID: always 36 characters). */
+const UPLOAD_ID = '0b6e4a1c-3f2d-4c8e-9a71-5d2e8f4b6c10'
 
 /** A design with every list at its limit and every string and number at its longest. */
 function largestDesign(): Record<string, unknown> {
@@ -52,11 +53,12 @@ function largestDesign(): Record<string, unknown> {
     stems: Array.from({ length: MAX_STEMS }, () => ({ radius: HUGE, finishedWidth: HUGE, fabric: role })),
     berries: Array.from({ length: MAX_BERRIES }, () => ({ at: point, finishedDiameter: HUGE, fabric: role })),
     curls: Array.from({ length: MAX_CURLS }, () => ({ points: Array.from({ length: MAX_POINTS_PER_CURL }, () => point) })),
-    // Version 2: every fabric of every colourway named at the longest, with the longest swatch key (ASCII).
+    // Version 2: every fabric of every colourway named at the longest, with a swatch; every colourway a theme photo.
     version: 2,
     colorways: longest(MAX_COLORWAYS, MAX_NAME_LENGTH).map((name) => ({
       name,
-      fabrics: Object.fromEntries(roles.map((r) => [r, { name, color: '#aabbcc', swatch: 'k'.repeat(MAX_UPLOAD_KEY_LENGTH) }])),
+      fabrics: Object.fromEntries(roles.map((r) => [r, { name, color: '#aabbcc', swatch: UPLOAD_ID }])),
+      themePhoto: UPLOAD_ID,
     })),
     order: {
       sections: labels.map((label, i) => ({ label, areas: Array.from({ length: i < MAX_AREAS % MAX_SECTIONS ? 3 : 2 }, () => point) })),

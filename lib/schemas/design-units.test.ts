@@ -41,7 +41,11 @@ const everyField: DesignFile = {
   stems: [{ radius: 6.75, finishedWidth: 0.375, fabric: 'stem' }],
   berries: [{ at: [7, 2], finishedDiameter: 0.75, fabric: 'berry' }],
   curls: [{ points: [[6, 3], [6.5, 3.5], [7, 3.25]] }],
-  colorways: [{ name: 'Main', fabrics: { background: { name: 'Cream tone-on-tone', color: '#f4efe6', swatch: 'uploads/u1/cream.webp' }, green: { name: 'Holly green batik', color: '#2f5540' } } }],
+  colorways: [{
+    name: 'Main',
+    fabrics: { background: { name: 'Cream tone-on-tone', color: '#f4efe6', swatch: '0b6e4a1c-3f2d-4c8e-9a71-5d2e8f4b6c10' }, green: { name: 'Holly green batik', color: '#2f5540' } },
+    themePhoto: '7c1d9e35-8a42-4f06-b3e1-2a9c5d7f8e04',
+  }],
   order: {
     sections: [{ label: 'A', areas: [[5.5, 1], [3.5, 3.5]] }, { label: 'B', areas: [[7.5, 4]] }],
     assembly: ['A', 'B'],

@@ -1,13 +1,17 @@
 /**
  * Design format version 2: a colourway gives every fabric role a fabric `{ name, color, swatch? }`
- * where version 1 gave it only a colour. Version 1 files still open, upgraded on read; the fixture
+ * (the swatch an upload id) where version 1 gave it only a colour, and may name its theme photo
+ * (`themePhoto`, an upload id). Version 1 files still open, upgraded on read; the fixture
  * files stay version 1 on disk and are read through the upgrade here.
  */
 import { readdirSync, readFileSync } from 'node:fs'
 import path from 'node:path'
 import { describe, expect, it } from 'vitest'
 import { DEMO_PATTERNS } from '@/scripts/demo-data'
-import { designFileSchema, parseDesign, upgradeDesignFile, type DesignFile } from './design'
+import { designFileSchema, parseDesign, swatchFromLegacyKey, upgradeDesignFile, type DesignFile } from './design'
+
+/** An upload id, as the upload route answers it (made up). */
+const SWATCH = '0b6e4a1c-3f2d-4c8e-9a71-5d2e8f4b6c10'
 
 const FIXTURES = path.join(__dirname, '..', '..', 'geometry', 'fixtures')
 
@@ -46,10 +50,11 @@ describe('design format version 2', () => {
     expect(parseDesign(mixed).ok).toBe(false)
   })
 
-  it('reads version 2 fabrics with a display name, a colour and an optional swatch key; refuses what is not', () => {
+  it('reads version 2 fabrics with a display name, a colour and an optional swatch upload id; refuses what is not', () => {
     const base = { format: 'wreathwright-design', version: 2, name: 'New', units: 'in', ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' }, seams: [] }
     const fabric = (f: unknown) => ({ ...base, colorways: [{ name: 'Holly', fabrics: { stem: f } }] })
-    expect(parseDesign(fabric({ name: '  Bark brown  ', color: '#4a3a2a', swatch: 'uploads/u1/bark.webp' })).ok).toBe(true)
+    const read = parseDesign(fabric({ name: '  Bark brown  ', color: '#4a3a2a', swatch: SWATCH.toUpperCase() }))
+    expect(read.ok && read.file.colorways?.[0]?.fabrics.stem).toEqual({ name: 'Bark brown', color: '#4a3a2a', swatch: SWATCH })
     const firstPath = (json: unknown) => {
       const parsed = parseDesign(json)
       return parsed.ok ? null : parsed.issues[0]!.path
@@ -57,14 +62,41 @@ describe('design format version 2', () => {
     expect(firstPath(fabric('#4a3a2a'))).toBe('colorways.0.fabrics.stem')
     expect(firstPath(fabric({ name: '', color: '#4a3a2a' }))).toBe('colorways.0.fabrics.stem.name')
     expect(firstPath(fabric({ name: 'Bark\u0000', color: '#4a3a2a' }))).toBe('colorways.0.fabrics.stem.name')
-    for (const swatch of ['../../etc/passwd', '/uploads/a.webp', 'a b.webp', 'a\u0000b']) {
-      expect(firstPath(fabric({ name: 'Bark', color: '#4a3a2a', swatch })), swatch).toBe('colorways.0.fabrics.stem.swatch')
+    for (const swatch of ['not-an-upload', `${SWATCH}0`, SWATCH.replaceAll('-', ''), '../../etc/passwd', '/uploads/a.webp', 'a b.webp', 'a\u0000b', 'k'.repeat(201), 42]) {
+      const parsed = parseDesign(fabric({ name: 'Bark', color: '#4a3a2a', swatch }))
+      expect(parsed.ok ? null : parsed.issues[0], String(swatch)).toMatchObject({ path: 'colorways.0.fabrics.stem.swatch' })
     }
-    expect(firstPath(fabric({ name: 'Bark', color: '#4a3a2a', swatch: 'k'.repeat(201) }))).toBe('colorways.0.fabrics.stem.swatch')
+    expect(parseDesign(fabric({ name: 'Bark', color: '#4a3a2a', swatch: 'nope' }))).toMatchObject({ ok: false, issues: [{ message: 'an upload id is a UUID, as the upload answered it' }] })
     expect(firstPath(fabric({ name: 'Bark', color: '#4a3a2a', price: 5 }))).toBe('colorways.0.fabrics.stem')
     // Colourways are named by their names: twice is refused.
     const twice = { ...base, colorways: [{ name: 'Holly', fabrics: {} }, { name: 'Holly', fabrics: {} }] }
     expect(firstPath(twice)).toBe('colorways.1.name')
+  })
+
+  it('reads a swatch named by its object-store key (the first version 2 files) as the upload id the key holds', () => {
+    const base = { format: 'wreathwright-design', version: 2, name: 'New', units: 'in', ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' }, seams: [] }
+    const withSwatches = (stem: string, berry: string) => ({ ...base, colorways: [{ name: 'Holly', fabrics: { stem: { name: 'Bark', color: '#4a3a2a', swatch: stem }, berry: { name: 'Cranberry', color: '#a3392b', swatch: berry } } }] })
+    // The upload route stores an image as <prefix>uploads/<owner>/<kind>/<id>.<ext> (lib/services/uploads.ts).
+    const parsed = parseDesign(withSwatches(`designs/uploads/9d1e/swatch/${SWATCH.toUpperCase()}.webp`, 'uploads/u1/holly.webp'))
+    if (!parsed.ok) throw new Error(parsed.issues[0]?.message)
+    expect(parsed.file.colorways?.[0]?.fabrics.stem).toEqual({ name: 'Bark', color: '#4a3a2a', swatch: SWATCH })
+    // A key that holds no upload id names nothing any address serves: the fabric reads without a swatch.
+    expect(parsed.file.colorways?.[0]?.fabrics.berry).toEqual({ name: 'Cranberry', color: '#a3392b' })
+    expect(swatchFromLegacyKey(`uploads/u/swatch/${SWATCH}.png`)).toBe(SWATCH)
+    expect(swatchFromLegacyKey(`uploads/u/swatch/${SWATCH}.gif`)).toBeUndefined()
+    // An id, or what is no key at all, is left for the schema.
+    for (const value of [SWATCH, 'not-an-upload', '../x/y.webp', 42]) expect(swatchFromLegacyKey(value)).toBe(value)
+  })
+
+  it("reads a colourway's theme photo as an upload id, optional, and refuses another value at its path", () => {
+    const base = { format: 'wreathwright-design', version: 2, name: 'New', units: 'in', ring: { innerRadius: 0, outerRadius: 9, repeats: 4, repeatMode: 'rotate' }, seams: [] }
+    const withPhoto = (themePhoto: unknown) => ({ ...base, colorways: [{ name: 'Holly', fabrics: {} }, { name: 'Frost', fabrics: {}, themePhoto }] })
+    const parsed = parseDesign(withPhoto(SWATCH))
+    expect(parsed.ok && parsed.file.colorways?.map((c) => c.themePhoto)).toEqual([undefined, SWATCH])
+    for (const themePhoto of ['uploads/u1/frost.webp', 'frost', '', null, 7]) {
+      const refused = parseDesign(withPhoto(themePhoto))
+      expect(refused.ok ? null : refused.issues[0]!.path, String(themePhoto)).toBe('colorways.1.themePhoto')
+    }
   })
 
   it('upgrades every geometry fixture file (version 1 on disk) to the same design in version 2', () => {

@@ -3,8 +3,9 @@
  * API, the drafting board and the command line. `parseDesign` is the one edge where a file
  * becomes the core's `Design`: centimetres are converted to inches here, once.
  *
- * Version 2 gives each fabric role of a colourway a fabric (`{ name, color, swatch? }`) where
- * version 1 gave it only a colour. A version 1 file still reads: `designFileSchema` upgrades it
+ * Version 2 gives each fabric role of a colourway a fabric (`{ name, color, swatch? }`, the swatch
+ * an upload id) where version 1 gave it only a colour; a colourway may also name its theme-fabric
+ * photo (`themePhoto`, an upload id). A version 1 file still reads: `designFileSchema` upgrades it
  * first (`upgradeDesignFile`), so every reader — the API, the board, the command line, the
  * stored revisions — gets version 2, and every writer writes version 2.
  */
@@ -78,23 +79,32 @@ export const fabricNameSchema = text({ max: MAX_NAME_LENGTH })
 /** A fabric role: the key the areas, leaves, stems and berries name ("leaf-dark"). */
 export const fabricRoleSchema = role
 
+/** An upload's id: 8-4-4-4-12 hex digits, as the upload route answers it (lib/services/uploads.ts). */
+const UPLOAD_ID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i
+
 /**
- * An uploaded swatch image, by its key in the object store (uploads are stored and checked
- * elsewhere; the design keeps only the key). The characters an object key may safely hold.
+ * An uploaded image named by its upload id, as `POST /api/uploads` answers it and
+ * `/api/uploads/<id>` serves it to those allowed to read it (lib/authorization.ts). The design
+ * keeps only the id; whether the image still exists, and who may see it, is the upload's business.
+ * Written in lower case.
+ *
+ * @example uploadIdSchema.parse('6F1C2B3A-0D4E-4F5A-8B6C-7D8E9F0A1B2C') // '6f1c2b3a-0d4e-4f5a-8b6c-7d8e9f0a1b2c'
  */
-const uploadKey = text({ max: MAX_UPLOAD_KEY_LENGTH }).regex(
-  /^(?!\/)(?!.*\.\.)[A-Za-z0-9!_.*'()/-]+$/,
-  "a swatch is an upload key: letters, digits and ! _ . * ' ( ) / -, not starting with / and without ..",
-)
+export const uploadIdSchema = z.string().regex(UPLOAD_ID, 'an upload id is a UUID, as the upload answered it').toLowerCase()
 
-/** What a colourway gives one fabric role: the fabric as the maker buys it. */
-export const colorwayFabricSchema = z.strictObject({ name: fabricNameSchema, color: hexColourSchema, swatch: uploadKey.optional() })
+/** What a colourway gives one fabric role: the fabric as the maker buys it, and a swatch image of it. */
+export const colorwayFabricSchema = z.strictObject({ name: fabricNameSchema, color: hexColourSchema, swatch: uploadIdSchema.optional() })
 
+/**
+ * A colourway: a fabric for every role, and the theme-fabric photo it was started from (an upload
+ * of kind `fabric-photo`, whose stored palette the board proposes).
+ */
 const colorway = z.strictObject({
   name: colorwayNameSchema,
   fabrics: z
     .record(role, colorwayFabricSchema)
     .refine((fabrics) => Object.keys(fabrics).length <= MAX_FABRICS_PER_COLORWAY, `at most ${MAX_FABRICS_PER_COLORWAY} fabrics in a colourway`),
+  themePhoto: uploadIdSchema.optional(),
 })
 
 const joinTree: z.ZodType<JoinTree> = z.lazy(() => z.union([id, z.tuple([joinTree, joinTree])]))
@@ -237,17 +247,58 @@ export function upgradeDesignFile(json: unknown): unknown {
   }
 }
 
+/** A swatch as files of the first version 2 named it: the image's key in the object store. */
+const LEGACY_UPLOAD_KEY = /^(?!\/)(?!.*\.\.)[A-Za-z0-9!_.*'()/-]+$/
+/** The upload id inside such a key: the upload route stores an image as `…/<id>.<jpg|png|webp>`. */
+const ID_IN_LEGACY_KEY = /\/([0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12})\.(?:jpg|png|webp)$/i
+
+/**
+ * A swatch as the schema now reads it. An object-store key (it has a `/` or a `.`, which no
+ * upload id has) becomes the upload id it names, or is dropped when it names none: no address
+ * ever served an image by its key, so nothing that could be shown is lost. Anything else (an id,
+ * or not a string at all) is left for the schema to accept or refuse.
+ *
+ * @example swatchFromLegacyKey('designs/uploads/u1/swatch/6f1c2b3a-0d4e-4f5a-8b6c-7d8e9f0a1b2c.webp') // '6f1c2b3a-0d4e-4f5a-8b6c-7d8e9f0a1b2c'
+ * @example swatchFromLegacyKey('uploads/u1/holly.webp') // undefined
+ */
+export function swatchFromLegacyKey(swatch: unknown): unknown {
+  if (typeof swatch !== 'string' || !/[/.]/.test(swatch) || swatch.length > MAX_UPLOAD_KEY_LENGTH || !LEGACY_UPLOAD_KEY.test(swatch)) return swatch
+  return ID_IN_LEGACY_KEY.exec(`/${swatch}`)?.[1]?.toLowerCase()
+}
+
+/** Every swatch of a (version 2) file through `swatchFromLegacyKey`; the same value when none changes. */
+function readLegacySwatches(json: unknown): unknown {
+  if (!isRecord(json) || !Array.isArray(json.colorways)) return json
+  let changed = false
+  const colorways = json.colorways.map((c: unknown) => {
+    if (!isRecord(c) || !isRecord(c.fabrics)) return c
+    const fabrics = Object.fromEntries(
+      Object.entries(c.fabrics).map(([role, f]) => {
+        if (!isRecord(f) || !('swatch' in f)) return [role, f]
+        const swatch = swatchFromLegacyKey(f.swatch)
+        if (swatch === f.swatch) return [role, f]
+        changed = true
+        const { swatch: _old, ...rest } = f
+        return [role, swatch === undefined ? rest : { ...rest, swatch }]
+      }),
+    )
+    return { ...c, fabrics }
+  })
+  return changed ? { ...json, colorways } : json
+}
+
 /**
  * The schema of a design file: version 2, or version 1 upgraded to version 2 on the way in
- * (`upgradeDesignFile`). Its output is always version 2.
+ * (`upgradeDesignFile`), swatches named by an object-store key read as upload ids
+ * (`swatchFromLegacyKey`). Its output is always version 2.
  *
  * @example designFileSchema.safeParse(JSON.parse(text)).success
  */
-export const designFileSchema = z.preprocess(upgradeDesignFile, designFileV2Schema)
+export const designFileSchema = z.preprocess((json) => readLegacySwatches(upgradeDesignFile(json)), designFileV2Schema)
 
 /** A design file as written on disk (in its own units), version 2. */
 export type DesignFile = z.infer<typeof designFileSchema>
-/** What a colourway gives one role: `{ name, color, swatch? }`. */
+/** What a colourway gives one role: `{ name, color, swatch? }`, the swatch an upload id. */
 export type ColorwayFabric = z.infer<typeof colorwayFabricSchema>
 
 /** One reason a file is not a valid design, with the dotted path of the field, e.g. `ring.outerRadius`. */
