@@ -56,3 +56,25 @@ describe('uploads', () => {
     expect(() => authorize(null, 'read-upload', upload)).toThrow(UnauthenticatedError)
   })
 })
+
+describe('the admin desk', () => {
+  const deskActions = ['manage-users', 'decide-designer-requests', 'read-audit-log', 'read-mail-log'] as const
+
+  it('is for admins only', () => {
+    for (const action of deskActions) {
+      expect(can(person(['admin']), action), action).toBe(true)
+      for (const roles of [['designer', 'quilter'], ['tester', 'quilter'], ['quilter'], []] as const) {
+        expect(can(person([...roles]), action), `${action} as ${roles.join('+')}`).toBe(false)
+      }
+      expect(can(null, action)).toBe(false)
+    }
+  })
+
+  it('is not even found by others: 404 for the signed in, 401 for strangers', () => {
+    for (const action of deskActions) {
+      expect(() => authorize(person(['designer', 'quilter']), action)).toThrow(NotFoundError)
+      expect(() => authorize(null, action)).toThrow(UnauthenticatedError)
+      expect(() => authorize(person(['admin']), action)).not.toThrow()
+    }
+  })
+})

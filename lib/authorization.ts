@@ -31,6 +31,9 @@ type Rules = {
   'delete-pattern': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
   'change-pattern-state': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
   'manage-users': (actor: NonNullable<Actor>) => boolean
+  'decide-designer-requests': (actor: NonNullable<Actor>) => boolean
+  'read-audit-log': (actor: NonNullable<Actor>) => boolean
+  'read-mail-log': (actor: NonNullable<Actor>) => boolean
   'upload-image': (actor: NonNullable<Actor>, purpose: UploadPurpose) => boolean
   'read-upload': (actor: NonNullable<Actor>, upload: UploadFacts) => boolean
 }
@@ -51,7 +54,12 @@ const rules: Rules = {
   'update-pattern': (actor, pattern) => isOwningDesigner(actor, pattern) || isAdmin(actor),
   'delete-pattern': (actor, pattern) => isOwningDesigner(actor, pattern) || isAdmin(actor),
   'change-pattern-state': (actor, pattern) => isOwningDesigner(actor, pattern) || isAdmin(actor),
+  // The admin desk (app/(admin)): people's roles and accounts, designer requests, and the logs of
+  // what admins did and what mail went out — admins only.
   'manage-users': (actor) => isAdmin(actor),
+  'decide-designer-requests': (actor) => isAdmin(actor),
+  'read-audit-log': (actor) => isAdmin(actor),
+  'read-mail-log': (actor) => isAdmin(actor),
   // Theme-fabric photos and swatches serve pattern design.
   'upload-image': (actor) => hasRole(actor, 'designer') || isAdmin(actor),
   // Uploads are private to their owner; admins may look at any (e.g. to review what was reported).
@@ -70,14 +78,19 @@ export function can<A extends Action>(actor: Actor, action: A, ...resource: Reso
   return rule(actor, resource[0])
 }
 
+/** The admin desk's actions: refused as 404, so that the desk's addresses are not even found by others. */
+const ADMIN_DESK_ACTIONS: ReadonlySet<Action> = new Set(['manage-users', 'decide-designer-requests', 'read-audit-log', 'read-mail-log'])
+
 /**
  * Throws unless the actor may take the action: 401 when nobody is signed in, otherwise 403 —
- * or 404 for reads, so that other designers' drafts cannot even be found.
+ * or 404 for reads and the admin desk, so that other designers' drafts and the desk cannot even be
+ * found.
  */
 export function authorize<A extends Action>(actor: Actor, action: A, ...resource: ResourceOf<A>): asserts actor is NonNullable<Actor> {
   if (!actor) throw new UnauthenticatedError()
   if (can(actor, action, ...resource)) return
   if (action === 'read-pattern') throw new NotFoundError('No such pattern.')
   if (action === 'read-upload') throw new NotFoundError('No such upload.')
+  if (ADMIN_DESK_ACTIONS.has(action)) throw new NotFoundError()
   throw new ForbiddenError()
 }
