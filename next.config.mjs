@@ -1,7 +1,8 @@
 /** @type {import('next').NextConfig} */
 const nextConfig = {
   // Sequelize loads its dialect modules dynamically; bundling it breaks them (see DEVELOPERS.md).
-  serverExternalPackages: ['sequelize'],
+  // pg-boss runs its own pool and migrations in the mail worker (lib/mail/); kept as Node loads it.
+  serverExternalPackages: ['sequelize', 'pg-boss'],
   poweredByHeader: false,
   reactStrictMode: true,
   // Fixed security headers, on every answer static files included. The Content-Security-Policy (a

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { objectStoreSettings, originSettings, type ServerEnv } from './env'
+import { mailSettings, objectStoreSettings, originSettings, type ServerEnv } from './env'
 
 const env = (overrides: Partial<ServerEnv>): ServerEnv => ({
   DATABASE_URL: 'postgres://127.0.0.1/x',
@@ -8,6 +8,13 @@ const env = (overrides: Partial<ServerEnv>): ServerEnv => ({
   TRUST_PROXY: 'false',
   S3_REGION: 'us-east-1',
   S3_KEY_PREFIX: '',
+  SMTP_HOST: '127.0.0.1',
+  SMTP_SECURE: 'false',
+  MAIL_FROM: 'Wreathwright <mail@wreathwright.example>',
+  MAIL_WORKER: 'on',
+  MAIL_RETRY_LIMIT: 6,
+  MAIL_RETRY_DELAY_SECONDS: 30,
+  MAIL_POLL_SECONDS: 2,
   ...overrides,
 })
 
@@ -42,5 +49,30 @@ describe('objectStoreSettings', () => {
   it('passes credentials only as a pair', () => {
     const settings = objectStoreSettings(env({ S3_ENDPOINT: 'http://127.0.0.1:9000', S3_BUCKET: 'uploads', S3_ACCESS_KEY_ID: 'id' }))
     expect(settings).toEqual({ endpoint: 'http://127.0.0.1:9000', bucket: 'uploads', region: 'us-east-1', credentials: undefined, keyPrefix: '' })
+  })
+})
+
+describe('mailSettings', () => {
+  it('sends nothing until SMTP_PORT is set, from the product by name', () => {
+    const settings = mailSettings(env({}))
+    expect(settings.smtp).toBeNull()
+    expect(settings.from).toBe('Wreathwright <mail@wreathwright.example>')
+    expect(settings.viewUrl).toBeNull()
+  })
+
+  it('reaches the SMTP server named, with credentials only as a pair', () => {
+    expect(mailSettings(env({ SMTP_PORT: 2525, SMTP_USER: 'mailer' })).smtp).toEqual({ host: '127.0.0.1', port: 2525, secure: false })
+    expect(mailSettings(env({ SMTP_PORT: 465, SMTP_SECURE: 'true', SMTP_USER: 'mailer', SMTP_PASSWORD: 'pw' })).smtp).toEqual({
+      host: '127.0.0.1',
+      port: 465,
+      secure: true,
+      auth: { user: 'mailer', pass: 'pw' },
+    })
+  })
+
+  it('links the catcher\'s web view and lets an instance leave the sending to others', () => {
+    const settings = mailSettings(env({ MAIL_VIEW_URL: 'http://127.0.0.1:54331', MAIL_WORKER: 'off' }))
+    expect(settings.viewUrl).toBe('http://127.0.0.1:54331')
+    expect(settings.worker).toBe(false)
   })
 })

@@ -45,6 +45,35 @@ const serverEnvSchema = z.object({
   S3_SECRET_ACCESS_KEY: z.string().min(1).optional(),
   /** Put before every object key, e.g. `wreathwright/` when the bucket is shared with others. */
   S3_KEY_PREFIX: z.string().max(200).default(''),
+  /**
+   * The SMTP server messages are handed to (lib/mail/transport.ts). `npm run demo` and `npm test`
+   * start a local mail catcher (maildev) on loopback and set these; without SMTP_PORT no message
+   * leaves: they wait in the queue, none is lost.
+   */
+  SMTP_HOST: z.string().min(1).default('127.0.0.1'),
+  SMTP_PORT: z.coerce.number().int().min(1).max(65_535).optional(),
+  /** TLS from the first byte (port 465); otherwise STARTTLS is used when the server offers it. */
+  SMTP_SECURE: z.enum(['true', 'false']).default('false'),
+  SMTP_USER: z.string().min(1).optional(),
+  SMTP_PASSWORD: z.string().min(1).optional(),
+  /** The sender of every message: the product's name and an address, `Name <address>`. */
+  MAIL_FROM: z
+    .string()
+    .regex(/^[^<>]+ <[^<>@\s]+@[^<>@\s]+>$/, 'Name <address>')
+    .default('Wreathwright <mail@wreathwright.example>'),
+  /** The mail catcher's web view, linked from the admin desk; unset where real mail goes out. */
+  MAIL_VIEW_URL: z
+    .string()
+    .refine((value) => URL.canParse(value) && /^https?:$/.test(new URL(value).protocol), 'an http(s) URL')
+    .optional(),
+  /** `off` keeps this process from sending (another instance, or none, runs the mail worker). */
+  MAIL_WORKER: z.enum(['on', 'off']).default('on'),
+  /** Tries after the first failed one, each later than the last (pg-boss retryBackoff). */
+  MAIL_RETRY_LIMIT: z.coerce.number().int().min(0).max(20).default(6),
+  /** Wait before the first retry; it doubles for each next one (30 s, 1 min, 2 min, … ≈ 32 min). */
+  MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
+  /** How often an idle worker looks for new messages (pg-boss's minimum is 0.5 s). */
+  MAIL_POLL_SECONDS: z.coerce.number().min(0.5).max(60).default(2),
 })
 
 export type ServerEnv = z.infer<typeof serverEnvSchema>
@@ -101,4 +130,30 @@ export function objectStoreSettings(env: ServerEnv = serverEnv()): ObjectStoreSe
   const credentials =
     env.S3_ACCESS_KEY_ID && env.S3_SECRET_ACCESS_KEY ? { accessKeyId: env.S3_ACCESS_KEY_ID, secretAccessKey: env.S3_SECRET_ACCESS_KEY } : undefined
   return { endpoint: env.S3_ENDPOINT, bucket: env.S3_BUCKET, region: env.S3_REGION, credentials, keyPrefix: env.S3_KEY_PREFIX }
+}
+
+/** How messages are sent (lib/mail/): the SMTP server, the sender and the queue's retry policy. */
+export interface MailSettings {
+  /** Null when SMTP_PORT is unset: messages are queued and wait. */
+  readonly smtp: { readonly host: string; readonly port: number; readonly secure: boolean; readonly auth?: { readonly user: string; readonly pass: string } } | null
+  readonly from: string
+  /** The mail catcher's web view for the admin desk; null when unset. */
+  readonly viewUrl: string | null
+  readonly worker: boolean
+  readonly retryLimit: number
+  readonly retryDelaySeconds: number
+  readonly pollSeconds: number
+}
+
+export function mailSettings(env: ServerEnv = serverEnv()): MailSettings {
+  const auth = env.SMTP_USER && env.SMTP_PASSWORD ? { user: env.SMTP_USER, pass: env.SMTP_PASSWORD } : undefined
+  return {
+    smtp: env.SMTP_PORT ? { host: env.SMTP_HOST, port: env.SMTP_PORT, secure: env.SMTP_SECURE === 'true', ...(auth ? { auth } : {}) } : null,
+    from: env.MAIL_FROM,
+    viewUrl: env.MAIL_VIEW_URL ?? null,
+    worker: env.MAIL_WORKER === 'on',
+    retryLimit: env.MAIL_RETRY_LIMIT,
+    retryDelaySeconds: env.MAIL_RETRY_DELAY_SECONDS,
+    pollSeconds: env.MAIL_POLL_SECONDS,
+  }
 }

@@ -1,11 +1,14 @@
 import type { Sequelize } from 'sequelize'
+import { AdminAuditEntry, initAdminAuditEntry } from './admin-audit-entry'
+import { AccountToken, initAccountToken } from './account-token'
+import { initOutgoingMail, OutgoingMail } from './outgoing-mail'
 import { initPattern, Pattern } from './pattern'
 import { initPatternRevision, PatternRevision } from './pattern-revision'
 import { initSession, Session } from './session'
 import { initUpload, Upload } from './upload'
 import { initUser, User } from './user'
 
-export { Pattern, PatternRevision, Session, Upload, User }
+export { AccountToken, AdminAuditEntry, OutgoingMail, Pattern, PatternRevision, Session, Upload, User }
 
 /** Binds every model to one Sequelize instance and declares how they relate. */
 export function initModels(sequelize: Sequelize): void {
@@ -14,6 +17,9 @@ export function initModels(sequelize: Sequelize): void {
   initPattern(sequelize)
   initPatternRevision(sequelize)
   initUpload(sequelize)
+  initOutgoingMail(sequelize)
+  initAdminAuditEntry(sequelize)
+  initAccountToken(sequelize)
 
   User.hasMany(Session, { foreignKey: 'userId', onDelete: 'CASCADE' })
   Session.belongsTo(User, { foreignKey: 'userId' })
@@ -22,4 +28,5 @@ export function initModels(sequelize: Sequelize): void {
   Pattern.hasMany(PatternRevision, { foreignKey: 'patternId', onDelete: 'CASCADE' })
   PatternRevision.belongsTo(Pattern, { foreignKey: 'patternId' })
   User.hasMany(Upload, { foreignKey: 'ownerId', onDelete: 'CASCADE' })
+  User.hasMany(AccountToken, { foreignKey: 'userId', onDelete: 'CASCADE' })
 }

@@ -4,15 +4,18 @@
  *   2. a throwaway PostgreSQL cluster in a temporary folder, on a free loopback port, with a
  *      throwaway password (in that folder, mode 600; the database URLs carry it);
  *   3. a throwaway S3-compatible object store (s3rver) in that folder, on a free loopback port;
- *   4. unit and integration tests (vitest), the integration ones against that database and store;
- *   5. the app built and started on a free port with demo data in a second database;
- *   6. end-to-end tests in headless Debian Chromium (playwright-core) against it.
+ *   4. a mail catcher (maildev), SMTP and web view on free loopback ports: the app and the
+ *      integration tests send to it, the tests read what came through its API (MAIL_CATCHER_URL);
+ *   5. unit and integration tests (vitest), the integration ones against that database, store and catcher;
+ *   6. the app built and started on a free port with demo data in a second database;
+ *   7. end-to-end tests in headless Debian Chromium (playwright-core) against it.
  * Exits non-zero if anything failed, a lint finding included. Pass vitest filters after `--`, e.g.
  * `npm test -- shelf`; they narrow the tests, never the lint, which always covers every file.
  */
 import fs from 'node:fs'
 import os from 'node:os'
 import path from 'node:path'
+import { startMailCatcher, type MailCatcher } from './mail-catcher'
 import { startObjectStore, type ObjectStore } from './object-store'
 import { freePort, run, startProcess, stopProcess, waitForHttp } from './processes'
 import { startCluster, type Cluster } from './postgres'
@@ -26,10 +29,12 @@ fs.mkdirSync(reports)
 let cluster: Cluster | undefined
 let app: ReturnType<typeof startProcess> | undefined
 let objectStore: ObjectStore | undefined
+let mailCatcher: MailCatcher | undefined
 
 async function cleanUp(): Promise<void> {
   await stopProcess(app)
   await objectStore?.stop().catch((error: Error) => console.error(`tests: could not stop the object store: ${error.message}`))
+  await mailCatcher?.stop().catch((error: Error) => console.error(`tests: could not stop the mail catcher: ${error.message}`))
   try {
     cluster?.stop()
   } catch (error) {
@@ -79,13 +84,26 @@ try {
   cluster.createDatabase('wreathwright_test')
   cluster.createDatabase('wreathwright_e2e')
   objectStore = await startObjectStore(path.join(workFolder, 'objects'), await freePort(), 'wreathwright-test')
+  mailCatcher = await startMailCatcher(path.join(workFolder, 'mail'), await freePort(), await freePort())
+  // The app's mail settings, plus the catcher's address for the tests that read what it caught.
+  const mailEnv = { ...mailCatcher.env, MAIL_CATCHER_URL: mailCatcher.url }
 
   console.log('\n== unit and integration tests ==')
-  const testEnv = { ...baseEnv, ...objectStore.env, DATABASE_URL: cluster.url('wreathwright_test'), NODE_ENV: 'test' as const }
+  const testEnv = {
+    ...baseEnv,
+    ...objectStore.env,
+    ...mailEnv,
+    // Quick retries and polling, so a test of a failing SMTP server sees the last try within seconds.
+    MAIL_RETRY_LIMIT: '2',
+    MAIL_RETRY_DELAY_SECONDS: '1',
+    MAIL_POLL_SECONDS: '0.5',
+    DATABASE_URL: cluster.url('wreathwright_test'),
+    NODE_ENV: 'test' as const,
+  }
   if ((await vitest(['unit', 'integration'], path.join(reports, 'unit.json'), testEnv)) !== 0) failedSteps.push('unit/integration')
 
   console.log('\n== build and start the app for end-to-end tests ==')
-  const e2eEnv = { ...baseEnv, ...objectStore.env, DATABASE_URL: cluster.url('wreathwright_e2e'), SESSION_COOKIE_SECURE: 'false' }
+  const e2eEnv = { ...baseEnv, ...objectStore.env, ...mailEnv, MAIL_POLL_SECONDS: '0.5', DATABASE_URL: cluster.url('wreathwright_e2e'), SESSION_COOKIE_SECURE: 'false' }
   const prepared =
     (await run('npx', ['tsx', 'scripts/migrate.ts', 'up'], e2eEnv)) === 0 &&
     (await run('npx', ['tsx', 'scripts/seed-demo.ts'], e2eEnv)) === 0 &&

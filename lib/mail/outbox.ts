@@ -1,0 +1,38 @@
+import 'server-only'
+import type { ClientBase } from 'pg'
+import type { Transaction } from 'sequelize'
+import { database } from '@/lib/db'
+import { OutgoingMail } from '@/models'
+import { MAIL_KINDS, MAIL_QUEUE, type MailData, type MailJob, type MailKind } from './kinds'
+import { senderBoss } from './queue'
+
+/**
+ * Queues a message: a row in the mail log (`outgoing_mails`) and a job on the durable queue, both
+ * in the caller's transaction when one is given. A rolled-back transaction therefore sends nothing,
+ * and once it commits the message survives a crash until the worker (lib/mail/worker.ts) sends it.
+ * Never waits for SMTP.
+ *
+ * @example
+ * await queueMail({ to: 'ada@example.com', kind: 'password-changed', data: { displayName: 'Ada' }, userId: ada.id }, { transaction })
+ */
+export async function queueMail<K extends MailKind>(
+  message: { to: string; kind: K; data: MailData[K]; userId?: string | null },
+  options?: { transaction?: Transaction },
+): Promise<void> {
+  if (!(MAIL_KINDS as readonly string[]).includes(message.kind)) throw new Error(`queueMail: unknown kind ${message.kind}`)
+  // Binds this bundle's copy of the models to the shared connection (see lib/db.ts).
+  const sequelize = database()
+  const boss = await senderBoss()
+  const write = async (transaction: Transaction) => {
+    const row = await OutgoingMail.create({ toAddress: message.to, kind: message.kind, userId: message.userId ?? null }, { transaction })
+    const job: MailJob<K> = { mailId: row.id, to: message.to, kind: message.kind, data: message.data }
+    // pg-boss inserts the job through this `db`: the transaction's own connection (Sequelize keeps
+    // it on the transaction), so the job commits or rolls back with the row.
+    const connection = (transaction as unknown as { connection: ClientBase }).connection
+    const db = { executeSql: (text: string, values: unknown[]) => connection.query(text, values) }
+    const jobId = await boss.send(MAIL_QUEUE, job, { db })
+    if (!jobId) throw new Error('queueMail: the mail queue refused the job')
+  }
+  if (options?.transaction) await write(options.transaction)
+  else await sequelize.transaction(write)
+}
