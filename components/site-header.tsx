@@ -2,6 +2,7 @@ import Link from 'next/link'
 import { getCurrentUser } from '@/lib/auth/current-user'
 import { can } from '@/lib/authorization'
 import { SignOutButton } from '@/components/account/sign-out-button'
+import { VerifyEmailBanner } from '@/components/account/verify-email-banner'
 
 export async function SiteHeader() {
   const user = await getCurrentUser()
@@ -16,12 +17,17 @@ export async function SiteHeader() {
             Pattern shelf
           </Link>
         )}
+        {can(user, 'manage-users') && (
+          <Link href="/admin" className="text-sm text-stone-700 hover:text-thread-700">
+            Admin desk
+          </Link>
+        )}
         <div className="ml-auto flex items-center gap-4 text-sm">
           {user ? (
             <>
-              <span className="text-stone-600" data-testid="signed-in-as">
+              <Link href="/account" className="text-stone-600 hover:text-thread-700" data-testid="signed-in-as" title="Your account">
                 {user.displayName} <span className="text-stone-400">({user.roles.join(', ')})</span>
-              </span>
+              </Link>
               <SignOutButton />
             </>
           ) : (
@@ -36,6 +42,7 @@ export async function SiteHeader() {
           )}
         </div>
       </nav>
+      {user && !user.emailVerified && <VerifyEmailBanner email={user.email} />}
     </header>
   )
 }

@@ -3,11 +3,11 @@ export const ROLES = ['designer', 'tester', 'quilter', 'admin'] as const
 export type Role = (typeof ROLES)[number]
 
 /**
- * Roles a new account gets: everyone quilts; a person who asks for a designer account at
- * sign-up gets it too (an admin can also grant it later).
+ * Roles a new account gets: everyone quilts. A wish for a designer account is recorded as a
+ * request (users.designer_requested_at) that an admin approves on the admin desk.
  */
-export function rolesAtSignUp(wantsDesignerAccount: boolean): Role[] {
-  return wantsDesignerAccount ? ['quilter', 'designer'] : ['quilter']
+export function rolesAtSignUp(): Role[] {
+  return ['quilter']
 }
 
 export function isRole(value: string): value is Role {

@@ -16,8 +16,10 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare passwordHash: string
   declare emailVerifiedAt: Date | null
   declare roles: Role[]
-  /** When the person asked for a designer account at sign-up (granted then; kept for the admin's records). */
+  /** When the person asked for a designer account at sign-up: a request an admin approves or not. */
   declare designerRequestedAt: Date | null
+  /** Set by an admin: the account cannot sign in and has no sessions while this is set. */
+  declare disabledAt: CreationOptional<Date | null>
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
 }
@@ -32,6 +34,7 @@ export function initUser(sequelize: Sequelize): void {
       emailVerifiedAt: { type: DataTypes.DATE, allowNull: true },
       roles: { type: DataTypes.ARRAY(DataTypes.TEXT), allowNull: false },
       designerRequestedAt: { type: DataTypes.DATE, allowNull: true },
+      disabledAt: { type: DataTypes.DATE, allowNull: true },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,
     },

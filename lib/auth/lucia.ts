@@ -1,10 +1,10 @@
 import { Lucia, TimeSpan } from 'lucia'
 import { isSessionCookieSecure } from '@/lib/env'
-import { SequelizeSessionAdapter, type SessionUserAttributes } from './session-adapter'
+import { SequelizeSessionAdapter, type SessionAttributes, type SessionUserAttributes } from './session-adapter'
 
 export const SESSION_COOKIE_NAME = 'wreathwright_session'
 
-let instance: Lucia<Record<never, never>, SessionUserAttributes> | undefined
+let instance: Lucia<SessionAttributes, SessionUserAttributes> | undefined
 
 /**
  * The session manager. Cookie: HttpOnly and SameSite=Lax (lucia's defaults), Secure outside
@@ -14,6 +14,7 @@ export function lucia() {
   instance ??= new Lucia(new SequelizeSessionAdapter(), {
     sessionExpiresIn: new TimeSpan(30, 'd'),
     sessionCookie: { name: SESSION_COOKIE_NAME, attributes: { secure: isSessionCookieSecure() } },
+    getSessionAttributes: (attributes) => attributes,
     getUserAttributes: (attributes) => attributes,
   })
   return instance
@@ -23,5 +24,6 @@ declare module 'lucia' {
   interface Register {
     Lucia: ReturnType<typeof lucia>
     DatabaseUserAttributes: SessionUserAttributes
+    DatabaseSessionAttributes: SessionAttributes
   }
 }

@@ -11,6 +11,14 @@ export interface SessionUserAttributes {
   emailVerifiedAt: Date | null
 }
 
+/** What is kept beside a session: the device, for the account page's list of sessions. */
+export interface SessionAttributes {
+  /** The browser's User-Agent header when the session began. */
+  userAgent?: string | null
+  /** Set by the store; when the session was last used, to a few minutes. */
+  lastSeenAt?: Date
+}
+
 function toDatabaseUser(user: User): DatabaseUser {
   return {
     id: user.id,
@@ -24,7 +32,8 @@ function toDatabaseUser(user: User): DatabaseUser {
 }
 
 function toDatabaseSession(session: Session): DatabaseSession {
-  return { id: session.id, userId: session.userId, expiresAt: session.expiresAt, attributes: {} }
+  const attributes: SessionAttributes = { userAgent: session.userAgent, lastSeenAt: session.lastSeenAt }
+  return { id: session.id, userId: session.userId, expiresAt: session.expiresAt, attributes }
 }
 
 /** Lucia's storage, over our own Sequelize models so the app has one connection pool. */
@@ -34,6 +43,8 @@ export class SequelizeSessionAdapter implements Adapter {
     const session = await Session.findByPk(sessionId, { include: [{ model: User, required: true }] })
     if (!session) return [null, null]
     const user = (session as Session & { User: User }).User
+    // A disabled account has no live session: lucia deletes a session returned without its user.
+    if (user.disabledAt) return [toDatabaseSession(session), null]
     return [toDatabaseSession(session), toDatabaseUser(user)]
   }
 
@@ -45,7 +56,8 @@ export class SequelizeSessionAdapter implements Adapter {
 
   async setSession(session: DatabaseSession): Promise<void> {
     database()
-    await Session.create({ id: session.id, userId: session.userId, expiresAt: session.expiresAt })
+    const { userAgent } = session.attributes as SessionAttributes
+    await Session.create({ id: session.id, userId: session.userId, expiresAt: session.expiresAt, userAgent: userAgent ?? null, lastSeenAt: new Date() })
   }
 
   async updateSessionExpiration(sessionId: string, expiresAt: Date): Promise<void> {

@@ -12,6 +12,11 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
     <>
       <h1 className="mb-6 text-2xl font-semibold">Sign in</h1>
       <SignInForm next={next} />
+      <p className="mt-4 text-sm">
+        <Link href="/reset-password" className="text-thread-700 underline">
+          Forgot your password?
+        </Link>
+      </p>
       <p className="mt-6 text-sm text-stone-600">
         New here?{' '}
         <Link href={next === '/' ? '/sign-up' : `/sign-up?next=${encodeURIComponent(next)}`} className="text-thread-700 underline">

@@ -4,6 +4,10 @@ import { signInSchema } from '@/lib/schemas/account'
 import { signIn } from '@/lib/services/accounts'
 
 export const POST = route({ bodyLimit: BODY_LIMITS.form, session: 'optional', body: signInSchema }, async ({ request, body, sessionId }) => {
-  const { account, sessionCookie } = await signIn(body, { clientAddress: requestAddress(request), replacingSessionId: sessionId })
+  const { account, sessionCookie } = await signIn(body, {
+    clientAddress: requestAddress(request),
+    replacingSessionId: sessionId,
+    userAgent: request.headers.get('user-agent'),
+  })
   return Response.json({ account }, { headers: { 'set-cookie': sessionCookie } })
 })

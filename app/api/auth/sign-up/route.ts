@@ -3,7 +3,8 @@ import { BODY_LIMITS, route } from '@/lib/http'
 import { signUpSchema } from '@/lib/schemas/account'
 import { signUp } from '@/lib/services/accounts'
 
-export const POST = route({ bodyLimit: BODY_LIMITS.form, session: 'optional', body: signUpSchema }, async ({ request, body, sessionId }) => {
-  const { account, sessionCookie } = await signUp(body, { clientAddress: requestAddress(request), replacingSessionId: sessionId })
-  return Response.json({ account }, { status: 201, headers: { 'set-cookie': sessionCookie } })
+/** 202 with the same body for every address; no session (the person signs in afterwards). */
+export const POST = route({ bodyLimit: BODY_LIMITS.form, session: 'optional', body: signUpSchema }, async ({ request, body }) => {
+  const answer = await signUp(body, { clientAddress: requestAddress(request) })
+  return Response.json(answer, { status: 202 })
 })
