@@ -6,11 +6,16 @@
  * script started.
  * Uploads go to a local S3-compatible object store (s3rver) on 127.0.0.1, objects kept in
  * .data/objects/, stopped with the rest.
- * Settings: WREATHWRIGHT_DB_PORT (default 54329), WREATHWRIGHT_S3_PORT (default 54330), PORT (default 3000).
+ * Every message the app sends goes to a local mail catcher (maildev): SMTP on 127.0.0.1:54332, its
+ * web view on http://127.0.0.1:54331, messages kept in .data/mail/, stopped with the rest.
+ * Settings: WREATHWRIGHT_DB_PORT (default 54329), WREATHWRIGHT_S3_PORT (default 54330),
+ * WREATHWRIGHT_MAIL_PORT (the catcher's web view, default 54331), WREATHWRIGHT_SMTP_PORT (default 54332),
+ * PORT (default 3000).
  */
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { isPortTaken, run, startProcess, stopProcess, waitForHttp } from './processes'
+import { startMailCatcher, type MailCatcher } from './mail-catcher'
 import { startObjectStore, type ObjectStore } from './object-store'
 import { isClusterRunning, projectClusterFolder, projectPasswordFile, startCluster, type Cluster } from './postgres'
 
@@ -18,6 +23,8 @@ const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '
 const databasePort = Number(process.env.WREATHWRIGHT_DB_PORT ?? 54329)
 const appPort = Number(process.env.PORT ?? 3000)
 const objectStorePort = Number(process.env.WREATHWRIGHT_S3_PORT ?? 54330)
+const mailWebPort = Number(process.env.WREATHWRIGHT_MAIL_PORT ?? 54331)
+const smtpPort = Number(process.env.WREATHWRIGHT_SMTP_PORT ?? 54332)
 
 /** A problem the person running the demo can fix: one line on stderr, exit code 2, no stack trace. */
 function refuse(message: string): never {
@@ -36,6 +43,12 @@ if (!clusterWasRunning && (await isPortTaken(databasePort))) {
 if (await isPortTaken(objectStorePort)) {
   refuse(`something already listens on 127.0.0.1:${objectStorePort}, where the demo's object store goes; stop it or set WREATHWRIGHT_S3_PORT`)
 }
+if (await isPortTaken(mailWebPort)) {
+  refuse(`something already listens on 127.0.0.1:${mailWebPort}, where the demo's mail catcher shows its messages; stop it or set WREATHWRIGHT_MAIL_PORT`)
+}
+if (await isPortTaken(smtpPort)) {
+  refuse(`something already listens on 127.0.0.1:${smtpPort}, where the demo's mail catcher takes messages; stop it or set WREATHWRIGHT_SMTP_PORT`)
+}
 
 let cluster: Cluster
 try {
@@ -53,9 +66,19 @@ try {
   if (!clusterWasRunning) cluster.stop()
   process.exit(1)
 }
+let mailCatcher: MailCatcher
+try {
+  mailCatcher = await startMailCatcher(path.join(projectRoot, '.data', 'mail'), mailWebPort, smtpPort)
+} catch (error) {
+  console.error(`demo: could not start the mail catcher: ${(error as Error).message.trim()}`)
+  await objectStore.stop().catch(() => undefined)
+  if (!clusterWasRunning) cluster.stop()
+  process.exit(1)
+}
 const env = {
   ...process.env,
   ...objectStore.env,
+  ...mailCatcher.env,
   DATABASE_URL: cluster.url('wreathwright'),
   NEXT_TELEMETRY_DISABLED: '1',
   // The demo serves plain http on loopback; a Secure cookie would not be sent back.
@@ -72,6 +95,7 @@ async function stopAll(code: number): Promise<never> {
     stopping = true
     await stopProcess(app)
     await objectStore.stop().catch((error: Error) => console.error(`demo: could not stop the object store: ${error.message}`))
+    await mailCatcher.stop().catch((error: Error) => console.error(`demo: could not stop the mail catcher: ${error.message}`))
     if (!clusterWasRunning) {
       try {
         cluster.stop()
@@ -103,6 +127,7 @@ Wreathwright is running. What the demo started, one line each:
 app: http://127.0.0.1:${appPort}
 database: http://127.0.0.1:${databasePort} (PostgreSQL; data in ${cluster.folder}, password in ${projectPasswordFile(projectRoot, databasePort)})
 object-store: ${objectStore.url} (S3-compatible, bucket ${objectStore.bucket}; data in ${objectStore.folder})
+mail: ${mailCatcher.url} (every message the app sends, caught; SMTP on 127.0.0.1:${mailCatcher.smtpPort})
 
 Demo sign-ins (password for all: ${DEMO_PASSWORD}):
 ${DEMO_PEOPLE.map((person) => `  ${person.email.padEnd(34)} ${person.note}`).join('\n')}
