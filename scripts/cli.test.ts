@@ -220,12 +220,14 @@ describe('cli cutting', () => {
   })
 
   it('lists a piece too wide for the fabric as a problem and still exits 0', async () => {
-    const result = await runCli(['cutting', wreath, '--width-of-fabric', '2'])
+    // An 11 in berry: its cut circle's square is wider than 10 in, the narrowest width accepted.
+    const bigBerry = designFile({ ...hollyberryWreath, berries: [{ ...hollyberryWreath.berries![0]!, finishedDiameter: 11 }] })
+    const result = await runCli(['cutting', bigBerry, '--width-of-fabric', '10'])
     expect(result.code).toBe(0)
     const json = JSON.parse(result.stdout)
     expect(json.problems.length).toBeGreaterThan(0)
     expect(json.problems[0]).toMatchObject({ code: 'piece-too-wide' })
-    expect(json.problems[0].message).toMatch(/wider than the usable width of 2 in/)
+    expect(json.problems[0].message).toMatch(/wider than the usable width of 10 in/)
   })
 
   it('lists every stem ring when a design has several', async () => {
@@ -243,6 +245,9 @@ describe('cli cutting', () => {
       [['cutting', wreath, '--width-of-fabric', 'wide'], /--width-of-fabric must be a positive number/],
       [['cutting', wreath, '--extra', '-1'], /--extra must be a percentage/],
       [['cutting', wreath, '--extra', 'NaN'], /--extra must be a percentage/],
+      // The cutting settings' shared range (lib/schemas/cutting-settings.ts): 10–120 in, 0–100 %.
+      [['cutting', wreath, '--width-of-fabric', '9.99'], /--width-of-fabric must be a positive number of inches from 10 to 120, got "9.99"/],
+      [['cutting', wreath, '--extra', '101'], /--extra must be a percentage from 0 to 100, got "101"/],
       [['cutting', wreath, '--paper', 'a4'], /unknown option --paper/],
       [['cutting', wreath, '--extra', '5', '--extra', '6'], /given twice/],
       [['cutting'], /usage: cli cutting/],

@@ -10,6 +10,7 @@ import { fabricRequirements, type FabricRequirements } from '../geometry/fabric-
 import { planDesign } from '../geometry/plan'
 import { OUTPUT_DECIMALS } from '../geometry/tolerances'
 import { DEFAULT_EXTRA_PERCENT, DEFAULT_WIDTH_OF_FABRIC_INCHES } from '../geometry/yardage'
+import { EXTRA_PERCENT_RANGE, extraPercentSchema, WIDTH_OF_FABRIC_RANGE_INCHES, widthOfFabricSchema } from '../lib/schemas/cutting-settings'
 import { DesignFileError, readDesignFile } from './design-file'
 import { parseCommandArguments, UsageError } from './command-arguments'
 
@@ -17,13 +18,19 @@ const USAGE = 'usage: cli cutting <design.json> [--colorway NAME] [--width-of-fa
 const FLAGS = ['--colorway', '--width-of-fabric', '--extra'] as const
 type Flag = (typeof FLAGS)[number]
 
-/** A number flag: finite, and positive (the width) or at least 0 (the extra). */
-function numberFlag(text: string | undefined, name: Flag, what: string, isAllowed: (value: number) => boolean): number | undefined {
+/**
+ * A number flag checked by the cutting settings' shared schema (the fabric page and the booklet
+ * accept the same range).
+ */
+function numberFlag(text: string | undefined, name: Flag, what: string, schema: typeof widthOfFabricSchema | typeof extraPercentSchema): number | undefined {
   if (text === undefined) return undefined
   const value = Number(text)
-  if (text.trim() === '' || !Number.isFinite(value) || !isAllowed(value)) throw new UsageError(`${name} must be ${what}, got "${text}"`)
+  if (text.trim() === '' || !schema.safeParse(value).success) throw new UsageError(`${name} must be ${what}, got "${text}"`)
   return value
 }
+
+const [leastWidth, mostWidth] = WIDTH_OF_FABRIC_RANGE_INCHES
+const [leastExtra, mostExtra] = EXTRA_PERCENT_RANGE
 
 const round = (value: number): number => Number(value.toFixed(OUTPUT_DECIMALS))
 
@@ -64,8 +71,8 @@ function toJson(result: FabricRequirements): unknown {
 export async function runCuttingCommand(args: readonly string[]): Promise<{ code: number; stdout: string; stderr: string }> {
   try {
     const { designPath, flags } = parseCommandArguments(args, FLAGS, USAGE)
-    const widthOfFabricIn = numberFlag(flags['--width-of-fabric'], '--width-of-fabric', 'a positive number of inches', (value) => value > 0) ?? DEFAULT_WIDTH_OF_FABRIC_INCHES
-    const extraPercent = numberFlag(flags['--extra'], '--extra', 'a percentage of 0 or more', (value) => value >= 0) ?? DEFAULT_EXTRA_PERCENT
+    const widthOfFabricIn = numberFlag(flags['--width-of-fabric'], '--width-of-fabric', `a positive number of inches from ${leastWidth} to ${mostWidth}`, widthOfFabricSchema) ?? DEFAULT_WIDTH_OF_FABRIC_INCHES
+    const extraPercent = numberFlag(flags['--extra'], '--extra', `a percentage from ${leastExtra} to ${mostExtra}`, extraPercentSchema) ?? DEFAULT_EXTRA_PERCENT
     const { design } = await readDesignFile(designPath)
     const name = flags['--colorway']
     const colorway = name === undefined ? (design.colorways[0] ?? null) : design.colorways.find((candidate) => candidate.name === name)

@@ -6,12 +6,14 @@
  */
 import type { Design } from '@/geometry'
 import type { BookletFile } from '@/lib/booklet/booklet'
+import type { SwatchImages } from '@/lib/booklet/swatches'
 import type { BookletOptions } from '@/lib/schemas/booklet'
 
 export interface BuildRequest {
   readonly id: number
   readonly design: Design
   readonly options: BookletOptions
+  readonly swatches?: SwatchImages
 }
 
 export type BuildReply =
@@ -30,20 +32,20 @@ export class BuildCancelled extends Error {
 }
 
 /** The booklet built on the main thread: the fallback where no worker can start. */
-async function buildHere(design: Design, options: BookletOptions, onPage: (page: number) => void): Promise<BuiltFile> {
+async function buildHere(design: Design, options: BookletOptions, onPage: (page: number) => void, swatches: SwatchImages | undefined): Promise<BuiltFile> {
   const { buildBookletFile } = await import('@/lib/booklet/booklet')
   // Let "building" paint before the tab is busy.
   await new Promise((resolve) => setTimeout(resolve, 0))
-  return { ...buildBookletFile(design, options, onPage), builtIn: 'main thread' }
+  return { ...buildBookletFile(design, options, { onPage, swatches }), builtIn: 'main thread' }
 }
 
 /**
  * One builder per print dialog.
  *
- * @example const builder = createBookletBuilder(); const file = await builder.build(design, options, (page) => show(page)); builder.dispose()
+ * @example const builder = createBookletBuilder(); const file = await builder.build(design, options, (page) => show(page), swatches); builder.dispose()
  */
 export function createBookletBuilder(): {
-  build(design: Design, options: BookletOptions, onPage: (page: number) => void): Promise<BuiltFile>
+  build(design: Design, options: BookletOptions, onPage: (page: number) => void, swatches?: SwatchImages): Promise<BuiltFile>
   cancel(): void
   dispose(): void
 } {
@@ -75,10 +77,10 @@ export function createBookletBuilder(): {
   }
 
   return {
-    build(design, options, onPage) {
+    build(design, options, onPage, swatches) {
       cancel()
       const running = startWorker()
-      if (!running) return buildHere(design, options, onPage)
+      if (!running) return buildHere(design, options, onPage, swatches)
       const id = ++nextId
       return new Promise<BuiltFile>((resolve, reject) => {
         pending = { id, reject }
@@ -100,9 +102,10 @@ export function createBookletBuilder(): {
           console.warn(`The booklet worker failed (${event.message}); building on the main thread instead.`)
           workerFailed = true
           stopWorker()
-          if (settle()) buildHere(design, options, onPage).then(resolve, reject)
+          if (settle()) buildHere(design, options, onPage, swatches).then(resolve, reject)
         }
-        running.postMessage({ id, design, options } satisfies BuildRequest)
+        // The swatch bytes are copied, not moved: the next build may need them again.
+        running.postMessage({ id, design, options, swatches } satisfies BuildRequest)
       })
     },
     cancel,

@@ -1,18 +1,22 @@
 'use client'
 
 /**
- * The print room's dialog: paper, orientation, colourway, finished size and the parts to include,
+ * The print room's dialog: paper, orientation, colourway, finished size, the usable width of
+ * fabric and extra the amounts are worked out for, and the parts to include,
  * beside a preview of the booklet's pages. The booklet is built here, in the browser, with the same
  * lib/booklet code the command line uses, so a large booklet never holds up the server for anyone
  * else; it is rebuilt a moment after the options change, and the download saves the bytes shown.
  */
-import { useMemo, useState, type FormEvent } from 'react'
+import { useEffect, useMemo, useState, type FormEvent } from 'react'
 import { PAPERS } from '@/lib/booklet/paper'
+import type { SwatchImages } from '@/lib/booklet/swatches'
+import { DEFAULT_EXTRA_PERCENT, DEFAULT_WIDTH_OF_FABRIC_INCHES } from '@/geometry/yardage'
 import { PAPER_NAMES, DEFAULT_MARGIN_INCHES, DEFAULT_OVERLAP_INCHES, type BookletPart, type PaperName } from '@/lib/schemas/booklet'
 import { parseDesign, type DesignFile } from '@/lib/schemas/design'
 import { downloadFile } from '@/components/ui/download'
 import { BookletPreview } from './booklet-preview'
-import { ALL_PARTS, bookletFileName, PART_TITLES, printOptionsFrom } from './print-options'
+import { ALL_PARTS, bookletFileName, lengthInUnits, PART_TITLES, printOptionsFrom } from './print-options'
+import { fetchSwatchImages, swatchUrls } from './swatch-images'
 import { optionsKey, useBookletPreview } from './use-booklet-preview'
 
 /**
@@ -29,6 +33,8 @@ export function PrintDialog({ name, design }: { name: string; design: DesignFile
   const [parts, setParts] = useState<BookletPart[]>([...ALL_PARTS])
   const [margin, setMargin] = useState(String(DEFAULT_MARGIN_INCHES))
   const [overlap, setOverlap] = useState(String(DEFAULT_OVERLAP_INCHES))
+  const [widthOfFabric, setWidthOfFabric] = useState(lengthInUnits(DEFAULT_WIDTH_OF_FABRIC_INCHES, design.units))
+  const [extraPercent, setExtraPercent] = useState(String(DEFAULT_EXTRA_PERCENT))
   // Said beside the button until the options change.
   const [downloaded, setDownloaded] = useState<{ key: string; text: string } | null>(null)
 
@@ -37,14 +43,30 @@ export function PrintDialog({ name, design }: { name: string; design: DesignFile
 
   const parsed = useMemo(() => parseDesign(design), [design])
   const options = useMemo(
-    () => printOptionsFrom({ paper, orientation, colorway, diameter, units: design.units, parts, margin, overlap }),
-    [paper, orientation, colorway, diameter, design.units, parts, margin, overlap],
+    () => printOptionsFrom({ paper, orientation, colorway, diameter, units: design.units, parts, margin, overlap, widthOfFabric, extraPercent }),
+    [paper, orientation, colorway, diameter, design.units, parts, margin, overlap, widthOfFabric, extraPercent],
   )
   const problem = !parsed.ok
     ? `The saved design has a problem at ${parsed.issues[0]?.path}: ${parsed.issues[0]?.message}`
     : options.ok ? null : options.message
-  const preview = useBookletPreview(parsed.ok ? parsed.design : null, options.ok ? options.options : null, problem)
-  const ready = preview.kind === 'built' && options.ok && preview.booklet.key === optionsKey(options.options) ? preview.booklet : null
+  // The chosen colourway's swatch images, fetched once per colourway; the booklet is built without
+  // them until they arrive (and shows colour chips for any that do not).
+  const chosen = parsed.ok ? (parsed.design.colorways.find((c) => c.name === colorway) ?? parsed.design.colorways[0] ?? null) : null
+  const swatchSources = JSON.stringify(swatchUrls(chosen))
+  const [swatches, setSwatches] = useState<{ sources: string; images: SwatchImages } | null>(null)
+  useEffect(() => {
+    if (swatchSources === '[]') return
+    const controller = new AbortController()
+    void fetchSwatchImages(chosen, controller.signal).then((images) => {
+      if (!controller.signal.aborted) setSwatches({ sources: swatchSources, images })
+    })
+    return () => controller.abort()
+    // `chosen` is read for the sources it names, which `swatchSources` stands for.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [swatchSources])
+  const swatchImages = swatches?.sources === swatchSources ? swatches.images : undefined
+  const preview = useBookletPreview(parsed.ok ? parsed.design : null, options.ok ? options.options : null, problem, swatchImages)
+  const ready = preview.kind === 'built' && options.ok && preview.booklet.key === optionsKey(options.options, swatchImages) ? preview.booklet : null
 
   function onSubmit(event: FormEvent<HTMLFormElement>): void {
     event.preventDefault()
@@ -117,6 +139,33 @@ export function PrintDialog({ name, design }: { name: string; design: DesignFile
           />
           <p className="text-xs text-stone-500">Everything scales with it: foundations, templates and the cutting list.</p>
         </div>
+
+        <fieldset className="space-y-1">
+          <legend className="text-sm font-medium text-stone-700">Fabric amounts</legend>
+          <div className="flex gap-4">
+            <label className="flex flex-col gap-1 text-sm">
+              Usable width of fabric ({unit})
+              <input
+                id="print-width-of-fabric"
+                value={widthOfFabric}
+                onChange={(event) => setWidthOfFabric(event.target.value)}
+                inputMode="decimal"
+                className="w-28 rounded border border-stone-300 bg-white px-2 py-1"
+              />
+            </label>
+            <label className="flex flex-col gap-1 text-sm">
+              Extra (%)
+              <input
+                id="print-extra"
+                value={extraPercent}
+                onChange={(event) => setExtraPercent(event.target.value)}
+                inputMode="decimal"
+                className="w-20 rounded border border-stone-300 bg-white px-2 py-1"
+              />
+            </label>
+          </div>
+          <p className="text-xs text-stone-500">What to buy and the cutting diagrams are worked out for this width, plus the extra, rounded up to 1/8 yd or 10 cm.</p>
+        </fieldset>
 
         <fieldset className="space-y-1">
           <legend className="text-sm font-medium text-stone-700">Include</legend>

@@ -7,7 +7,7 @@ import { bookletFileName, bookletSummary, printOptionsFrom, thumbnailAlt, type P
 
 const form = (overrides: Partial<PrintFormState> = {}): PrintFormState => ({
   paper: 'letter', orientation: 'portrait', colorway: 'Holly', diameter: '24', units: 'in',
-  parts: ['cover', 'foundations'], margin: '0.4', overlap: '0.5', ...overrides,
+  parts: ['cover', 'foundations'], margin: '0.4', overlap: '0.5', widthOfFabric: '40', extraPercent: '10', ...overrides,
 })
 
 describe('print dialog options', () => {
@@ -25,6 +25,26 @@ describe('print dialog options', () => {
     expect(printOptionsFrom(form({ diameter: 'abc' }))).toEqual({ ok: false, message: 'The finished diameter must be a positive number.' })
     expect(printOptionsFrom(form({ parts: [] }))).toEqual({ ok: false, message: 'Choose at least one part of the booklet.' })
     expect(printOptionsFrom(form({ overlap: '0.1' }))).toEqual({ ok: false, message: 'The overlap must be between 0.25 and 2 in.' })
+  })
+
+  it('carries the usable width of fabric (in the design’s units) and the extra into the options', () => {
+    const inches = printOptionsFrom(form({ widthOfFabric: '42', extraPercent: '0' }))
+    expect(inches.ok && [inches.options.widthOfFabricIn, inches.options.extraPercent]).toEqual([42, 0])
+    // 101.6 cm = 40 in (1 in = 2.54 cm exactly).
+    const metric = printOptionsFrom(form({ units: 'cm', diameter: '60.96', widthOfFabric: '101.6', extraPercent: '15' }))
+    expect(metric.ok && metric.options.widthOfFabricIn).toBeCloseTo(40, 9)
+    expect(metric.ok && metric.options.extraPercent).toBe(15)
+    // The ends of the shared range (lib/schemas/cutting-settings.ts) are accepted: 10 in, and 304.8 cm = 120 in.
+    expect(printOptionsFrom(form({ widthOfFabric: '10', extraPercent: '100' })).ok).toBe(true)
+    expect(printOptionsFrom(form({ units: 'cm', diameter: '60.96', widthOfFabric: '304.8' })).ok).toBe(true)
+  })
+
+  it('refuses a width or extra outside the shared range, in the units typed', () => {
+    expect(printOptionsFrom(form({ widthOfFabric: '9.9' }))).toEqual({ ok: false, message: 'The usable width of fabric must be between 10 and 120 in.' })
+    expect(printOptionsFrom(form({ units: 'cm', diameter: '60.96', widthOfFabric: '305' }))).toEqual({ ok: false, message: 'The usable width of fabric must be between 25.4 and 304.8 cm.' })
+    expect(printOptionsFrom(form({ widthOfFabric: 'wide' }))).toEqual({ ok: false, message: 'The usable width of fabric must be between 10 and 120 in.' })
+    expect(printOptionsFrom(form({ extraPercent: '' }))).toEqual({ ok: false, message: 'The extra must be between 0 and 100 %.' })
+    expect(printOptionsFrom(form({ extraPercent: '-5' }))).toEqual({ ok: false, message: 'The extra must be between 0 and 100 %.' })
   })
 
   it('names the file after pattern, colourway, size and paper', () => {

@@ -4,7 +4,8 @@
  */
 import type { BookletPage, FoundationTiling } from '@/lib/booklet/page-list'
 import { bookletOptionsSchema, BOOKLET_PARTS, type BookletOptions, type BookletPart, type PaperName } from '@/lib/schemas/booklet'
-import { centimetresToInches } from '@/lib/units'
+import { EXTRA_PERCENT_RANGE, WIDTH_OF_FABRIC_RANGE_INCHES } from '@/lib/schemas/cutting-settings'
+import { centimetresToInches, inchesToCentimetres } from '@/lib/units'
 
 export interface PrintFormState {
   readonly paper: PaperName
@@ -16,6 +17,19 @@ export interface PrintFormState {
   readonly parts: readonly BookletPart[]
   readonly margin: string
   readonly overlap: string
+  /** The usable width of fabric as typed, in the design's units. */
+  readonly widthOfFabric: string
+  /** The extra on every amount as typed, percent. */
+  readonly extraPercent: string
+}
+
+/**
+ * A length in inches as the form shows it in the design's units (centimetres to a tenth).
+ *
+ * @example lengthInUnits(40, 'cm') // '101.6'
+ */
+export function lengthInUnits(inches: number, units: 'in' | 'cm'): string {
+  return units === 'cm' ? String(Math.round(inchesToCentimetres(inches) * 10) / 10) : String(inches)
 }
 
 /** Friendly names of the booklet's parts for the checkboxes. */
@@ -34,7 +48,7 @@ export const ALL_PARTS: readonly BookletPart[] = BOOKLET_PARTS
 /**
  * Booklet options from the form, or the first problem in words.
  *
- * @example printOptionsFrom({ paper: 'a4', orientation: 'portrait', colorway: 'Holly', diameter: '24', units: 'in', parts: ['foundations'], margin: '0.4', overlap: '0.5' })
+ * @example printOptionsFrom({ paper: 'a4', orientation: 'portrait', colorway: 'Holly', diameter: '24', units: 'in', parts: ['foundations'], margin: '0.4', overlap: '0.5', widthOfFabric: '40', extraPercent: '10' })
  * // { ok: true, options: { paper: 'a4', finishedDiameterInches: 24, … } }
  */
 export function printOptionsFrom(state: PrintFormState): { ok: true; options: BookletOptions } | { ok: false; message: string } {
@@ -42,6 +56,9 @@ export function printOptionsFrom(state: PrintFormState): { ok: true; options: Bo
   if (state.diameter.trim() === '' || !Number.isFinite(diameter) || diameter <= 0) return { ok: false, message: 'The finished diameter must be a positive number.' }
   const margin = Number(state.margin)
   const overlap = Number(state.overlap)
+  // An empty field is no number (Number('') is 0, which the extra would accept).
+  const typed = (text: string): number => (text.trim() === '' ? Number.NaN : Number(text))
+  const width = typed(state.widthOfFabric)
   const parsed = bookletOptionsSchema.safeParse({
     paper: state.paper,
     orientation: state.orientation,
@@ -50,6 +67,8 @@ export function printOptionsFrom(state: PrintFormState): { ok: true; options: Bo
     parts: ALL_PARTS.filter((part) => state.parts.includes(part)),
     marginInches: margin,
     overlapInches: overlap,
+    widthOfFabricIn: state.units === 'cm' ? centimetresToInches(width) : width,
+    extraPercent: typed(state.extraPercent),
   })
   if (parsed.success) return { ok: true, options: parsed.data }
   const issue = parsed.error.issues[0]
@@ -59,6 +78,9 @@ export function printOptionsFrom(state: PrintFormState): { ok: true; options: Bo
     marginInches: 'The margin must be between 0.1 and 1.5 in.',
     overlapInches: 'The overlap must be between 0.25 and 2 in.',
     finishedDiameterInches: 'The finished diameter must be at most 200 in.',
+    // The shared range of the cutting settings, in the units the width was typed in.
+    widthOfFabricIn: `The usable width of fabric must be between ${lengthInUnits(WIDTH_OF_FABRIC_RANGE_INCHES[0], state.units)} and ${lengthInUnits(WIDTH_OF_FABRIC_RANGE_INCHES[1], state.units)} ${state.units}.`,
+    extraPercent: `The extra must be between ${EXTRA_PERCENT_RANGE[0]} and ${EXTRA_PERCENT_RANGE[1]} %.`,
   }
   return { ok: false, message: names[field] ?? `${field}: ${issue?.message ?? 'invalid'}` }
 }

@@ -7,6 +7,7 @@
  */
 import { useEffect, useRef, useState } from 'react'
 import type { BookletPage, FoundationTiling } from '@/lib/booklet/page-list'
+import type { SwatchImages } from '@/lib/booklet/swatches'
 import type { BookletOptions } from '@/lib/schemas/booklet'
 import type { Design } from '@/geometry'
 import { BuildCancelled, createBookletBuilder } from './booklet-builder'
@@ -42,20 +43,25 @@ export type PreviewState =
   | { readonly kind: 'built'; readonly booklet: BuiltBooklet }
   | { readonly kind: 'error'; readonly message: string }
 
-/** A stable key for booklet options (the schema's field order is fixed). */
-export function optionsKey(options: BookletOptions): string {
-  return JSON.stringify(options)
+/**
+ * A stable key for booklet options (the schema's field order is fixed) and the fabrics whose
+ * swatch images were handed in.
+ */
+export function optionsKey(options: BookletOptions, swatches?: SwatchImages): string {
+  const withSwatches = Object.keys(swatches ?? {}).sort()
+  return withSwatches.length > 0 ? `${JSON.stringify(options)} swatches:${withSwatches.join(',')}` : JSON.stringify(options)
 }
 
 /**
  * Builds the booklet for the current options, debounced; `options` null (invalid form) or an
- * invalid design gives the error `problem`. Pass memoized options: a new object is a new request.
+ * invalid design gives the error `problem`. Pass memoized options and swatches: a new object is a
+ * new request.
  *
- * @example const preview = useBookletPreview(design, options.ok ? options.options : null, options.ok ? null : options.message)
+ * @example const preview = useBookletPreview(design, options.ok ? options.options : null, options.ok ? null : options.message, swatches)
  */
-export function useBookletPreview(design: Design | null, options: BookletOptions | null, problem: string | null): PreviewState {
+export function useBookletPreview(design: Design | null, options: BookletOptions | null, problem: string | null, swatches?: SwatchImages): PreviewState {
   const [state, setState] = useState<PreviewState>({ kind: 'waiting' })
-  const key = options ? optionsKey(options) : null
+  const key = options ? optionsKey(options, swatches) : null
   // The latest request; a build that finishes after another was asked for is thrown away.
   const latest = useRef(0)
   const builder = useRef<ReturnType<typeof createBookletBuilder> | null>(null)
@@ -83,7 +89,7 @@ export function useBookletPreview(design: Design | null, options: BookletOptions
       }
       try {
         builder.current ??= createBookletBuilder()
-        const file = await builder.current.build(design, options, onPage)
+        const file = await builder.current.build(design, options, onPage, swatches)
         if (request !== latest.current) return
         setState({ kind: 'built', booklet: { key, options, bytes: file.bytes, pages: file.pages, tilings: file.tilings, builtIn: file.builtIn } })
       } catch (error) {
@@ -100,7 +106,7 @@ export function useBookletPreview(design: Design | null, options: BookletOptions
       // The options changed: the booklet under way is stale, stop it.
       builder.current?.cancel()
     }
-  }, [key, options, problem, design])
+  }, [key, options, problem, design, swatches])
 
   if (problem || !design || !options) return { kind: 'error', message: problem ?? 'The booklet cannot be built from these options.' }
   return state

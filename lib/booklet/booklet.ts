@@ -14,6 +14,7 @@ import { writeFoundationPages, type FoundationSheet } from './foundation-pages'
 import { bookletModel, type BookletModel } from './model'
 import { describePages, foundationTilings, type BookletPage, type FoundationTiling } from './page-list'
 import { writeSteps } from './steps'
+import type { SwatchImages } from './swatches'
 import { writePlacementGuide, writeTemplates } from './templates'
 import type { TileLayout } from './tiling'
 
@@ -30,17 +31,28 @@ export interface WrittenBooklet {
   readonly tilings: readonly FoundationTiling[]
 }
 
+/** What a caller may hand in besides the options. */
+export interface BookletExtras {
+  /** Hears the number of each page as it is begun, for a progress display. */
+  readonly onPage?: (page: number) => void
+  /**
+   * Swatch images by fabric role, prepared by the caller (the print room fetches the colourway's
+   * swatch uploads); drawn beside each fabric's colour. Any that cannot be read are left out.
+   */
+  readonly swatches?: SwatchImages
+}
+
 /**
  * Writes the booklet into a jsPDF document (for tests that look inside; most callers want
- * `buildBooklet`). Options are parsed with the shared schema, so defaults apply. `onPage` hears
- * the number of each page as it is begun, for a progress display.
+ * `buildBooklet`). Options are parsed with the shared schema, so defaults apply.
  *
  * @example writeBooklet(design, { paper: 'a4' }).doc.getNumberOfPages()
  */
-export function writeBooklet(design: Design, input: BookletOptionsInput, onPage?: (page: number) => void): WrittenBooklet {
+export function writeBooklet(design: Design, input: BookletOptionsInput, extras: BookletExtras = {}): WrittenBooklet {
+  const { onPage, swatches } = extras
   const options = bookletOptionsSchema.parse(input)
   const model = bookletModel(design, options)
-  const context = createContext(model)
+  const context = createContext(model, swatches)
   if (onPage) {
     // Every page after the first is added through jsPDF, which announces it before it is counted.
     onPage(1)
@@ -120,7 +132,7 @@ export interface BookletFile {
  *
  * @example buildBookletFile(design, { paper: 'a4' }).pages[0]?.description // 'cover, fabric and cutting list, page 1 of 2' (a cover of two pages)
  */
-export function buildBookletFile(design: Design, options: BookletOptionsInput, onPage?: (page: number) => void): BookletFile {
-  const written = writeBooklet(design, options, onPage)
+export function buildBookletFile(design: Design, options: BookletOptionsInput, extras: BookletExtras = {}): BookletFile {
+  const written = writeBooklet(design, options, extras)
   return { bytes: new Uint8Array(written.doc.output('arraybuffer')), pages: written.pages, tilings: written.tilings }
 }

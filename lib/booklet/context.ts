@@ -5,21 +5,25 @@
 import { jsPDF } from 'jspdf'
 import type { BookletModel } from './model'
 import { pageFrame, type PageFrame } from './paper'
+import { readSwatches, type ReadySwatch, type SwatchImages } from './swatches'
 
 export interface BookletContext {
   readonly doc: jsPDF
   readonly frame: PageFrame
   readonly model: BookletModel
+  /** The swatch images that could be read, by fabric role (lib/booklet/swatches.ts). */
+  readonly swatches: ReadonlyMap<string, ReadySwatch>
   /** Pages written so far. */
   pages: number
 }
 
 /**
- * A new, empty booklet for the model's paper (points as the unit: 1 unit = 1/72 in).
+ * A new, empty booklet for the model's paper (points as the unit: 1 unit = 1/72 in), with the
+ * swatch images given, per fabric role, read once.
  *
  * @example const context = createContext(model); startPage(context)
  */
-export function createContext(model: BookletModel): BookletContext {
+export function createContext(model: BookletModel, swatchImages?: SwatchImages): BookletContext {
   const frame = pageFrame(model.options)
   const doc = new jsPDF({
     unit: 'pt',
@@ -30,7 +34,7 @@ export function createContext(model: BookletModel): BookletContext {
     compress: true,
   })
   doc.setProperties({ title: `${model.design.name} - pattern booklet`, creator: 'Wreathwright' })
-  return { doc, frame, model, pages: 0 }
+  return { doc, frame, model, swatches: readSwatches(doc, swatchImages), pages: 0 }
 }
 
 /** Starts the next page (the document's first page already exists). Returns its number, from 1. */

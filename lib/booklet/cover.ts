@@ -4,15 +4,17 @@
  */
 import type { jsPDF } from 'jspdf'
 import { applyToPolygon, applyTransform, colorwayFabric, mapSmoothCurve, outlineFromPolygon, repeatTransforms, smoothCurve, tryPlaceLeafLayers, type AffineTransform, type Point } from '@/geometry'
-import { formatInches, inchesToCentimetres } from '@/lib/units'
+import { formatMetres, formatYards } from '@/lib/fabric/fabric-table'
+import { formatInches, formatLength, inchesToCentimetres } from '@/lib/units'
 import { font } from './chrome'
 import { startPage, type BookletContext } from './context'
 import { fitView, rgb, solidPen, toPage, traceCurve, tracePath, tracePolygon, type View } from './draw'
 import { bindingLengthInches, cuttingList } from './fabric-list'
 import { BINDING_JOIN_INCHES, bindingPlan } from './finishing'
-import { fabricColour, fabricName, UNASSIGNED_FABRIC, type BookletModel } from './model'
+import { bookletRequirements, fabricColour, fabricName, UNASSIGNED_FABRIC, type BookletModel } from './model'
 import { PAPERS } from './paper'
-import { startFlow } from './flow'
+import { startFlow, type Flow } from './flow'
+import { drawFabricMark } from './swatches'
 
 /**
  * Draws the whole ring, fabric side, into a page box; labels the first repeat's areas.
@@ -167,20 +169,49 @@ export function missingFabrics(model: BookletModel): string[] {
   return sentences
 }
 
-function writeFabricPages(context: BookletContext): void {
+/**
+ * The settings the amounts were worked out for, as the fabric page says them.
+ *
+ * @example yardageBasis(40, 10) // 'Yardage for 40 in (101.6 cm) usable width of fabric, 10 % extra'
+ */
+export function yardageBasis(widthOfFabricIn: number, extraPercent: number): string {
+  return `Yardage for ${formatInches(widthOfFabricIn)} (${formatLength(widthOfFabricIn, 'cm')}) usable width of fabric, ${extraPercent} % extra`
+}
+
+/** A fabric's line: colour chip, swatch image if any, and its name in bold; the flow moves past it. */
+function fabricLine(context: BookletContext, flow: Flow, fabric: string, after = ''): void {
   const { doc, model } = context
+  flow.ensure(30)
+  flow.y += 6
+  const nameAt = drawFabricMark(doc, fabricColour(model, fabric), context.swatches.get(fabric), flow.left, flow.y)
+  font(doc, 10, 'bold')
+  const name = fabricName(model, fabric)
+  doc.text(name, nameAt, flow.y + 8)
+  const afterAt = nameAt + doc.getTextWidth(name) + 6
+  flow.y += 10
+  if (!after) return
+  font(doc, 9, 'normal', 40)
+  // Beside the name when it fits on the line, else on a line of its own under it.
+  if (afterAt + doc.getTextWidth(after) <= flow.left + flow.width) doc.text(after, afterAt, flow.y - 2)
+  else flow.paragraph(after, { indent: nameAt - flow.left, size: 9, grey: 40 })
+}
+
+function writeFabricPages(context: BookletContext): void {
+  const { model } = context
   const flow = startFlow(context, 'Fabric and cutting', 'Rough-cut pieces are rectangles: cut them on the straight grain, one per area and foundation.')
+  const requirements = bookletRequirements(model)
+  flow.heading('What to buy')
+  flow.paragraph(`${yardageBasis(requirements.widthOfFabricIn, requirements.extraPercent)}, rounded up to 1/8 yd (4 1/2 in) or 10 cm as shops cut. A fat quarter is 18 × 21 in, a fat eighth 9 × 21 in.`, { size: 8.5, grey: 50 })
+  for (const fabric of requirements.fabrics) {
+    const precut = fabric.fatEighth ? ', or a fat eighth' : fabric.fatQuarter ? ', or a fat quarter' : ''
+    fabricLine(context, flow, fabric.fabric, `${formatYards(fabric.yards)} (${formatMetres(fabric.metres)})${precut}`)
+  }
+  for (const problem of requirements.problems) flow.paragraph(problem.message, { size: 9, style: 'bold' })
+  flow.gap(8)
   flow.heading('Cutting list by fabric')
   flow.paragraph('Each rectangle covers its area and a 1/4 in seam allowance with a little to spare once it is sewn and flipped. Counts are for the whole ring.', { size: 8.5, grey: 50 })
   for (const [fabric, pieces] of cuttingList(model)) {
-    flow.ensure(30)
-    flow.y += 6
-    doc.setFillColor(...rgb(fabricColour(model, fabric)))
-    solidPen(doc, 0.4)
-    doc.rect(flow.left, flow.y, 14, 10, 'FD')
-    font(doc, 10, 'bold')
-    doc.text(fabricName(model, fabric), flow.left + 20, flow.y + 8)
-    flow.y += 10
+    fabricLine(context, flow, fabric)
     for (const piece of pieces) flow.paragraph(piece, { indent: 20, size: 8.5 })
   }
   flow.gap(8)

@@ -1,12 +1,11 @@
 /**
  * The booklet's "Cutting diagrams" part, after the cutting list: for every fabric of the chosen
  * colourway, its strips drawn to scale across the usable width of fabric (the core's
- * `fabricRequirements` at the default 40 in and 10 % extra), each sub-cut filled, outlined and
+ * `fabricRequirements` at the options' width of fabric and extra, 40 in and 10 % unless set), each sub-cut filled, outlined and
  * labelled by what it is for, turned pieces marked by a corner notch, and each strip in words
  * under the drawing. The data is lib/fabric/cutting-diagram.ts, the same the fabric page draws.
  */
 import type { jsPDF } from 'jspdf'
-import { fabricRequirements } from '@/geometry'
 import { cuttingDiagram, type CuttingDiagram, type DiagramCut } from '@/lib/fabric/cutting-diagram'
 import { formatMetres, formatYards } from '@/lib/fabric/fabric-table'
 import { formatInches } from '@/lib/units'
@@ -14,6 +13,8 @@ import { font } from './chrome'
 import type { BookletContext } from './context'
 import { rgb, solidPen } from './draw'
 import { startFlow, type Flow } from './flow'
+import { bookletRequirements } from './model'
+import { drawFabricMark } from './swatches'
 
 /** Room above a fabric's drawing for its name and amounts, points. */
 const FABRIC_HEADING_PT = 30
@@ -51,21 +52,19 @@ function drawCut(doc: jsPDF, cut: DiagramCut, left: number, top: number, scale: 
   doc.text(cut.label, x + w / 2, y + h / 2 + size * 0.35, { align: 'center' })
 }
 
-/** One fabric: heading with swatch and amounts, then strip by strip, each with its words. */
-function writeDiagram(context: BookletContext, flow: Flow, diagram: CuttingDiagram, amounts: string, pageRoomPt: number): void {
+/** One fabric: heading with colour chip (and swatch image) and amounts, then strip by strip, each with its words. */
+function writeDiagram(context: BookletContext, flow: Flow, fabric: string, diagram: CuttingDiagram, amounts: string, pageRoomPt: number): void {
   const { doc } = context
   const scale = diagramScale(flow, diagram, pageRoomPt)
   const fill = rgb(diagram.color ?? undefined)
   const first = diagram.strips[0]
   flow.ensure(FABRIC_HEADING_PT + (first ? first.heightIn * scale : 0) + 12)
   flow.y += 8
-  doc.setFillColor(...fill)
-  solidPen(doc, 0.4)
-  doc.rect(flow.left, flow.y, 14, 10, 'FD')
+  const nameAt = drawFabricMark(doc, diagram.color ?? undefined, context.swatches.get(fabric), flow.left, flow.y)
   font(doc, 10, 'bold')
-  doc.text(diagram.name, flow.left + 20, flow.y + 8.5)
+  doc.text(diagram.name, nameAt, flow.y + 8.5)
   font(doc, 8, 'normal', 60)
-  doc.text(amounts, flow.left + 20, flow.y + 19)
+  doc.text(amounts, nameAt, flow.y + 19)
   flow.y += FABRIC_HEADING_PT - 6
   for (const strip of diagram.strips) {
     const height = strip.heightIn * scale
@@ -91,7 +90,7 @@ function writeDiagram(context: BookletContext, flow: Flow, diagram: CuttingDiagr
  */
 export function writeCuttingDiagrams(context: BookletContext): void {
   const { model } = context
-  const requirements = fabricRequirements(model.design, model.plan, model.colorway)
+  const requirements = bookletRequirements(model)
   const width = formatInches(requirements.widthOfFabricIn)
   const flow = startFlow(context, 'Cutting diagrams', `Strips cut across a ${width} usable width of fabric, then sub-cut as labelled; a corner notch marks a piece turned 90°.`)
   const pageRoomPt = context.frame.printable.height - 60
@@ -105,6 +104,6 @@ export function writeCuttingDiagrams(context: BookletContext): void {
     const diagram = cuttingDiagram(fabric, requirements.widthOfFabricIn, 'in')
     const precut = fabric.fatEighth ? ', or a fat eighth' : fabric.fatQuarter ? ', or a fat quarter' : ''
     const amounts = `${formatYards(fabric.yards)} (${formatMetres(fabric.metres)})${precut}; ${diagram.cuts.length} piece${diagram.cuts.length === 1 ? '' : 's'} in ${diagram.strips.length} strip${diagram.strips.length === 1 ? '' : 's'}, ${formatInches(fabric.lengthIn)} long`
-    writeDiagram(context, flow, diagram, amounts, pageRoomPt)
+    writeDiagram(context, flow, fabric.fabric, diagram, amounts, pageRoomPt)
   }
 }

@@ -3,8 +3,8 @@
  * each area's fabric, the foundations to print and the fabric each repeat needs. Pure data.
  */
 import {
-  areaUnderLeaf, colorwayFabric, fabricDisplayName, fabricsOfAreas, IDENTITY, leafNames, planDesign, printedSideTransform, scaleDesign,
-  tryPlaceLeaf, UNASSIGNED_FABRIC, type AffineTransform, type Colorway, type Design, type Leaf, type LeafPlacement, type Plan, type PlanArea,
+  areaUnderLeaf, colorwayFabric, fabricDisplayName, fabricRequirements, fabricsOfAreas, IDENTITY, leafNames, planDesign, printedSideTransform, scaleDesign,
+  tryPlaceLeaf, UNASSIGNED_FABRIC, type AffineTransform, type Colorway, type Design, type FabricRequirements, type Leaf, type LeafPlacement, type Plan, type PlanArea,
 } from '@/geometry'
 import { SAME_SIZE_INCHES } from '@/geometry/tolerances'
 import type { BookletOptions } from '@/lib/schemas/booklet'
@@ -111,6 +111,25 @@ export function fabricName(model: BookletModel, fabric: string): string {
  */
 export function fabricColour(model: BookletModel, fabric: string): string | undefined {
   return colorwayFabric(model.colorway, fabric)?.color
+}
+
+const requirementsOfModel = new WeakMap<BookletModel, FabricRequirements>()
+
+/**
+ * What to buy and how to cut it in the model's colourway, at the options' usable width of fabric
+ * and extra (geometry's `fabricRequirements`), worked out once per booklet: the fabric page and
+ * the cutting diagrams read the same result.
+ *
+ * @example bookletRequirements(model).widthOfFabricIn // 40
+ */
+export function bookletRequirements(model: BookletModel): FabricRequirements {
+  let requirements = requirementsOfModel.get(model)
+  if (!requirements) {
+    const { widthOfFabricIn, extraPercent } = model.options
+    requirements = fabricRequirements(model.design, model.plan, model.colorway, { widthOfFabricIn, extraPercent })
+    requirementsOfModel.set(model, requirements)
+  }
+  return requirements
 }
 
 /**

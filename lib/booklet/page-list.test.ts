@@ -47,7 +47,7 @@ describe('the page list returned beside the booklet', () => {
 
   it('tells each page as it is begun, in order, once', () => {
     const heard: number[] = []
-    const { pages } = buildBookletFile(wreath, { paper: 'letter' }, (page) => heard.push(page))
+    const { pages } = buildBookletFile(wreath, { paper: 'letter' }, { onPage: (page) => heard.push(page) })
     expect(heard).toEqual(pages.map((page) => page.number))
   })
 })

@@ -4,6 +4,7 @@
  */
 import { z } from 'zod'
 import { MAX_NAME_LENGTH } from '@/lib/limits'
+import { cuttingSettingsSchema } from './cutting-settings'
 import { text } from './text'
 
 export const PAPER_NAMES = ['letter', 'legal', 'tabloid', 'a4', 'a3'] as const
@@ -20,7 +21,9 @@ export const DEFAULT_OVERLAP_INCHES = 0.5
 
 /**
  * Booklet options. `finishedDiameterInches` absent keeps the design's own size; `colorway`
- * absent takes the design's first colourway.
+ * absent takes the design's first colourway. `widthOfFabricIn` and `extraPercent` are the fabric
+ * page's and the command line's cutting settings (lib/schemas/cutting-settings.ts: 10–120 in,
+ * 0–100 %; default 40 in and 10 %), used by the fabric requirements and the cutting diagrams.
  *
  * @example bookletOptionsSchema.parse({ paper: 'letter' }) // orientation portrait, every part
  */
@@ -32,6 +35,7 @@ export const bookletOptionsSchema = z.strictObject({
   parts: z.array(z.enum(BOOKLET_PARTS)).min(1).default([...BOOKLET_PARTS]),
   marginInches: z.number().min(0.1).max(1.5).default(DEFAULT_MARGIN_INCHES),
   overlapInches: z.number().min(0.25).max(2).default(DEFAULT_OVERLAP_INCHES),
+  ...cuttingSettingsSchema.shape,
 })
 
 /** What the dialog or the command line hands in (defaults may be left out). */

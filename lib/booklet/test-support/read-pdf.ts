@@ -168,3 +168,56 @@ export async function pageRectangles(doc: PdfDocument, pageNumber: number): Prom
   }
   return rectangles
 }
+
+/** An image painted on a page: where its unit square lands (PDF user space) and the clip in force. */
+export interface DrawnImage {
+  readonly x: number
+  readonly y: number
+  readonly width: number
+  readonly height: number
+  readonly clip: Rect | null
+}
+
+/** Every image painted on a page (1-based), with the clip rectangles in force when it was. */
+export async function pageImages(doc: PdfDocument, pageNumber: number): Promise<DrawnImage[]> {
+  const page = await doc.getPage(pageNumber)
+  const list = await page.getOperatorList()
+  const OPS = pdfjs.OPS
+  const stack: { ctm: Matrix; clip: Rect | null }[] = []
+  let state: { ctm: Matrix; clip: Rect | null } = { ctm: [1, 0, 0, 1, 0, 0], clip: null }
+  let pendingClip = false
+  const images: DrawnImage[] = []
+  list.fnArray.forEach((fn, index) => {
+    const args = list.argsArray[index] as unknown[]
+    if (fn === OPS.save) stack.push({ ...state })
+    else if (fn === OPS.restore) state = stack.pop() ?? state
+    else if (fn === OPS.transform) state = { ...state, ctm: multiply(args as Matrix, state.ctm) }
+    else if (fn === OPS.clip || fn === OPS.eoClip) pendingClip = true
+    else if (fn === OPS.constructPath && pendingClip) {
+      pendingClip = false
+      const data = Array.from((args[1] as ArrayLike<number>[])[0] ?? [])
+      const xs: number[] = []
+      const ys: number[] = []
+      for (let i = 0; i < data.length; ) {
+        const code = data[i]!
+        const pairs = code === 0 || code === 1 ? 1 : code === 2 ? 3 : code === 3 ? 2 : 0
+        for (let k = 0; k < pairs; k += 1) {
+          const [x, y] = [data[i + 1 + 2 * k]!, data[i + 2 + 2 * k]!]
+          const m = state.ctm
+          xs.push(m[0] * x + m[2] * y + m[4])
+          ys.push(m[1] * x + m[3] * y + m[5])
+        }
+        i += 1 + 2 * pairs
+      }
+      const bounds: Rect = { minX: Math.min(...xs), minY: Math.min(...ys), maxX: Math.max(...xs), maxY: Math.max(...ys) }
+      state = { ...state, clip: state.clip ? intersect(state.clip, bounds) : bounds }
+    } else if (fn === OPS.paintImageXObject || fn === OPS.paintInlineImageXObject || fn === OPS.paintImageMaskXObject) {
+      const m = state.ctm
+      const corners: [number, number][] = [[0, 0], [1, 0], [0, 1], [1, 1]].map(([u, v]) => [m[0] * u! + m[2] * v! + m[4], m[1] * u! + m[3] * v! + m[5]])
+      const xs = corners.map((p) => p[0])
+      const ys = corners.map((p) => p[1])
+      images.push({ x: Math.min(...xs), y: Math.min(...ys), width: Math.max(...xs) - Math.min(...xs), height: Math.max(...ys) - Math.min(...ys), clip: state.clip })
+    }
+  })
+  return images
+}
