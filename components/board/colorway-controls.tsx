@@ -1,12 +1,13 @@
 'use client'
 
-import { useState, type FormEvent } from 'react'
+import { useState, type ChangeEvent, type FormEvent } from 'react'
 import { fabricRoleInWords } from '@/geometry/fabric-requirements'
 import { boardActions, type ActionContext } from '@/lib/board/actions'
 import type { BoardDesign } from '@/lib/board/commands'
 import type { BoardStore } from '@/lib/board/store'
 import { MAX_COLORWAYS } from '@/lib/limits'
 import { colorwayNameSchema, fabricNameSchema, fabricRoleSchema } from '@/lib/schemas/design'
+import { sendImage, tooLarge } from './upload-image'
 
 type Colorway = BoardDesign['colorways'][number]
 
@@ -107,12 +108,15 @@ export function ColorwayControls({ context, design, colorway }: { context: Actio
 }
 
 /**
- * The fabrics of one colourway, one row per fabric role: its swatch (choosing it picks the Fill
- * tool with that fabric), its display name and its colour, both edited in place. The role is shown
- * in words beside the name ("Leaf dark"), never as its key.
+ * The fabrics of one colourway, one row per fabric role: its chip (the swatch image when it has
+ * one, else its colour; choosing it picks the Fill tool with that fabric), its display name and
+ * its colour, both edited in place, and its swatch image, uploaded (`kind=swatch`) or removed
+ * with `setFabricSwatch`, one undoable step each. The role is shown in words beside the name
+ * ("Leaf dark"), never as its key.
  */
 export function ColorwayFabrics({ store, colorway, activeFabric }: { store: BoardStore; colorway: Colorway | undefined; activeFabric: string | null }) {
   const [error, setError] = useState<string | null>(null)
+  const [sending, setSending] = useState<string | null>(null)
   const fabrics = Object.entries(colorway?.fabrics ?? {})
 
   function rename(fabric: string, value: string, current: string) {
@@ -123,22 +127,67 @@ export function ColorwayFabrics({ store, colorway, activeFabric }: { store: Boar
     store.run('renameFabric', { colorway: colorway.name, fabric, name: parsed.data })
   }
 
+  async function uploadSwatch(fabric: string, name: string, event: ChangeEvent<HTMLInputElement>) {
+    const file = event.currentTarget.files?.[0]
+    event.currentTarget.value = ''
+    if (!file || !colorway) return
+    const refusal = tooLarge(file.size, 'swatch image')
+    if (refusal) return setError(`${name}: ${refusal}`)
+    setError(null)
+    setSending(fabric)
+    try {
+      const stored = await sendImage(file, 'swatch', 'swatch image')
+      store.run('setFabricSwatch', { colorway: colorway.name, fabric, swatch: stored.id })
+    } catch (failure) {
+      setError(`${name}: ${(failure as Error).message}`)
+    } finally {
+      setSending(null)
+    }
+  }
+
   return (
     <>
       <ul className="space-y-1" aria-label="Fabric swatches">
-        {fabrics.map(([fabric, { name, color }]) => (
-          <li key={fabric} className="flex items-center gap-1">
+        {fabrics.map(([fabric, { name, color, swatch }]) => (
+          <li key={fabric} className="flex items-center gap-1" data-fabric={fabric} data-swatch={swatch}>
             <button
               type="button"
               aria-pressed={activeFabric === fabric}
               onClick={() => store.fillWith(fabric)}
-              className="h-6 w-6 shrink-0 rounded border border-stone-400 aria-pressed:ring-2 aria-pressed:ring-thread-600"
-              style={{ backgroundColor: color }}
+              className="h-6 w-6 shrink-0 rounded border border-stone-400 bg-cover bg-center aria-pressed:ring-2 aria-pressed:ring-thread-600"
+              // A swatch that can no longer be read leaves the colour showing.
+              style={{ backgroundColor: color, ...(swatch && { backgroundImage: `url(/api/uploads/${swatch})` }) }}
               aria-label={`Fill with ${name}`}
               title={`Fill with ${name}`}
             />
             <div className="min-w-0 flex-1">
-              <span className="block truncate text-[10px] uppercase tracking-wide text-stone-500">{fabricRoleInWords(fabric)}</span>
+              <div className="flex items-baseline justify-between gap-1">
+                <span className="truncate text-[10px] uppercase tracking-wide text-stone-500">{fabricRoleInWords(fabric)}</span>
+                {sending === fabric ? (
+                  <span className="shrink-0 text-[10px] text-stone-500">sending…</span>
+                ) : swatch ? (
+                  <button
+                    type="button"
+                    className="shrink-0 text-[10px] text-stone-600 underline hover:text-madder-700"
+                    aria-label={`Remove the swatch image of ${name}`}
+                    onClick={() => colorway && store.run('setFabricSwatch', { colorway: colorway.name, fabric, swatch: null })}
+                  >
+                    remove image
+                  </button>
+                ) : (
+                  <label className="shrink-0 cursor-pointer text-[10px] text-stone-600 underline hover:text-thread-700">
+                    add image
+                    <input
+                      type="file"
+                      accept="image/jpeg,image/png,image/webp"
+                      aria-label={`Swatch image of ${name} (JPEG, PNG or WebP, up to 10 MB)`}
+                      className="sr-only"
+                      disabled={sending !== null}
+                      onChange={(event) => uploadSwatch(fabric, name, event)}
+                    />
+                  </label>
+                )}
+              </div>
               <input
                 key={`${colorway?.name}\u0000${name}`}
                 defaultValue={name}

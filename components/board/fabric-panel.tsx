@@ -9,8 +9,9 @@ import { useBoard } from './use-board'
 
 /**
  * The colourways and their fabrics. Fabric roles (background, leaf-dark …) are shared by every
- * colourway; each colourway gives every role a fabric of its own: a name and a colour. Choosing a
- * swatch picks it and the Fill tool. Each block is its own component (colorway-controls.tsx).
+ * colourway; each colourway gives every role a fabric of its own: a name, a colour and a swatch
+ * image, and has a theme-fabric photo of its own. Choosing a swatch picks it and the Fill tool.
+ * Each block is its own component (colorway-controls.tsx, theme-photo.tsx).
  */
 export function FabricPanel({ store, context }: { store: BoardStore; context: ActionContext }) {
   const design = useBoard(store, designOf)
@@ -25,7 +26,7 @@ export function FabricPanel({ store, context }: { store: BoardStore; context: Ac
       </h2>
       <ColorwayControls context={context} design={design} colorway={colorway} />
       <ColorwayFabrics store={store} colorway={colorway} activeFabric={activeFabric} />
-      <ThemePhoto store={store} colorway={colorway} />
+      <ThemePhoto key={colorway?.name} store={store} colorway={colorway} />
       <AddFabricRoleForm store={store} design={design} />
       <LeafSpreadButton context={context} />
     </section>

@@ -1,81 +1,61 @@
 'use client'
 
 import { useRef, useState, type ChangeEvent } from 'react'
-import useSWR from 'swr'
+import useSWR, { useSWRConfig } from 'swr'
+import { z } from 'zod'
 import { fabricRoleInWords } from '@/geometry/fabric-requirements'
 import { getJsonOf } from '@/lib/api-client'
 import type { BoardDesign } from '@/lib/board/commands'
 import type { BoardStore } from '@/lib/board/store'
-import { uploadAnswerSchema, uploadListAnswerSchema, type UploadView } from '@/lib/schemas/upload'
+import { uploadViewSchema } from '@/lib/schemas/upload'
+import { sendImage, tooLarge } from './upload-image'
 
 type Colorway = BoardDesign['colorways'][number]
 
-/** The largest photo the server accepts (lib/images.ts MAX_UPLOAD_BYTES), checked here first to save the wait. */
-const MAX_PHOTO_BYTES = 10 * 1024 * 1024
-const LIST_URL = '/api/uploads?kind=fabric-photo'
 const button = 'rounded border border-stone-300 px-2 py-1 text-xs hover:bg-linen-100 disabled:opacity-40'
 
-/**
- * Sends the photo as the request body, reporting the share sent so far (fetch cannot report an
- * upload's progress; XMLHttpRequest can). Resolves to the stored upload with its palette; rejects
- * with the server's message, in plain words.
- */
-function sendPhoto(file: File, onProgress: (share: number) => void): Promise<UploadView> {
-  return new Promise((resolve, reject) => {
-    const request = new XMLHttpRequest()
-    request.open('POST', '/api/uploads?kind=fabric-photo')
-    request.setRequestHeader('content-type', file.type || 'application/octet-stream')
-    request.setRequestHeader('accept', 'application/json')
-    request.upload.onprogress = (event) => event.lengthComputable && onProgress(event.loaded / event.total)
-    request.onload = () => {
-      let body: unknown = null
-      try {
-        body = JSON.parse(request.responseText)
-      } catch {
-        // Not JSON (a proxy's error page): the status says enough below.
-      }
-      if (request.status === 201) {
-        const parsed = uploadAnswerSchema.safeParse(body)
-        return parsed.success ? resolve(parsed.data.upload) : reject(new Error('The server’s answer made no sense.'))
-      }
-      const message = (body as { error?: { message?: string } } | null)?.error?.message
-      reject(new Error(message ?? `The upload was refused (${request.status}).`))
-    }
-    request.onerror = () => reject(new Error('The photo did not reach the server. Check the connection and try again.'))
-    request.send(file)
-  })
-}
+/** `GET /api/uploads/<id>/palette`: the colours proposed when the photo was uploaded. */
+const paletteAnswerSchema = z.object({ palette: uploadViewSchema.shape.palette })
+const paletteUrl = (upload: string) => `/api/uploads/${upload}/palette`
 
 /**
- * "Theme fabric photo": the designer uploads a photo of the fabric a colourway starts from; the
- * server proposes its colours (lib/images.ts) and they are shown as swatches beside the photo.
- * Choosing a swatch, then a fabric, makes that the fabric's colour in the colourway on the board
- * (`setFabricColour`, one undoable step). The latest photo is shown again when the board opens.
+ * "Theme fabric photo" of the colourway shown: the designer uploads a photo of the fabric that
+ * colourway starts from; the server proposes its colours (lib/images.ts) and they are shown as
+ * swatches beside the photo. The photo is the colourway's (`themePhoto` in the design, set by
+ * `setThemePhoto`: undoable and saved like any change), so another colourway or another pattern
+ * shows its own, or none. Choosing a swatch, then a fabric, makes that the fabric's colour in the
+ * colourway (`setFabricColour`, one undoable step). A photo that can no longer be read (deleted,
+ * or someone else's in an imported file) shows nothing. Give it `key={colorway.name}` so a
+ * half-made choice does not follow to another colourway.
  */
 export function ThemePhoto({ store, colorway }: { store: BoardStore; colorway: Colorway | undefined }) {
-  const { data, mutate } = useSWR(LIST_URL, getJsonOf(uploadListAnswerSchema))
+  const photo = colorway?.themePhoto
+  const { mutate } = useSWRConfig()
+  const { data, error: unreadable } = useSWR(photo ? paletteUrl(photo) : null, getJsonOf(paletteAnswerSchema), { shouldRetryOnError: false })
+  const [broken, setBroken] = useState<string | null>(null)
   const [progress, setProgress] = useState<number | null>(null)
   const [error, setError] = useState<string | null>(null)
   const [chosen, setChosen] = useState<string | null>(null)
   const [done, setDone] = useState<string | null>(null)
   const input = useRef<HTMLInputElement>(null)
-  const photo = data?.uploads[0]
+  const shown = photo && !unreadable && broken !== photo ? photo : null
   const fabrics = Object.entries(colorway?.fabrics ?? {})
 
   async function upload(event: ChangeEvent<HTMLInputElement>) {
     const file = event.currentTarget.files?.[0]
     event.currentTarget.value = ''
-    if (!file) return
+    if (!file || !colorway) return
     setError(null)
     setDone(null)
     setChosen(null)
-    if (file.size > MAX_PHOTO_BYTES) {
-      return setError(`The photo is ${(file.size / 1024 / 1024).toFixed(1)} MB; at most 10 MB is accepted. Use a smaller photo.`)
-    }
+    const refusal = tooLarge(file.size, 'photo')
+    if (refusal) return setError(refusal)
     setProgress(0)
     try {
-      const stored = await sendPhoto(file, setProgress)
-      await mutate({ uploads: [stored, ...(data?.uploads ?? [])] }, { revalidate: false })
+      const stored = await sendImage(file, 'fabric-photo', 'photo', setProgress)
+      // The answer carries the palette: no need to ask for it again.
+      await mutate(paletteUrl(stored.id), { palette: stored.palette }, { revalidate: false })
+      store.run('setThemePhoto', { colorway: colorway.name, upload: stored.id })
     } catch (failure) {
       setError((failure as Error).message)
     } finally {
@@ -90,12 +70,19 @@ export function ThemePhoto({ store, colorway }: { store: BoardStore; colorway: C
     setChosen(null)
   }
 
+  function remove() {
+    if (!colorway) return
+    setChosen(null)
+    setDone(null)
+    store.run('setThemePhoto', { colorway: colorway.name, upload: null })
+  }
+
   return (
-    <div className="space-y-2 rounded border border-stone-200 bg-white/60 p-2" data-testid="theme-photo">
+    <div className="space-y-2 rounded border border-stone-200 bg-white/60 p-2" data-testid="theme-photo" data-photo={shown ?? undefined}>
       <div className="flex items-center justify-between gap-2">
         <h3 className="text-xs font-semibold text-stone-600">Theme fabric photo</h3>
-        <button type="button" className={`${button} shrink-0 whitespace-nowrap`} disabled={progress !== null} onClick={() => input.current?.click()}>
-          {photo ? 'Another photo' : 'Upload a photo'}
+        <button type="button" className={`${button} shrink-0 whitespace-nowrap`} disabled={progress !== null || !colorway} onClick={() => input.current?.click()}>
+          {shown ? 'Another photo' : 'Upload a photo'}
         </button>
         <input
           ref={input}
@@ -117,12 +104,22 @@ export function ThemePhoto({ store, colorway }: { store: BoardStore; colorway: C
           {error}
         </p>
       )}
-      {photo ? (
+      {shown ? (
         <div className="flex gap-2">
-          {/* eslint-disable-next-line @next/next/no-img-element -- a private upload served by the API to its owner, not a file to optimise */}
-          <img src={photo.url} alt="Theme fabric" width={photo.width} height={photo.height} className="h-auto w-24 shrink-0 rounded border border-stone-300 object-cover" />
+          <div className="w-24 shrink-0 space-y-1">
+            {/* eslint-disable-next-line @next/next/no-img-element -- a private upload served by the API to its owner, not a file to optimise */}
+            <img
+              src={`/api/uploads/${shown}`}
+              alt={`Theme fabric of ${colorway?.name}`}
+              onError={() => setBroken(shown)}
+              className="h-auto w-24 rounded border border-stone-300 object-cover"
+            />
+            <button type="button" className="text-[11px] text-stone-600 underline hover:text-madder-700" onClick={remove}>
+              Remove photo
+            </button>
+          </div>
           <ul className="grid flex-1 grid-cols-4 content-start gap-1" aria-label="Colours of the theme fabric">
-            {(photo.palette ?? []).map((colour) => (
+            {(data?.palette ?? []).map((colour) => (
               <li key={colour}>
                 <button
                   type="button"
@@ -138,7 +135,9 @@ export function ThemePhoto({ store, colorway }: { store: BoardStore; colorway: C
           </ul>
         </div>
       ) : (
-        progress === null && <p className="text-[11px] text-stone-500">A photo of the fabric a colourway starts from proposes its colours.</p>
+        progress === null && (
+          <p className="text-[11px] text-stone-500">A photo of the fabric {colorway ? `the ${colorway.name} colourway` : 'a colourway'} starts from proposes its colours.</p>
+        )
       )}
       {chosen && (
         <div className="space-y-1" role="group" aria-label={`Use ${chosen} for a fabric`}>

@@ -3,11 +3,13 @@
  * of fabric by the layout's length): each strip across the width, its sub-cuts filled with the
  * fabric's colour and labelled by what they are for, turned pieces marked with a corner notch.
  * Beside it the same strips in words, so a screen reader (and a maker at the cutting table) gets
- * everything the picture shows. Data from lib/fabric/cutting-diagram.ts, as the booklet's.
+ * everything the picture shows, under the fabric's name and its swatch image (when it has one).
+ * Data from lib/fabric/cutting-diagram.ts, as the booklet's.
  */
 import { useId } from 'react'
 import type { CuttingDiagram } from '@/lib/fabric/cutting-diagram'
 import { formatLength, formatSize, type LengthUnits } from '@/lib/units'
+import { SwatchImage } from './swatch-image'
 
 /** Room above the strips for the width's label, inches of the drawing. */
 const TOP_IN = 1.6
@@ -27,9 +29,9 @@ function labelSize(label: string, widthIn: number, heightIn: number): number {
 /**
  * The diagram of one fabric, with a list of its strips beside it.
  *
- * @example <CuttingDiagramFigure diagram={cuttingDiagram(fabric, 40, 'in')} units="in" />
+ * @example <CuttingDiagramFigure diagram={cuttingDiagram(fabric, 40, 'in')} units="in" swatch={colorway.fabrics[fabric.fabric]?.swatch} />
  */
-export function CuttingDiagramFigure({ diagram, units }: { diagram: CuttingDiagram; units: LengthUnits }) {
+export function CuttingDiagramFigure({ diagram, units, swatch }: { diagram: CuttingDiagram; units: LengthUnits; swatch?: string | undefined }) {
   const id = useId()
   const width = diagram.widthOfFabricIn
   const length = Math.max(diagram.lengthIn, 0.5)
@@ -90,7 +92,10 @@ export function CuttingDiagramFigure({ diagram, units }: { diagram: CuttingDiagr
         </g>
       </svg>
       <figcaption className="space-y-2 text-sm">
-        <p className="font-medium text-stone-800">{diagram.title}</p>
+        <p className="flex items-center gap-2 font-medium text-stone-800">
+          {swatch && <SwatchImage upload={swatch} name={diagram.name} className="h-6 w-6" />}
+          {diagram.title}
+        </p>
         <ol id={`${id}-list`} className="list-none space-y-1 text-stone-700">
           {diagram.strips.map((strip) => (
             <li key={strip.number}>{strip.words}</li>

@@ -18,14 +18,21 @@ import { parseDesign, type DesignFile } from '@/lib/schemas/design'
 import { formatLength, formatSize, inchesToCentimetres, type LengthUnits } from '@/lib/units'
 import { downloadFile } from '@/components/ui/download'
 import { CuttingDiagramFigure } from './cutting-diagram-figure'
+import { SwatchImage } from './swatch-image'
 
 const yesNo = (value: boolean): string => (value ? 'yes' : 'no')
 
-function Swatch({ color, name }: { color: string | null; name: string }) {
-  return color ? (
-    <span className="inline-block h-5 w-8 rounded border border-stone-400 align-middle print:[print-color-adjust:exact]" style={{ backgroundColor: color }} role="img" aria-label={`${name}: colour ${color}`} />
-  ) : (
-    <span className="text-xs text-stone-500">no colour chosen</span>
+/** The fabric's swatch image when it has one, beside its colour chip. */
+function Swatch({ color, name, swatch }: { color: string | null; name: string; swatch: string | undefined }) {
+  return (
+    <span className="inline-flex items-center gap-1.5">
+      {swatch && <SwatchImage upload={swatch} name={name} />}
+      {color ? (
+        <span className="inline-block h-5 w-8 rounded border border-stone-400 align-middle print:[print-color-adjust:exact]" style={{ backgroundColor: color }} role="img" aria-label={`${name}: colour ${color}`} />
+      ) : (
+        <span className="text-xs text-stone-500">no colour chosen</span>
+      )}
+    </span>
   )
 }
 
@@ -133,7 +140,7 @@ function FabricWorkspace({ name, design, units }: { name: string; design: Design
           {shown.map((row) => (
             <tr key={row.fabric} className="border-b border-stone-200" data-fabric={row.fabric} data-yards={row.yards} data-metres={row.metres}>
               <th scope="row" className="px-2 py-1 text-left font-normal">{row.name}</th>
-              <td className="px-2 py-1"><Swatch color={row.color} name={row.name} /></td>
+              <td className="px-2 py-1"><Swatch color={row.color} name={row.name} swatch={colorway?.fabrics[row.fabric]?.swatch} /></td>
               <td className="px-2 py-1 tabular-nums">{row.pieces}</td>
               <td className="px-2 py-1 tabular-nums">{formatYards(row.yards)}</td>
               <td className="px-2 py-1 tabular-nums">{formatMetres(row.metres)}</td>
@@ -198,7 +205,7 @@ function FabricWorkspace({ name, design, units }: { name: string; design: Design
         <h2 id="diagrams-heading" className="text-lg font-semibold print:break-before-page">Cutting diagrams</h2>
         <p className="max-w-2xl text-sm text-stone-600">Each fabric laid flat, the usable width across: cut each strip across the width, then sub-cut it as labelled. Every cut runs straight from edge to edge.</p>
         {requirements.fabrics.map((fabric) => (
-          <CuttingDiagramFigure key={fabric.fabric} diagram={cuttingDiagram(fabric, requirements.widthOfFabricIn, units)} units={units} />
+          <CuttingDiagramFigure key={fabric.fabric} diagram={cuttingDiagram(fabric, requirements.widthOfFabricIn, units)} units={units} swatch={colorway?.fabrics[fabric.fabric]?.swatch} />
         ))}
       </section>
     </div>

@@ -58,8 +58,6 @@ describe('a colourway from the board to the fabric page', () => {
     const page = await context.newPage()
     const pageErrors: string[] = []
     page.on('pageerror', (error) => pageErrors.push(String(error)))
-    // Tomasz, not Marguerite: the board shows a designer's latest theme photo, which the
-    // theme-photo test expects Marguerite not to have yet.
     await signInThroughPage(page, 'tomasz@juniperthread.example', DEMO_PASSWORD)
     const name = `Journey ${Date.now()}`
     const id = await page.evaluate(async (design) => {
@@ -92,8 +90,9 @@ describe('a colourway from the board to the fabric page', () => {
     await expect
       .poll(async () => (await boardDesign(page)).colorways[1]?.fabrics)
       .toMatchObject({ background: { color: '#2f5d50' }, band: { color: '#d9a441' } })
-    // The first colourway is untouched.
+    // The first colourway is untouched, and the photo is the copy's alone.
     expect((await boardDesign(page)).colorways[0]?.fabrics).toMatchObject({ background: { name: 'Background', color: '#f4ecd8' }, band: { name: 'Band', color: '#8a3b12' } })
+    expect((await boardDesign(page)).colorways.map((c: { themePhoto?: string }) => c.themePhoto !== undefined)).toEqual([false, true])
     await expect.poll(() => page.getByTestId('save-status').getAttribute('data-state'), { timeout: 15_000 }).toBe('saved')
 
     // The fabric page of the saved design, checked against the core's own requirements.
