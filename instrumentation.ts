@@ -12,12 +12,6 @@ export async function register(): Promise<void> {
   stampPeerAddresses()
   // `next build` may load this file to collect pages: no worker there.
   if (process.env.NEXT_PHASE === 'phase-production-build' || process.env.MAIL_WORKER === 'off') return
-  const { startMailWorker, stopMailWorker } = await import('@/lib/mail/worker')
-  // A database that is not up yet is no reason to refuse requests: the worker says why and the
-  // messages wait in the queue for the next start.
-  startMailWorker().catch((error: Error) => console.error(`mail: the worker did not start: ${error.message}`))
-  // Let a message being sent finish before the process ends (pg-boss then closes its pool).
-  for (const signal of ['SIGTERM', 'SIGINT'] as const) {
-    process.once(signal, () => void stopMailWorker().finally(() => process.exit(0)))
-  }
+  const { runMailWorkerInThisProcess } = await import('@/lib/mail/worker')
+  runMailWorkerInThisProcess()
 }

@@ -22,9 +22,9 @@ function sample(kind: MailKind, displayName = 'Ada Lovelace'): MailData[MailKind
 const links = (data: object) => Object.values(data).filter((value): value is string => typeof value === 'string' && value.startsWith('https://'))
 
 describe('renderMail', () => {
-  it.each(MAIL_KINDS)('%s: a subject, an HTML part and a plain-text part saying the same', (kind) => {
+  it.each(MAIL_KINDS)('%s: a subject, an HTML part and a plain-text part saying the same', async (kind) => {
     const data = sample(kind)
-    const mail = renderMail(kind, data)
+    const mail = await renderMail(kind, data)
     expect(mail.subject.length).toBeGreaterThan(10)
     expect(mail.html).toMatch(/^<!DOCTYPE html><html lang="en">/)
     expect(mail.html).toContain('Hello Ada Lovelace,')
@@ -38,10 +38,10 @@ describe('renderMail', () => {
     }
   })
 
-  it.each(MAIL_KINDS)('%s: a display name or address is text, never markup', (kind) => {
+  it.each(MAIL_KINDS)('%s: a display name or address is text, never markup', async (kind) => {
     const hostile = '<script>alert("x")</script> & <b>'
     const data = { ...sample(kind, hostile), ...('newEmail' in sample(kind) ? { newEmail: '"><img src=x>@example.com' } : {}) }
-    const mail = renderMail(kind, data)
+    const mail = await renderMail(kind, data)
     expect(mail.html).not.toContain('<script>')
     expect(mail.html).not.toContain('<img')
     expect(mail.html).toContain('&lt;script&gt;alert(&quot;x&quot;)&lt;/script&gt; &amp; &lt;b&gt;')
@@ -49,22 +49,22 @@ describe('renderMail', () => {
     expect(mail.text).toContain('Hello <script>alert("x")</script> & <b>,')
   })
 
-  it('escapes a link that tries to leave its attribute', () => {
-    const mail = renderMail('password-reset', { displayName: 'Ada', resetUrl: 'https://wreathwright.example/r?a="><script>' })
+  it('escapes a link that tries to leave its attribute', async () => {
+    const mail = await renderMail('password-reset', { displayName: 'Ada', resetUrl: 'https://wreathwright.example/r?a="><script>' })
     expect(mail.html).toContain('href="https://wreathwright.example/r?a=&quot;&gt;&lt;script&gt;"')
   })
 
-  it('tells a designer request apart: approved with the studio link, declined without', () => {
-    const approved = renderMail('designer-request-decided', { displayName: 'Ada', approved: true, studioUrl: 'https://wreathwright.example/patterns' })
-    const declined = renderMail('designer-request-decided', { displayName: 'Ada', approved: false, studioUrl: 'https://wreathwright.example/patterns' })
+  it('tells a designer request apart: approved with the studio link, declined without', async () => {
+    const approved = await renderMail('designer-request-decided', { displayName: 'Ada', approved: true, studioUrl: 'https://wreathwright.example/patterns' })
+    const declined = await renderMail('designer-request-decided', { displayName: 'Ada', approved: false, studioUrl: 'https://wreathwright.example/patterns' })
     expect(approved.subject).not.toBe(declined.subject)
     expect(approved.text).toContain('[https://wreathwright.example/patterns]')
     expect(declined.text).not.toContain('https://')
     expect(declined.text.replace(/\s+/g, ' ')).toContain('was not approved')
   })
 
-  it('says how long a link lasts: 24 hours to verify, 1 hour to reset', () => {
-    expect(renderMail('verify-email', { displayName: 'Ada', verifyUrl: LINK }).text).toContain('24 hours')
-    expect(renderMail('password-reset', { displayName: 'Ada', resetUrl: LINK }).text).toContain('next hour')
+  it('says how long a link lasts: 24 hours to verify, 1 hour to reset', async () => {
+    expect((await renderMail('verify-email', { displayName: 'Ada', verifyUrl: LINK })).text).toContain('24 hours')
+    expect((await renderMail('password-reset', { displayName: 'Ada', resetUrl: LINK })).text).toContain('next hour')
   })
 })

@@ -1,5 +1,4 @@
 import { convert } from 'html-to-text'
-import { renderToStaticMarkup } from 'react-dom/server'
 import type { MailData, MailKind } from './kinds'
 import { emailChangeNotice, emailChangeVerify, passwordChanged, passwordReset, signUpAttempt, verifyEmail } from './templates/account'
 import { designerRequestDecided } from './templates/studio'
@@ -27,9 +26,12 @@ export interface RenderedMail {
  * every value), the plain-text part converted from that HTML by html-to-text, links written
  * after their words as `Confirm my address [https://…]`.
  *
- * @example renderMail('password-changed', { displayName: 'Ada' }).subject // 'Your Wreathwright password was changed'
+ * @example (await renderMail('password-changed', { displayName: 'Ada' })).subject // 'Your Wreathwright password was changed'
  */
-export function renderMail<K extends MailKind>(kind: K, data: MailData[K]): RenderedMail {
+export async function renderMail<K extends MailKind>(kind: K, data: MailData[K]): Promise<RenderedMail> {
+  // Imported when used: `next build` refuses a static import of react-dom/server in server code
+  // (it guards Server Components, which should not render HTML by hand); the worker is not one.
+  const { renderToStaticMarkup } = await import('react-dom/server')
   const template = TEMPLATES[kind] as MailTemplate<MailData[K]>
   const html = `<!DOCTYPE html>${renderToStaticMarkup(template.body(data))}`
   const text = convert(html, {

@@ -52,7 +52,7 @@ async function deliver(job: PgBoss.JobWithMetadata<MailJob>, transport: Transpor
   if (!row || row.state === 'sent') return
   const attempts = row.attempts + 1
   try {
-    const message = renderMail(kind, job.data.data)
+    const message = await renderMail(kind, job.data.data)
     await transport.sendMail({ from, to: job.data.to, subject: message.subject, text: message.text, html: message.html, headers: { [KIND_HEADER]: kind } })
   } catch (error) {
     const last = job.retryCount >= job.retryLimit
@@ -104,4 +104,16 @@ export async function stopMailWorker(timeoutMs = 10_000): Promise<void> {
   if (!worker) return
   await worker.boss.stop({ graceful: true, close: true, timeout: timeoutMs })
   worker.transport.close()
+}
+
+/**
+ * The app's own worker (instrumentation.ts): started in the background, so a database that is
+ * not up yet delays the mail and not the app; stopped on SIGTERM or SIGINT, letting a message
+ * being sent finish (an unfinished one is tried again by the next start).
+ */
+export function runMailWorkerInThisProcess(): void {
+  startMailWorker().catch((error: Error) => console.error(`mail: the worker did not start: ${error.message}`))
+  for (const signal of ['SIGTERM', 'SIGINT'] as const) {
+    process.once(signal, () => void stopMailWorker().finally(() => process.exit(0)))
+  }
 }
