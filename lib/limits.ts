@@ -48,6 +48,15 @@ export const MAX_ROLE_LENGTH = 64
 /** An upload's key in the object store, as a design names a swatch image by it: characters (ASCII). */
 export const MAX_UPLOAD_KEY_LENGTH = 200
 
+/**
+ * Bytes one person's uploads may take in the object store together, as stored (each image is
+ * re-encoded and at most 1600 px on its longer side, so a theme photo takes about 0.2–2 MB and a
+ * swatch a few kB): 200 MB (10^6 bytes a megabyte), room for a hundred full-size photos and
+ * thousands of swatches. Our choice; an upload past it is refused (413) naming the quota and the
+ * use, with nothing stored.
+ */
+export const MAX_STORED_UPLOAD_BYTES_PER_USER = 200_000_000
+
 /** The longest number JSON.stringify writes: `-1.2345678901234567e-308`, 24 characters. */
 const LONGEST_NUMBER = 24
 /**

@@ -53,6 +53,13 @@ export const RATE_LIMITS = {
   passwordResetPerAddress: { points: 10, windowSeconds: HOUR, what: 'password reset requests from this address' },
   /** Password-reset requests for one e-mail address, so nobody's inbox is flooded with reset mail. */
   passwordResetPerAccount: { points: 3, windowSeconds: HOUR, what: 'password reset requests for this account' },
+  /** "Send it again" for the verification e-mail, per account. */
+  verificationResendPerAccount: { points: 3, windowSeconds: HOUR, what: 'verification e-mails for this account' },
+  /**
+   * Images one designer uploads, every attempt counted (each costs a decode on the server): 30 in
+   * 10 minutes, a few a minute kept up for a while. Our choice, common practice for uploads.
+   */
+  uploadsPerUser: { points: 30, windowSeconds: 10 * MINUTE, what: 'uploads' },
 } as const satisfies Record<string, RateLimit>
 
 export type RateLimitName = keyof typeof RATE_LIMITS
@@ -157,11 +164,19 @@ export async function countSignUp(address: string): Promise<void> {
 
 /**
  * Counts a password-reset request for `email` from `address`; throws TooManyRequestsError past
- * either limit. For the password-reset route of the account issue.
- *
- * @public
+ * either limit.
  */
 export async function countPasswordReset(email: string, address: string): Promise<void> {
   await consume('passwordResetPerAddress', counterKey(address))
   await consume('passwordResetPerAccount', counterKey(email))
+}
+
+/** Counts a "send the verification e-mail again" for an account; throws TooManyRequestsError past the limit. */
+export async function countVerificationResend(userId: string): Promise<void> {
+  await consume('verificationResendPerAccount', counterKey(userId))
+}
+
+/** Counts an upload attempt by a person (their user id); throws TooManyRequestsError past the limit. */
+export async function countUpload(userId: string): Promise<void> {
+  await consume('uploadsPerUser', counterKey(userId))
 }

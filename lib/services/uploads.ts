@@ -1,10 +1,13 @@
 import 'server-only'
 import { randomUUID } from 'node:crypto'
+import type { Transaction } from 'sequelize'
 import { authorize, type Actor, type UploadPurpose } from '@/lib/authorization'
 import { database } from '@/lib/db'
-import { NotFoundError } from '@/lib/errors'
+import { NotFoundError, ServiceError } from '@/lib/errors'
 import { prepareImage, proposePalette, sniffImageType } from '@/lib/images'
+import { MAX_STORED_UPLOAD_BYTES_PER_USER } from '@/lib/limits'
 import { deleteObject, getObject, objectKey, putObject } from '@/lib/object-store'
+import { countUpload } from '@/lib/rate-limits'
 import type { UploadView } from '@/lib/schemas/upload'
 import { Upload } from '@/models'
 
@@ -12,11 +15,19 @@ import { Upload } from '@/models'
  * Uploaded images: checked, remade (lib/images.ts) and stored in the object store, with a row in
  * `uploads` saying whose it is. Nothing is stored for a refused file: every check runs before the
  * object is written, and the object is removed again if its row cannot be written.
+ *
+ * Each person's uploads are limited twice: attempts per window (lib/rate-limits.ts,
+ * `uploadsPerUser`: 429 with Retry-After), and the bytes stored together
+ * (`MAX_STORED_UPLOAD_BYTES_PER_USER`, lib/limits.ts: 413 naming the quota and the use). The quota
+ * is checked and the row written under a per-person lock, so uploads sent at once cannot pass it
+ * together.
  */
 
 const EXTENSIONS = { 'image/jpeg': 'jpg', 'image/png': 'png', 'image/webp': 'webp' } as const
 /** How many of one's uploads of a kind the list shows, newest first. */
 const LIST_LIMIT = 20
+/** Objects removed from the store at the same time. */
+const REMOVE_AT_ONCE = 8
 const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i
 
 function toView(upload: Upload): UploadView {
@@ -33,33 +44,81 @@ function toView(upload: Upload): UploadView {
   }
 }
 
+/**
+ * The permission step of an upload, before its body is read: the person may upload this kind, and
+ * is counted against the uploads rate limit (429 past it), so a refused person's file is never read.
+ */
+export async function beginUpload(actor: Actor, purpose: UploadPurpose): Promise<UploadPurpose> {
+  authorize(actor, 'upload-image', purpose)
+  await countUpload(actor.id)
+  return purpose
+}
+
+/** Megabytes (10^6 bytes) to one decimal, rounded up so a use just over a limit never reads as the limit: 1,234,567 bytes is 1.3 MB. */
+function megabytes(bytes: number): string {
+  return `${(Math.ceil(bytes / 100_000) / 10).toFixed(1)} MB`
+}
+
+/** Holds the person's upload lock until the transaction ends (a PostgreSQL advisory lock keyed by their id). */
+async function lockUploadsOf(userId: string, transaction: Transaction): Promise<void> {
+  await database().query('SELECT pg_advisory_xact_lock(hashtextextended(:key, 0))', { replacements: { key: `uploads:${userId}` }, transaction })
+}
+
 /** Checks, remakes and stores an image; a theme-fabric photo gets its proposed palette. */
 export async function createUpload(actor: Actor, purpose: UploadPurpose, bytes: Uint8Array, declaredType: string | null): Promise<UploadView> {
   authorize(actor, 'upload-image', purpose)
   const contentType = await sniffImageType(bytes, declaredType)
   const image = await prepareImage(bytes, contentType)
   const palette = purpose === 'fabric-photo' ? await proposePalette(image) : null
-  database()
   const id = randomUUID()
   const key = objectKey(`uploads/${actor.id}/${purpose}/${id}.${EXTENSIONS[contentType]}`)
-  await putObject(key, image.bytes, contentType)
+  let stored = false
   try {
-    const upload = await Upload.create({
-      id,
-      ownerId: actor.id,
-      kind: purpose,
-      key,
-      contentType,
-      width: image.width,
-      height: image.height,
-      bytes: image.bytes.byteLength,
-      palette,
+    return await database().transaction(async (transaction) => {
+      await lockUploadsOf(actor.id, transaction)
+      const used = Number((await Upload.sum('bytes', { where: { ownerId: actor.id }, transaction })) ?? 0)
+      if (used + image.bytes.byteLength > MAX_STORED_UPLOAD_BYTES_PER_USER) {
+        throw new ServiceError(
+          `This image would take your uploads past your storage quota of ${megabytes(MAX_STORED_UPLOAD_BYTES_PER_USER)}: you use ${megabytes(used)} and it needs ${megabytes(image.bytes.byteLength)} once resized. Nothing was stored.`,
+          413,
+        )
+      }
+      await putObject(key, image.bytes, contentType)
+      stored = true
+      const upload = await Upload.create(
+        { id, ownerId: actor.id, kind: purpose, key, contentType, width: image.width, height: image.height, bytes: image.bytes.byteLength, palette },
+        { transaction },
+      )
+      return toView(upload)
     })
-    return toView(upload)
   } catch (error) {
-    await deleteObject(key).catch((cleanup: Error) => console.error(`uploads: could not remove ${key} after a failed save: ${cleanup.message}`))
+    // The row was not written (or its transaction did not commit): the object goes too.
+    if (stored) await deleteObject(key).catch((cleanup: Error) => console.error(`uploads: could not remove ${key} after a failed save: ${cleanup.message}`))
     throw error
   }
+}
+
+/**
+ * Removes everything a person uploaded: each object from the object store, then their rows. For
+ * deleting an account: call it before the user row goes (the rows would go with it, by the
+ * foreign key, and leave the objects behind). Safe to run again if it fails part way: the rows of
+ * objects not yet removed stay, and removing a missing object is no error. Returns how many
+ * uploads were removed.
+ *
+ * @example await removeUploadsOf(user.id) // 3
+ */
+export async function removeUploadsOf(userId: string): Promise<number> {
+  if (!UUID.test(userId)) return 0
+  return database().transaction(async (transaction) => {
+    // Uploads under way wait for this, then find the person gone.
+    await lockUploadsOf(userId, transaction)
+    const uploads = await Upload.findAll({ where: { ownerId: userId }, attributes: ['id', 'key'], transaction })
+    for (let start = 0; start < uploads.length; start += REMOVE_AT_ONCE) {
+      await Promise.all(uploads.slice(start, start + REMOVE_AT_ONCE).map((upload) => deleteObject(upload.key)))
+    }
+    await Upload.destroy({ where: { ownerId: userId }, transaction })
+    return uploads.length
+  })
 }
 
 /** The upload, if the actor may read it; 404 alike for a missing one and someone else's. */

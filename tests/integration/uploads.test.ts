@@ -8,8 +8,11 @@ import { afterAll, beforeEach, describe, expect, it } from 'vitest'
 import { GET as readUpload } from '@/app/api/uploads/[id]/route'
 import { GET as listUploads, POST as postUpload } from '@/app/api/uploads/route'
 import { MAX_IMAGE_SIDE, MAX_UPLOAD_BYTES } from '@/lib/images'
+import { MAX_STORED_UPLOAD_BYTES_PER_USER } from '@/lib/limits'
 import { colourDistance, type Rgb } from '@/lib/palette'
+import { RATE_LIMITS } from '@/lib/rate-limits'
 import type { Role } from '@/lib/roles'
+import { removeUploadsOf } from '@/lib/services/uploads'
 import { Upload } from '@/models'
 import { closeDatabase, freshDatabase } from '../support/database'
 import { createUser, sessionCookieFor } from '../support/factories'
@@ -34,7 +37,7 @@ async function upload(bytes: Uint8Array, contentType: string, options: { cookie?
   if (options.contentLength) headers.set('content-length', options.contentLength)
   const request = new Request(`${TEST_ORIGIN}/api/uploads?kind=${options.kind ?? 'fabric-photo'}`, { method: 'POST', headers, body: new Blob([new Uint8Array(bytes)]) })
   const response = await postUpload(request)
-  return { status: response.status, json: (await response.json()) as { upload?: Record<string, unknown>; error?: { message: string } } }
+  return { status: response.status, headers: response.headers, json: (await response.json()) as { upload?: Record<string, unknown>; error?: { message: string } } }
 }
 
 async function read(id: string, cookie?: string) {
@@ -198,5 +201,101 @@ describe('a theme-fabric photo', () => {
     }
     expect(await list(owner.cookie)).toEqual([id])
     expect(await list(other.cookie)).toEqual([])
+  })
+})
+
+/** Noise: every pixel random, so PNG cannot shrink it (about 3 bytes a pixel stored). */
+function noise(width: number, height: number): Promise<Buffer> {
+  const pixels = Buffer.alloc(width * height * 3)
+  for (let i = 0; i < pixels.length; i += 1) pixels[i] = Math.floor(Math.random() * 256)
+  return sharp(pixels, { raw: { width, height, channels: 3 } }).png().toBuffer()
+}
+
+describe('per-designer upload limits', () => {
+  it(`refuses the upload after ${RATE_LIMITS.uploadsPerUser.points} in ${RATE_LIMITS.uploadsPerUser.windowSeconds / 60} minutes with 429 and Retry-After, storing nothing; others still upload`, async () => {
+    const { cookie } = await personWith(['designer'])
+    const png = await (await stripes(2, 4)).png().toBuffer()
+    const { points, windowSeconds } = RATE_LIMITS.uploadsPerUser
+    // 30 uploads per 10 minutes per designer (our choice; lib/rate-limits.ts).
+    expect([points, windowSeconds]).toEqual([30, 600])
+    for (let n = 1; n <= points; n += 1) expect((await upload(png, 'image/png', { cookie, kind: 'swatch' })).status).toBe(201)
+    const refused = await upload(png, 'image/png', { cookie, kind: 'swatch' })
+    expect(refused.status).toBe(429)
+    expect(refused.json.error?.message).toBe('Too many uploads; try again in 10 minutes.')
+    const retryAfter = Number(refused.headers.get('retry-after'))
+    expect(retryAfter).toBeGreaterThan(0)
+    expect(retryAfter).toBeLessThanOrEqual(windowSeconds)
+    expect(await Upload.count()).toBe(points)
+    expect(await storedKeys()).toHaveLength(points)
+    // Refused uploads count too (each is an attempt): still refused.
+    expect((await upload(png, 'image/png', { cookie, kind: 'swatch' })).status).toBe(429)
+    const other = await personWith(['designer'])
+    expect((await upload(png, 'image/png', { cookie: other.cookie, kind: 'swatch' })).status).toBe(201)
+  })
+
+  it('refuses an image that would take a designer past the storage quota with 413 naming the quota and the use, storing nothing', async () => {
+    const owner = await personWith(['designer'])
+    // 200 MB (10^6 bytes each) per designer, our choice (lib/limits.ts).
+    expect(MAX_STORED_UPLOAD_BYTES_PER_USER).toBe(200_000_000)
+    // Uploads already stored: 199.5 MB in all, as rows (their objects are not needed to count them).
+    const used = MAX_STORED_UPLOAD_BYTES_PER_USER - 500_000
+    await Upload.create({ ownerId: owner.user.id, kind: 'fabric-photo', key: 'uploads/earlier/photo.png', contentType: 'image/png', width: 1600, height: 1200, bytes: used, palette: null })
+    // 600 × 600 px of noise: about 1.08 MB as a PNG (3 bytes a pixel), over the 0.5 MB left.
+    const big = await noise(600, 600)
+    expect(big.byteLength).toBeGreaterThan(1_000_000)
+    const refused = await upload(big, 'image/png', { cookie: owner.cookie, kind: 'swatch' })
+    expect(refused.status).toBe(413)
+    expect(refused.json.error?.message).toMatch(/^This image would take your uploads past your storage quota of 200\.0 MB: you use 199\.5 MB and it needs 1\.\d MB once resized\. Nothing was stored\.$/)
+    expect(await Upload.count()).toBe(1)
+    expect(await storedKeys()).toEqual([])
+    // What still fits is taken, and the quota is each designer's own.
+    const small = await (await stripes(2, 4)).png().toBuffer()
+    expect((await upload(small, 'image/png', { cookie: owner.cookie, kind: 'swatch' })).status).toBe(201)
+    const other = await personWith(['designer'])
+    expect((await upload(big, 'image/png', { cookie: other.cookie, kind: 'swatch' })).status).toBe(201)
+  })
+
+  it('lets uploads sent at once pass the quota only as far as it goes', async () => {
+    const owner = await personWith(['designer'])
+    const image = await noise(300, 300)
+    // Room for exactly one more: each stored image is at least 200 KB of noise (300 × 300 × 3 = 270 kB raw).
+    await Upload.create({ ownerId: owner.user.id, kind: 'fabric-photo', key: 'uploads/earlier/photo.png', contentType: 'image/png', width: 1600, height: 1200, bytes: MAX_STORED_UPLOAD_BYTES_PER_USER - 300_000, palette: null })
+    const answers = await Promise.all([1, 2, 3].map(() => upload(image, 'image/png', { cookie: owner.cookie, kind: 'swatch' })))
+    expect(answers.map((answer) => answer.status).sort()).toEqual([201, 413, 413])
+    expect(await Upload.count()).toBe(2)
+    expect(await storedKeys()).toHaveLength(1)
+  })
+})
+
+describe('removing a person’s uploads (account deletion)', () => {
+  it('deletes their objects from the store and their rows, and leaves everyone else’s', async () => {
+    const leaving = await personWith(['designer'])
+    const staying = await personWith(['designer'])
+    const png = await (await stripes(20, 40)).png().toBuffer()
+    for (const kind of ['fabric-photo', 'swatch', 'swatch']) expect((await upload(png, 'image/png', { cookie: leaving.cookie, kind })).status).toBe(201)
+    const kept = await upload(png, 'image/png', { cookie: staying.cookie, kind: 'swatch' })
+    const keptId = (kept.json.upload as { id: string }).id
+    expect(await storedKeys()).toHaveLength(4)
+
+    expect(await removeUploadsOf(leaving.user.id)).toBe(3)
+    // Checked in the store itself through the S3 SDK: only the other designer's object is left.
+    const keys = await storedKeys()
+    expect(keys).toHaveLength(1)
+    expect(keys[0]).toMatch(new RegExp(`uploads/${staying.user.id}/swatch/${keptId}\\.png$`))
+    expect(await Upload.count({ where: { ownerId: leaving.user.id } })).toBe(0)
+    expect((await Upload.findAll()).map((row) => row.id)).toEqual([keptId])
+    expect((await read(keptId, staying.cookie)).status).toBe(200)
+    // Again: nothing left to remove.
+    expect(await removeUploadsOf(leaving.user.id)).toBe(0)
+  })
+
+  it('finishes a removal that failed part way: rows whose object is already gone are removed too', async () => {
+    const leaving = await personWith(['designer'])
+    const png = await (await stripes(20, 40)).png().toBuffer()
+    for (let n = 0; n < 2; n += 1) expect((await upload(png, 'image/png', { cookie: leaving.cookie, kind: 'swatch' })).status).toBe(201)
+    // The objects gone already, the rows not (as if an earlier removal had stopped in between).
+    await emptyBucket()
+    expect(await removeUploadsOf(leaving.user.id)).toBe(2)
+    expect(await Upload.count()).toBe(0)
   })
 })
