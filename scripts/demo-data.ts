@@ -1,30 +1,118 @@
 /**
  * Demo data: an invented scenario. Two small studios — Bramble Lane Quiltworks (Marguerite Okafor)
- * and Juniper Thread Co. (Tomasz Lindqvist) — a pattern tester, two quilters and an admin.
+ * and Juniper Thread Co. (Tomasz Lindqvist) — a pattern tester, quilters, an admin, people waiting
+ * for a designer account, one who has not verified their address, one whose account is disabled,
+ * and a few hundred generated quilters so that the admin desk's table has pages to turn. The admin
+ * desk's audit log and mail log start with the few entries this history would have left.
  * Loading is idempotent: people are found by e-mail and patterns by owner and name, so a second
  * run neither duplicates nor overwrites anything a person changed in the meantime.
  */
+import { Op, type Transaction } from 'sequelize'
 import { hashPassword } from '../lib/auth/password'
 import { database } from '../lib/db'
+import type { MailKind } from '../lib/mail/kinds'
 import { emptyDesign } from '../lib/new-design'
 import type { Role } from '../lib/roles'
 import type { DesignFile } from '../lib/schemas/design'
 import { designFileSchema } from '../lib/schemas/design'
 import type { PatternState } from '../lib/schemas/pattern'
-import { Pattern, PatternRevision, User } from '../models'
+import { AdminAuditEntry, OutgoingMail, Pattern, PatternRevision, User } from '../models'
+import type { AdminAction } from '../models/admin-audit-entry'
 import { hollyberryWreath } from './demo-wreath'
 
 /** For the demo only: every demo account signs in with this password. */
 export const DEMO_PASSWORD = 'stitch-and-flip-26'
 
-export const DEMO_PEOPLE: readonly { email: string; displayName: string; roles: Role[]; note: string }[] = [
-  { email: 'odile@wreathwright.example', displayName: 'Odile Fairweather', roles: ['admin'], note: 'admin' },
+interface DemoPerson {
+  readonly email: string
+  readonly displayName: string
+  readonly roles: Role[]
+  /** What `npm run demo` prints beside the address. */
+  readonly note: string
+  /** Not yet verified their e-mail address (the banner shows). */
+  readonly unverified?: true
+  /** Asked for a designer account this many days ago; an admin has not decided yet. */
+  readonly designerRequestedDaysAgo?: number
+  /** Disabled by the admin this many days ago. */
+  readonly disabledDaysAgo?: number
+}
+
+/** The people worth signing in as, printed by `npm run demo`. */
+export const DEMO_PEOPLE: readonly DemoPerson[] = [
+  { email: 'odile@wreathwright.example', displayName: 'Odile Fairweather', roles: ['admin'], note: 'admin (the admin desk: /admin)' },
   { email: 'marguerite@bramblelane.example', displayName: 'Marguerite Okafor', roles: ['designer', 'quilter'], note: 'designer, Bramble Lane Quiltworks' },
   { email: 'tomasz@juniperthread.example', displayName: 'Tomasz Lindqvist', roles: ['designer', 'quilter'], note: 'designer, Juniper Thread Co.' },
   { email: 'priya@testers.example', displayName: 'Priya Desmond', roles: ['tester', 'quilter'], note: 'pattern tester' },
   { email: 'elsie@quilters.example', displayName: 'Elsie Varga', roles: ['quilter'], note: 'quilter' },
   { email: 'ruben@quilters.example', displayName: 'Ruben Achterberg', roles: ['quilter'], note: 'quilter' },
+  {
+    email: 'isadora@fernhollow.example',
+    displayName: 'Isadora Quennell',
+    roles: ['quilter'],
+    note: 'quilter waiting for a designer account (a request on the admin desk)',
+    designerRequestedDaysAgo: 3,
+  },
+  { email: 'bastien@quilters.example', displayName: 'Bastien Marlowe', roles: ['quilter'], note: 'quilter who has not verified his address yet', unverified: true },
 ]
+
+/** More people in the states the admin desk shows, not worth printing: a second request, a disabled account. */
+export const DEMO_PEOPLE_IN_STATES: readonly DemoPerson[] = [
+  { email: 'wilhelmina@loomandleaf.example', displayName: 'Wilhelmina Thorne', roles: ['quilter'], note: 'waiting for a designer account', designerRequestedDaysAgo: 1 },
+  { email: 'corentin@quilters.example', displayName: 'Corentin Ashby', roles: ['quilter'], note: 'disabled', disabledDaysAgo: 12 },
+]
+
+/** Generated quilters for the admin desk's paging: invented first and last names, paired without repeats. */
+export const DEMO_CROWD_SIZE = 300
+const CROWD_FIRST_NAMES = [
+  'Agnes', 'Anselm', 'Beatrix', 'Cosmo', 'Delphine', 'Emrys', 'Florence', 'Gideon', 'Hester', 'Ivo',
+  'Juno', 'Kasimir', 'Liesel', 'Mabon', 'Nerys', 'Orla', 'Perpetua', 'Quentin', 'Rosalind', 'Silas',
+  'Tamsin', 'Ulric', 'Verity', 'Wystan', 'Xanthe', 'Yorick', 'Zinnia', 'Bronwen', 'Lorcan', 'Maud',
+]
+const CROWD_LAST_NAMES = [
+  'Abernethy', 'Blackthorn', 'Cresswell', 'Dunstable', 'Elderkin', 'Fairbairn', 'Gorseway', 'Hawthorne', 'Ingleby', 'Juniper',
+  'Kettlewell', 'Larkspur', 'Mallowby', 'Nettlefold', 'Oakhurst', 'Pennyroyal', 'Quarrington', 'Rushbrook', 'Sallowfield', 'Thistlewood',
+  'Underhay', 'Vetchley', 'Willowmere', 'Yarrowby', 'Ashcombe', 'Brackenridge', 'Cloverdale', 'Dimmock', 'Fernleigh', 'Heathcote',
+]
+const CROWD_DOMAINS = ['quilters.example', 'sewing-circle.example', 'patchwork-guild.example', 'thimble.example']
+
+/**
+ * The generated crowd: person `i` pairs first name `i mod 30` with last name `(i div 30 + i) mod 30`,
+ * so no pair repeats in 300. Every sixth has not verified their address, every twentieth tests
+ * patterns; they joined one every two days, most recent first.
+ *
+ * @example demoCrowd()[1].email // 'anselm.blackthorn@sewing-circle.example'
+ */
+export function demoCrowd(): { email: string; displayName: string; roles: Role[]; verified: boolean; joinedDaysAgo: number }[] {
+  return Array.from({ length: DEMO_CROWD_SIZE }, (_, i) => {
+    const first = CROWD_FIRST_NAMES[i % CROWD_FIRST_NAMES.length]!
+    const last = CROWD_LAST_NAMES[(Math.floor(i / CROWD_FIRST_NAMES.length) + i) % CROWD_LAST_NAMES.length]!
+    return {
+      email: `${first}.${last}@${CROWD_DOMAINS[i % CROWD_DOMAINS.length]}`.toLowerCase(),
+      displayName: `${first} ${last}`,
+      roles: i % 20 === 7 ? ['tester', 'quilter'] : ['quilter'],
+      verified: i % 6 !== 5,
+      joinedDaysAgo: 5 + i * 2,
+    }
+  })
+}
+
+/**
+ * What the admin desk's logs would already hold after this history: each entry is written when
+ * the person it concerns is created, so a second run adds none.
+ */
+const DEMO_AUDIT: readonly { target: string; action: AdminAction; details: Record<string, unknown>; daysAgo: number }[] = [
+  { target: 'tomasz@juniperthread.example', action: 'approve-designer-request', details: {}, daysAgo: 40 },
+  { target: 'priya@testers.example', action: 'grant-role', details: { role: 'tester' }, daysAgo: 30 },
+  { target: 'corentin@quilters.example', action: 'disable-account', details: {}, daysAgo: 12 },
+]
+const DEMO_MAIL: readonly { to: string; kind: MailKind; state: 'sent' | 'failed'; daysAgo: number; lastError?: string }[] = [
+  { to: 'tomasz@juniperthread.example', kind: 'designer-request-decided', state: 'sent', daysAgo: 40 },
+  { to: 'bastien@quilters.example', kind: 'verify-email', state: 'sent', daysAgo: 2 },
+  // A message the receiving server refused every time: how a failure looks in the mail log.
+  { to: 'corentin@quilters.example', kind: 'password-reset', state: 'failed', daysAgo: 13, lastError: '550 5.1.1 The recipient’s mailbox is unavailable' },
+]
+
+const daysAgo = (days: number, now = Date.now()) => new Date(now - days * 24 * 60 * 60 * 1000)
 
 const cos = (degrees: number) => Math.cos((degrees * Math.PI) / 180)
 const sin = (degrees: number) => Math.sin((degrees * Math.PI) / 180)
@@ -154,6 +242,27 @@ export const DEMO_PATTERNS: readonly { owner: string; state: PatternState; desig
   },
 ]
 
+/** Creates the generated crowd's missing members in one insert; returns how many were added. */
+async function seedCrowd(passwordHash: string, transaction: Transaction): Promise<number> {
+  const crowd = demoCrowd()
+  const existing = await User.findAll({ where: { email: { [Op.in]: crowd.map((person) => person.email) } }, attributes: ['email'], transaction })
+  const taken = new Set(existing.map((user) => user.email))
+  const now = Date.now()
+  const missing = crowd
+    .filter((person) => !taken.has(person.email))
+    .map((person) => ({
+      email: person.email,
+      displayName: person.displayName,
+      roles: person.roles,
+      passwordHash,
+      emailVerifiedAt: person.verified ? daysAgo(person.joinedDaysAgo, now) : null,
+      designerRequestedAt: null,
+      createdAt: daysAgo(person.joinedDaysAgo, now),
+    }))
+  await User.bulkCreate(missing, { transaction })
+  return missing.length
+}
+
 /** Loads the demo people and patterns into the database named by DATABASE_URL; safe to repeat. */
 export async function seedDemoData(): Promise<{ people: number; patterns: number }> {
   const sequelize = database()
@@ -162,24 +271,65 @@ export async function seedDemoData(): Promise<{ people: number; patterns: number
   let patterns = 0
   await sequelize.transaction(async (transaction) => {
     const owners = new Map<string, User>()
-    for (const person of DEMO_PEOPLE) {
-      const [user, created] = await User.findOrCreate({
+    const created = new Set<string>()
+    for (const person of [...DEMO_PEOPLE, ...DEMO_PEOPLE_IN_STATES]) {
+      const [user, isNew] = await User.findOrCreate({
         where: { email: person.email },
-        defaults: { email: person.email, displayName: person.displayName, roles: person.roles, passwordHash, emailVerifiedAt: new Date(), designerRequestedAt: null },
+        defaults: {
+          email: person.email,
+          displayName: person.displayName,
+          roles: person.roles,
+          passwordHash,
+          emailVerifiedAt: person.unverified ? null : daysAgo(60),
+          designerRequestedAt: person.designerRequestedDaysAgo === undefined ? null : daysAgo(person.designerRequestedDaysAgo),
+          disabledAt: person.disabledDaysAgo === undefined ? null : daysAgo(person.disabledDaysAgo),
+          createdAt: daysAgo(60),
+        },
         transaction,
       })
-      if (created) people += 1
+      if (isNew) {
+        people += 1
+        created.add(person.email)
+      }
       owners.set(person.email, user)
     }
+    people += await seedCrowd(passwordHash, transaction)
+
+    const admin = owners.get(DEMO_PEOPLE[0]!.email)!
+    const label = (user: User) => `${user.displayName} <${user.email}>`
+    for (const entry of DEMO_AUDIT.filter((entry) => created.has(entry.target))) {
+      const target = owners.get(entry.target)!
+      await AdminAuditEntry.create(
+        { actorId: admin.id, actorLabel: label(admin), action: entry.action, targetId: target.id, targetLabel: label(target), details: entry.details, createdAt: daysAgo(entry.daysAgo) },
+        { transaction },
+      )
+    }
+    for (const mail of DEMO_MAIL.filter((mail) => created.has(mail.to))) {
+      const at = daysAgo(mail.daysAgo)
+      await OutgoingMail.create(
+        {
+          toAddress: mail.to,
+          kind: mail.kind,
+          state: mail.state,
+          attempts: mail.state === 'sent' ? 1 : 7,
+          lastError: mail.lastError ?? null,
+          userId: owners.get(mail.to)!.id,
+          createdAt: at,
+          sentAt: mail.state === 'sent' ? at : null,
+        },
+        { transaction },
+      )
+    }
+
     for (const demo of DEMO_PATTERNS) {
       const design = designFileSchema.parse(demo.design)
       const owner = owners.get(demo.owner)!
-      const [pattern, created] = await Pattern.findOrCreate({
+      const [pattern, isNew] = await Pattern.findOrCreate({
         where: { ownerId: owner.id, name: design.name },
         defaults: { ownerId: owner.id, name: design.name, state: demo.state, design, revision: 1 },
         transaction,
       })
-      if (!created) continue
+      if (!isNew) continue
       patterns += 1
       await PatternRevision.create(
         { patternId: pattern.id, revision: 1, name: pattern.name, state: pattern.state, design, savedById: owner.id },
