@@ -9,7 +9,7 @@ import { OutgoingMail } from '@/models'
 import { freePort } from '@/scripts/processes'
 import { freshDatabase } from '../support/database'
 import { createUser } from '../support/factories'
-import { caughtMails, clearMails, firstLink, waitForMail } from '../support/mail'
+import { caughtMails, clearMailQueue, clearMails, firstLink, waitForMail } from '../support/mail'
 
 const TOKEN = 'S3cretT0ken-do-not-log'
 const verifyUrl = `http://127.0.0.1:3000/verify-email?token=${TOKEN}`
@@ -56,6 +56,7 @@ async function eventually(check: () => Promise<void>, timeoutMs = 20_000): Promi
 beforeEach(async () => {
   await freshDatabase()
   await clearMails()
+  await clearMailQueue()
 })
 afterEach(async () => {
   await stopMailWorker()

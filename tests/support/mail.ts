@@ -1,6 +1,8 @@
+import { QueryTypes } from 'sequelize'
 import { afterAll, beforeAll } from 'vitest'
+import { database } from '@/lib/db'
 import type { MailKind } from '@/lib/mail/kinds'
-import { closeMailQueue } from '@/lib/mail/queue'
+import { closeMailQueue, QUEUE_SCHEMA } from '@/lib/mail/queue'
 import { KIND_HEADER, startMailWorker, stopMailWorker } from '@/lib/mail/worker'
 
 /**
@@ -8,6 +10,7 @@ import { KIND_HEADER, startMailWorker, stopMailWorker } from '@/lib/mail/worker'
  * starts it and sets MAIL_CATCHER_URL for the integration and the end-to-end tests).
  *
  *   useMailWorker()                                   // integration tests: a worker in this process
+ *   beforeEach(() => Promise.all([clearMails(), clearMailQueue()]))   // start from no message at all
  *   const mail = await waitForMail({ to: 'ada@example.com', kind: 'verify-email' })
  *   const link = firstLink(mail, '/verify-email')     // 'http://127.0.0.1:…/verify-email?token=…'
  */
@@ -117,4 +120,16 @@ export function useMailWorker(): void {
     await stopMailWorker()
     await closeMailQueue()
   })
+}
+
+/**
+ * Forgets every message still waiting in the queue (freshDatabase empties the mail log but not
+ * pg-boss's tables), so a worker started later does not send another test's messages.
+ */
+export async function clearMailQueue(): Promise<void> {
+  const [row] = await database().query<{ present: boolean }>('SELECT to_regclass(:table) IS NOT NULL AS present', {
+    replacements: { table: `${QUEUE_SCHEMA}.job` },
+    type: QueryTypes.SELECT,
+  })
+  if (row?.present) await database().query(`DELETE FROM ${QUEUE_SCHEMA}.job WHERE name = 'mail'`)
 }
