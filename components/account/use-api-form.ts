@@ -7,9 +7,15 @@ import { errorsByField } from '@/lib/form-errors'
 
 /**
  * A form that checks its values with the same zod schema as the server, posts them as JSON and
- * shows the server's message and field errors. `onDone` runs after a successful answer.
+ * shows the server's message and field errors. `onDone` runs after a successful answer, with the
+ * values sent and the server's answer. `method` is POST unless given.
  */
-export function useApiForm<Schema extends z.ZodType>(schema: Schema, url: string, onDone: (values: z.output<Schema>) => void) {
+export function useApiForm<Schema extends z.ZodType>(
+  schema: Schema,
+  url: string,
+  onDone: (values: z.output<Schema>, answer: Record<string, unknown>) => void,
+  method = 'POST',
+) {
   const [errors, setErrors] = useState<Record<string, string>>({})
   const [message, setMessage] = useState<string | null>(null)
   const [busy, setBusy] = useState(false)
@@ -21,8 +27,9 @@ export function useApiForm<Schema extends z.ZodType>(schema: Schema, url: string
     setMessage(null)
     setBusy(true)
     try {
-      await apiFetch(url, { method: 'POST', json: parsed.data })
-      onDone(parsed.data)
+      const answer = await apiFetch<Record<string, unknown>>(url, { method, json: parsed.data })
+      setBusy(false)
+      onDone(parsed.data, answer ?? {})
     } catch (error) {
       setBusy(false)
       if (error instanceof ApiError) {
