@@ -7,7 +7,7 @@ import { fabricRoleInWords } from '@/geometry/fabric-requirements'
 import { getJsonOf } from '@/lib/api-client'
 import type { BoardDesign } from '@/lib/board/commands'
 import type { BoardStore } from '@/lib/board/store'
-import { uploadViewSchema } from '@/lib/schemas/upload'
+import { uploadListAnswerSchema, uploadViewSchema, type UploadView } from '@/lib/schemas/upload'
 import { sendImage, tooLarge } from './upload-image'
 
 type Colorway = BoardDesign['colorways'][number]
@@ -17,6 +17,8 @@ const button = 'rounded border border-stone-300 px-2 py-1 text-xs hover:bg-linen
 /** `GET /api/uploads/<id>/palette`: the colours proposed when the photo was uploaded. */
 const paletteAnswerSchema = z.object({ palette: uploadViewSchema.shape.palette })
 const paletteUrl = (upload: string) => `/api/uploads/${upload}/palette`
+/** The designer's own theme photos, newest first (at most 20). */
+const LIST_URL = '/api/uploads?kind=fabric-photo'
 
 /**
  * "Theme fabric photo" of the colourway shown: the designer uploads a photo of the fabric that
@@ -25,7 +27,8 @@ const paletteUrl = (upload: string) => `/api/uploads/${upload}/palette`
  * `setThemePhoto`: undoable and saved like any change), so another colourway or another pattern
  * shows its own, or none. Choosing a swatch, then a fabric, makes that the fabric's colour in the
  * colourway (`setFabricColour`, one undoable step). A photo that can no longer be read (deleted,
- * or someone else's in an imported file) shows nothing. Give it `key={colorway.name}` so a
+ * or someone else's in an imported file) shows nothing. "Your earlier photos" lists the designer's
+ * own to pick one again without uploading it. Give it `key={colorway.name}` so a
  * half-made choice does not follow to another colourway.
  */
 export function ThemePhoto({ store, colorway }: { store: BoardStore; colorway: Colorway | undefined }) {
@@ -56,6 +59,7 @@ export function ThemePhoto({ store, colorway }: { store: BoardStore; colorway: C
       // The answer carries the palette: no need to ask for it again.
       await mutate(paletteUrl(stored.id), { palette: stored.palette }, { revalidate: false })
       store.run('setThemePhoto', { colorway: colorway.name, upload: stored.id })
+      void mutate(LIST_URL)
     } catch (failure) {
       setError((failure as Error).message)
     } finally {
@@ -68,6 +72,15 @@ export function ThemePhoto({ store, colorway }: { store: BoardStore; colorway: C
     store.run('setFabricColour', { colorway: colorway.name, fabric, colour: chosen })
     setDone(`${name} is now ${chosen} in ${colorway.name}.`)
     setChosen(null)
+  }
+
+  async function pick(upload: UploadView) {
+    if (!colorway) return
+    setError(null)
+    setChosen(null)
+    setDone(null)
+    await mutate(paletteUrl(upload.id), { palette: upload.palette }, { revalidate: false })
+    store.run('setThemePhoto', { colorway: colorway.name, upload: upload.id })
   }
 
   function remove() {
@@ -139,6 +152,7 @@ export function ThemePhoto({ store, colorway }: { store: BoardStore; colorway: C
           <p className="text-[11px] text-stone-500">A photo of the fabric {colorway ? `the ${colorway.name} colourway` : 'a colourway'} starts from proposes its colours.</p>
         )
       )}
+      {progress === null && colorway && <EarlierPhotos current={shown} onPick={pick} />}
       {chosen && (
         <div className="space-y-1" role="group" aria-label={`Use ${chosen} for a fabric`}>
           <p className="text-[11px] text-stone-600">
@@ -159,5 +173,44 @@ export function ThemePhoto({ store, colorway }: { store: BoardStore; colorway: C
         </p>
       )}
     </div>
+  )
+}
+
+/**
+ * The designer's earlier theme photos, to start another colourway (or pattern) from one of them
+ * without uploading it again. Asked for only when opened.
+ */
+function EarlierPhotos({ current, onPick }: { current: string | null; onPick: (upload: UploadView) => void }) {
+  const [open, setOpen] = useState(false)
+  const { data, error } = useSWR(open ? LIST_URL : null, getJsonOf(uploadListAnswerSchema))
+  const earlier = (data?.uploads ?? []).filter((upload) => upload.id !== current)
+  return (
+    <details onToggle={(event) => setOpen(event.currentTarget.open)} className="text-[11px] text-stone-600">
+      <summary className="cursor-pointer">Your earlier photos</summary>
+      {error ? (
+        <p role="alert" className="mt-1 text-madder-700">Your photos could not be listed: {(error as Error).message}</p>
+      ) : !data ? (
+        open && <p className="mt-1 text-stone-500">Looking…</p>
+      ) : earlier.length === 0 ? (
+        <p className="mt-1 text-stone-500">No other photos yet.</p>
+      ) : (
+        <ul className="mt-1 grid grid-cols-4 gap-1" aria-label="Your earlier theme photos">
+          {earlier.map((upload) => (
+            <li key={upload.id}>
+              <button
+                type="button"
+                data-upload={upload.id}
+                onClick={() => onPick(upload)}
+                aria-label={`Use the photo uploaded ${new Date(upload.createdAt).toLocaleString()}`}
+                className="block w-full overflow-hidden rounded border border-stone-300 hover:ring-2 hover:ring-thread-600"
+              >
+                {/* eslint-disable-next-line @next/next/no-img-element -- a private upload served by the API to its owner, not a file to optimise */}
+                <img src={upload.url} alt="" className="h-10 w-full object-cover" />
+              </button>
+            </li>
+          ))}
+        </ul>
+      )}
+    </details>
   )
 }

@@ -148,6 +148,13 @@ describe('a theme-fabric photo on the drafting board', () => {
     await panel().waitFor()
     expect(await shownPhoto()).toBe(null)
     expect(await panel().getByRole('img').count()).toBe(0)
+    // Unless the designer picks one of her earlier photos for it: newest first, no upload again.
+    await panel().getByText('Your earlier photos').click()
+    const earlier = panel().getByRole('list', { name: 'Your earlier theme photos' }).getByRole('button')
+    await expect.poll(() => earlier.first().getAttribute('data-upload')).toBe(second)
+    await earlier.first().click()
+    await expect.poll(themePhotos).toEqual([second])
+    await expect.poll(shownPalette).toEqual([...OTHER_STRIPES].sort())
     expect(pageErrors).toEqual([])
   })
 
