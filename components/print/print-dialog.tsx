@@ -65,6 +65,12 @@ export function PrintDialog({ name, design }: { name: string; design: DesignFile
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [swatchSources])
   const swatchImages = swatches?.sources === swatchSources ? swatches.images : undefined
+  const swatchCount = (JSON.parse(swatchSources) as unknown[]).length
+  const swatchNote = swatchCount === 0
+    ? null
+    : !swatchImages
+      ? 'Loading the swatch images of this colourway…'
+      : swatchNoteCount(Object.keys(swatchImages).length, swatchCount)
   const preview = useBookletPreview(parsed.ok ? parsed.design : null, options.ok ? options.options : null, problem, swatchImages)
   const ready = preview.kind === 'built' && options.ok && preview.booklet.key === optionsKey(options.options, swatchImages) ? preview.booklet : null
 
@@ -124,6 +130,7 @@ export function PrintDialog({ name, design }: { name: string; design: DesignFile
               </option>
             ))}
           </select>
+          {swatchNote && <p className="text-xs text-stone-500" data-testid="print-swatches">{swatchNote}</p>}
         </div>
 
         <div className="flex flex-col gap-1">
@@ -208,4 +215,15 @@ export function PrintDialog({ name, design }: { name: string; design: DesignFile
       <BookletPreview state={preview} current={ready !== null} />
     </div>
   )
+}
+
+/**
+ * What the dialog says about the swatch images it got.
+ *
+ * @example swatchNoteCount(2, 3) // '2 of 3 swatch images shown beside the fabric colours; the other shows its colour only.'
+ */
+function swatchNoteCount(loaded: number, wanted: number): string {
+  if (loaded === wanted) return `${wanted === 1 ? 'The swatch image is' : `All ${wanted} swatch images are`} shown beside the fabric colours.`
+  const missing = wanted - loaded
+  return `${loaded} of ${wanted} swatch images shown beside the fabric colours; the other${missing === 1 ? ' shows its' : 's show their'} colour only.`
 }

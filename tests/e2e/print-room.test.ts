@@ -2,7 +2,7 @@ import fs from 'node:fs'
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { planDesign } from '@/geometry'
-import { allText, openPdf, pageSizes } from '@/lib/booklet/test-support/read-pdf'
+import { allText, openPdf, pageImages, pageSizes } from '@/lib/booklet/test-support/read-pdf'
 import { parseDesign } from '@/lib/schemas/design'
 import { DEMO_PASSWORD } from '@/scripts/demo-data'
 import { baseUrl, launchBrowser, signInThroughPage } from '../support/browser'
@@ -108,6 +108,62 @@ describe('the print room', () => {
     const file = fs.readFileSync(await (await download).path())
     expect((await openPdf(new Uint8Array(file))).numPages).toBe(tabloid.thumbnails)
     expect(String(file.length)).toBe(await page.getByTestId('print-preview').getAttribute('data-booklet-bytes'))
+    expect(pageErrors).toEqual([])
+    await context.close()
+  })
+
+  it('works the fabric amounts out for the width of fabric and extra typed, and shows a colourway’s swatch image in the booklet', async () => {
+    const context = await browser.newContext({ viewport: { width: 1280, height: 900 }, acceptDownloads: true })
+    const page = await context.newPage()
+    const pageErrors: string[] = []
+    page.on('pageerror', (error) => pageErrors.push(String(error)))
+    await signInThroughPage(page, 'marguerite@bramblelane.example', DEMO_PASSWORD)
+    await page.goto(`${baseUrl()}/patterns`)
+    await page.getByRole('link', { name: 'Hollyberry Wreath' }).click()
+    await page.waitForURL(/\/patterns\/[^/]+$/)
+    const wreathId = new URL(page.url()).pathname.split('/')[2]!
+    // A copy of the wreath whose first colourway's background has a swatch: a 32 × 24 px image
+    // uploaded through the app, as the fabric panel does (the copy keeps the demo pattern as it is).
+    const copyId = await page.evaluate(async (id) => {
+      const canvas = document.createElement('canvas')
+      canvas.width = 32
+      canvas.height = 24
+      const drawing = canvas.getContext('2d')!
+      drawing.fillStyle = '#7b2d26'
+      drawing.fillRect(0, 0, 32, 24)
+      const png = await new Promise<Blob>((resolve) => canvas.toBlob((blob) => resolve(blob!), 'image/png'))
+      const uploaded = await fetch('/api/uploads?kind=swatch', { method: 'POST', headers: { 'content-type': 'image/png' }, body: png })
+      if (uploaded.status !== 201) throw new Error(`the swatch was refused: ${uploaded.status} ${await uploaded.text()}`)
+      const swatch = ((await uploaded.json()) as { upload: { id: string } }).upload.id
+      const saved = await fetch(`/api/patterns/${id}`)
+      if (!saved.ok) throw new Error(`the wreath could not be read: ${saved.status}`)
+      const { pattern } = await saved.json()
+      const design = pattern.design
+      design.colorways[0].fabrics.background.swatch = swatch
+      const created = await fetch('/api/patterns', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ name: 'Hollyberry swatch proof', design }) })
+      if (created.status !== 201) throw new Error(`the copy was refused: ${created.status} ${await created.text()}`)
+      return ((await created.json()) as { pattern: { id: string } }).pattern.id
+    }, wreathId)
+    await page.goto(`${baseUrl()}/patterns/${copyId}/print`)
+    await expect.poll(() => page.getByTestId('print-swatches').textContent(), { timeout: 15_000 }).toBe('The swatch image is shown beside the fabric colours.')
+
+    // The demo wreath is drafted in inches: 20 in usable width, no extra.
+    await page.getByLabel(/Usable width of fabric \(in\)/).fill('9')
+    await expect.poll(() => page.locator('#print-status').textContent()).toContain('The usable width of fabric must be between 10 and 120 in.')
+    await page.getByLabel(/Usable width of fabric \(in\)/).fill('20')
+    await page.getByLabel('Extra (%)').fill('0')
+    await previewWhenReady(page)
+    const download = page.waitForEvent('download')
+    await page.getByRole('button', { name: /Download PDF/ }).click()
+    const pdf = await openPdf(new Uint8Array(fs.readFileSync(await (await download).path())))
+    const text = await allText(pdf)
+    // 20 in = 50.8 cm (1 in = 2.54 cm exactly).
+    expect(text).toContain('Yardage for 20 in (50.8 cm) usable width of fabric, 0 % extra')
+    expect(text).toContain('Strips cut across a 20 in usable width of fabric')
+    // The swatch is drawn on the fabric page (twice: what to buy, cutting list) and on the cutting diagrams (once).
+    let images = 0
+    for (let number = 1; number <= pdf.numPages; number += 1) images += (await pageImages(pdf, number)).length
+    expect(images).toBe(3)
     expect(pageErrors).toEqual([])
     await context.close()
   })
