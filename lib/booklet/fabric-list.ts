@@ -1,8 +1,7 @@
 /**
  * The cutting list by fabric, from the plan's rough-cut pieces, the leaves, berries, stem ring and
- * binding.
- * A stand-in until the fabric-math issue lands (yardage, fat quarters): it says what to cut,
- * not how much fabric to buy.
+ * binding: what to cut, piece by piece. How much of each fabric to buy is the core's
+ * `fabricRequirements` (the fabric page's "What to buy", lib/booklet/cover.ts).
  */
 import { berryCutDiameterInches, leafLayers, stemStrip } from '@/geometry'
 import { formatInches } from '@/lib/units'
