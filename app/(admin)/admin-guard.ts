@@ -1,6 +1,7 @@
 import 'server-only'
+import type { Metadata } from 'next'
 import { notFound } from 'next/navigation'
-import { requireUser } from '@/lib/auth/current-user'
+import { getCurrentUser, requireUser } from '@/lib/auth/current-user'
 import { can, type Action } from '@/lib/authorization'
 import type { CurrentUser } from '@/lib/auth/session'
 
@@ -15,4 +16,12 @@ export async function requireAdmin(action: DeskAction): Promise<CurrentUser> {
   const user = await requireUser()
   if (!can(user, action)) notFound()
   return user
+}
+
+/**
+ * A desk page's title, for admins only: Next.js resolves a page's metadata even when its layout
+ * answers not-found, and a title such as "Audit log" would tell others the page exists.
+ */
+export async function deskTitle(title: string): Promise<Metadata> {
+  return can(await getCurrentUser(), 'manage-users') ? { title: `${title} · Admin desk` } : {}
 }

@@ -3,9 +3,9 @@ import { auditWords } from '@/components/admin/audit-words'
 import { Pager } from '@/components/admin/pager'
 import { pageNumber } from '@/components/admin/page-number'
 import { listAuditEntries } from '@/lib/services/admin'
-import { requireAdmin } from '../../admin-guard'
+import { deskTitle, requireAdmin } from '../../admin-guard'
 
-export const metadata: Metadata = { title: 'Audit log · Admin desk' }
+export const generateMetadata = (): Promise<Metadata> => deskTitle('Audit log')
 
 /** Every admin action, newest first. Nobody can change or remove an entry: the database refuses it. */
 export default async function AuditLogPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {

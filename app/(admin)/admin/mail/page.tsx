@@ -2,9 +2,9 @@ import type { Metadata } from 'next'
 import { Pager } from '@/components/admin/pager'
 import { pageNumber } from '@/components/admin/page-number'
 import { listOutgoingMail } from '@/lib/services/admin'
-import { requireAdmin } from '../../admin-guard'
+import { deskTitle, requireAdmin } from '../../admin-guard'
 
-export const metadata: Metadata = { title: 'Mail log · Admin desk' }
+export const generateMetadata = (): Promise<Metadata> => deskTitle('Mail log')
 
 /** The outgoing mail: to whom, what kind, where it stands. The messages themselves are not shown (their links may be secrets). */
 export default async function MailLogPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {

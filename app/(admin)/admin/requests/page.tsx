@@ -4,9 +4,9 @@ import { pageNumber } from '@/components/admin/page-number'
 import { RequestDecision } from '@/components/admin/request-decision'
 import { UserState } from '@/components/admin/user-state'
 import { listDesignerRequests } from '@/lib/services/admin'
-import { requireAdmin } from '../../admin-guard'
+import { deskTitle, requireAdmin } from '../../admin-guard'
 
-export const metadata: Metadata = { title: 'Designer requests · Admin desk' }
+export const generateMetadata = (): Promise<Metadata> => deskTitle('Designer requests')
 
 export default async function DesignerRequestsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const admin = await requireAdmin('decide-designer-requests')

@@ -5,9 +5,9 @@ import { UserActions } from '@/components/admin/user-actions'
 import { UserState } from '@/components/admin/user-state'
 import { userListQuerySchema, type UserListQuery, type UserSort } from '@/lib/schemas/admin'
 import { listUsers } from '@/lib/services/admin'
-import { requireAdmin } from '../../admin-guard'
+import { deskTitle, requireAdmin } from '../../admin-guard'
 
-export const metadata: Metadata = { title: 'People · Admin desk' }
+export const generateMetadata = (): Promise<Metadata> => deskTitle('People')
 
 type SearchParams = Promise<Record<string, string | string[] | undefined>>
 
