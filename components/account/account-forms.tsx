@@ -44,7 +44,7 @@ export function DisplayNameForm({ displayName }: { displayName: string }) {
     void submit({ displayName: new FormData(event.currentTarget).get('displayName') })
   }
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Your name">
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3">
       <Field id="displayName" name="displayName" label="Your name" autoComplete="name" defaultValue={displayName} error={errors.displayName} />
       <Outcome message={message} note={note} />
       <button type="submit" disabled={busy} className={buttonClass}>
@@ -66,7 +66,7 @@ export function EmailChangeForm({ email }: { email: string }) {
     void submit({ newEmail: form.get('newEmail'), currentPassword: form.get('currentPassword') })
   }
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="E-mail address">
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3">
       <p className="text-sm text-stone-600">
         Now: <strong>{email}</strong>
       </p>
@@ -96,7 +96,7 @@ export function PasswordChangeForm() {
     void submit({ currentPassword: data.get('currentPassword'), newPassword: data.get('newPassword') }).then(() => form.reset())
   }
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Password">
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3">
       <Field id="currentPassword" name="currentPassword" type="password" label="Current password" autoComplete="current-password" error={errors.currentPassword} />
       <Field id="newPassword" name="newPassword" type="password" label="New password (at least 10 characters)" autoComplete="new-password" error={errors.newPassword} />
       <Outcome message={message} note={note} />

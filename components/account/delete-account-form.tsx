@@ -24,7 +24,7 @@ export function DeleteAccountForm({ isDesigner }: { isDesigner: boolean }) {
     void submit({ currentPassword: form.get('currentPassword'), confirm: form.get('confirm') })
   }
   return (
-    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3" aria-label="Delete the account">
+    <form onSubmit={onSubmit} noValidate className="flex flex-col gap-3">
       <p className="text-sm text-stone-700">
         This deletes your account, your sessions and your uploaded images at once; it cannot be undone.
         {isDesigner &&

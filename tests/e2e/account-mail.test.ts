@@ -34,6 +34,7 @@ describe('an account from sign-up to a forgotten password, by e-mail', () => {
 
     await page.goto(`${baseUrl()}/sign-in`)
     await page.getByRole('link', { name: 'Forgot your password?' }).click()
+    await page.getByRole('heading', { name: 'Forgotten password' }).waitFor()
     await page.getByLabel('E-mail address').fill(person.email)
     await page.getByRole('button', { name: 'Send me a link' }).click()
     await page.getByText('we sent it a link to choose a new password', { exact: false }).waitFor()
