@@ -11,7 +11,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { fabricRequirements, planDesign } from '@/geometry'
 import { parseDesign } from '@/lib/schemas/design'
 import { DEMO_PASSWORD } from '@/scripts/demo-data'
-import { boardDesign } from '../support/board'
+import { boardDesign, createPatternFromPage } from '../support/board'
 import { baseUrl, launchBrowser, signInThroughPage } from '../support/browser'
 
 let browser: Browser
@@ -60,10 +60,7 @@ describe('a colourway from the board to the fabric page', () => {
     page.on('pageerror', (error) => pageErrors.push(String(error)))
     await signInThroughPage(page, 'tomasz@juniperthread.example', DEMO_PASSWORD)
     const name = `Journey ${Date.now()}`
-    const id = await page.evaluate(async (design) => {
-      const response = await fetch('/api/patterns', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ name: design.name, design }) })
-      return ((await response.json()) as { pattern: { id: string } }).pattern.id
-    }, bandedRing(name))
+    const id = await createPatternFromPage(page, name, bandedRing(name))
 
     // On the board: a copy of the colourway, its two fabrics renamed.
     await page.goto(`${baseUrl()}/patterns/${id}/board`)

@@ -8,7 +8,7 @@ import type { Browser } from 'playwright-core'
 import sharp from 'sharp'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { DEMO_PASSWORD } from '@/scripts/demo-data'
-import { boardDesign } from '../support/board'
+import { boardDesign, createPatternFromPage } from '../support/board'
 import { baseUrl, launchBrowser, signInThroughPage } from '../support/browser'
 
 let browser: Browser
@@ -55,10 +55,7 @@ describe('swatch images', () => {
     page.on('pageerror', (error) => pageErrors.push(String(error)))
     await signInThroughPage(page, 'tomasz@juniperthread.example', DEMO_PASSWORD)
     const name = `Swatches ${Date.now()}`
-    const id = await page.evaluate(async (body) => {
-      const response = await fetch('/api/patterns', { method: 'POST', headers: { 'content-type': 'application/json' }, body })
-      return ((await response.json()) as { pattern: { id: string } }).pattern.id
-    }, JSON.stringify({ name, design: bandedRing(name) }))
+    const id = await createPatternFromPage(page, name, bandedRing(name))
 
     await page.goto(`${baseUrl()}/patterns/${id}/board`)
     await page.getByTestId('plan-panel').waitFor()

@@ -163,10 +163,7 @@ describe('a theme-fabric photo on the drafting board', () => {
     const missing = '00000000-0000-4000-8000-000000000000'
     const name = `Lost theme photo ${Date.now()}`
     const design = { ...emptyDesign(name), colorways: [{ name: 'Main', fabrics: { background: { name: 'Background', color: '#f4ecd8' } }, themePhoto: missing }] }
-    const id = await page.evaluate(async (body) => {
-      const response = await fetch('/api/patterns', { method: 'POST', headers: { 'content-type': 'application/json' }, body })
-      return ((await response.json()) as { pattern: { id: string } }).pattern.id
-    }, JSON.stringify({ name, design }))
+    const id = await createPatternFromPage(page, name, design)
     await page.goto(`${baseUrl()}/patterns/${id}/board`)
     await panel().waitFor()
     expect(await themePhotos()).toEqual([missing])

@@ -34,15 +34,14 @@ export function boardDesign(page: Page) {
   return page.evaluate(() => window.wreathwrightBoard!.getState().history.present)
 }
 
-/** Creates a pattern through the API, from the signed-in page, and returns its id. */
-export async function createPatternFromPage(page: Page, name: string): Promise<string> {
-  return page.evaluate(async (patternName) => {
-    const response = await fetch('/api/patterns', {
-      method: 'POST',
-      headers: { 'content-type': 'application/json' },
-      body: JSON.stringify({ name: patternName }),
-    })
-    const body = (await response.json()) as { pattern: { id: string } }
-    return body.pattern.id
-  }, name)
+/**
+ * Creates a pattern through the API, from the signed-in page, and returns its id: an empty ring,
+ * or the design given (sent as text, so any JSON goes, even what the schema will refuse).
+ */
+export async function createPatternFromPage(page: Page, name: string, design?: unknown): Promise<string> {
+  return page.evaluate(async (body) => {
+    const response = await fetch('/api/patterns', { method: 'POST', headers: { 'content-type': 'application/json' }, body })
+    const answer = (await response.json()) as { pattern: { id: string } }
+    return answer.pattern.id
+  }, JSON.stringify(design === undefined ? { name } : { name, design }))
 }
