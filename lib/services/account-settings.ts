@@ -13,6 +13,7 @@ import type { Role } from '@/lib/roles'
 import type { EmailChangeInput, PasswordChangeInput } from '@/lib/schemas/account'
 import { Pattern, Session, User } from '@/models'
 import { appLink, LINK_PATHS } from './accounts'
+import { removeUploadsOf } from './uploads'
 
 /**
  * The account page: one's name, address, password, sessions, and leaving. Every function acts
@@ -159,6 +160,9 @@ export async function endOtherSessions(actor: CurrentUser, currentSessionId: str
 export async function deleteAccount(actor: CurrentUser, currentPassword: string): Promise<{ readonly clearedCookie: string }> {
   const user = await loadUser(actor)
   await requirePassword(user, currentPassword)
+  // First, while the row still names them: the images in the object store (the foreign key would
+  // remove only their rows).
+  await removeUploadsOf(user.id)
   await database().transaction(async (transaction) => {
     await Pattern.destroy({ where: { ownerId: user.id, state: ['draft', 'testing'] }, transaction })
     await user.destroy({ transaction })

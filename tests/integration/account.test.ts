@@ -8,8 +8,9 @@ import { POST as endOtherSessions } from '@/app/api/account/sessions/end-others/
 import { POST as signIn } from '@/app/api/auth/sign-in/route'
 import { GET as listPatterns } from '@/app/api/patterns/route'
 import { PEER_ADDRESS_HEADER } from '@/lib/client-address'
+import { getObject, objectKey, putObject } from '@/lib/object-store'
 import { EMAIL_CHANGE_ANSWER } from '@/lib/services/account-settings'
-import { OutgoingMail, Pattern, PatternRevision, Session, User } from '@/models'
+import { OutgoingMail, Pattern, PatternRevision, Session, Upload, User } from '@/models'
 import { closeDatabase, freshDatabase } from '../support/database'
 import { createPatternRow, createUser, TEST_PASSWORD } from '../support/factories'
 import { firstLink, useMailWorker, waitForMail } from '../support/mail'
@@ -146,13 +147,16 @@ describe('changing the password', () => {
 })
 
 describe('deleting the account', () => {
-  it('needs the password and DELETE; removes drafts and testing patterns, keeps published and retired ones without an owner', async () => {
+  it('needs the password and DELETE; removes uploads and drafts and testing patterns, keeps published and retired ones without an owner', async () => {
     const designer = await createUser({ email: freshAddress('ada'), roles: ['designer'] })
     const cookie = await signInFrom(designer.email, FIREFOX)
     const draft = await createPatternRow(designer, { name: 'Draft', state: 'draft' })
     const testing = await createPatternRow(designer, { name: 'Testing', state: 'testing' })
     const published = await createPatternRow(designer, { name: 'Published', state: 'published' })
     const retired = await createPatternRow(designer, { name: 'Retired', state: 'retired' })
+    const key = objectKey(`account-test-${randomUUID()}.png`)
+    await putObject(key, new Uint8Array([1, 2, 3]), 'image/png')
+    await Upload.create({ ownerId: designer.id, kind: 'swatch', key, contentType: 'image/png', width: 1, height: 1, bytes: 3, palette: null })
 
     const unconfirmed = await call(deleteAccount, { method: 'DELETE', cookie, body: { currentPassword: TEST_PASSWORD, confirm: 'delete' } })
     expect(unconfirmed.status).toBe(422)
@@ -164,6 +168,8 @@ describe('deleting the account', () => {
     expect(deleted.status).toBe(200)
     expect(deleted.headers.get('set-cookie')).toMatch(/Max-Age=0/)
     expect(await User.count({ where: { id: designer.id } })).toBe(0)
+    // The image left the object store too, not only its row.
+    expect(await getObject(key)).toBeNull()
     expect(await Session.count({ where: { userId: designer.id } })).toBe(0)
     expect(await Pattern.count({ where: { id: [draft.id, testing.id] } })).toBe(0)
     const kept = await Pattern.findAll({ where: { id: [published.id, retired.id] }, order: [['name', 'ASC']] })
