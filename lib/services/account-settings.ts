@@ -9,6 +9,7 @@ import { database } from '@/lib/db'
 import { ConflictError, UnauthenticatedError, ValidationError } from '@/lib/errors'
 import { queueMail } from '@/lib/mail/outbox'
 import { requireStrongPassword } from '@/lib/password-strength'
+import { beginSignIn } from '@/lib/rate-limits'
 import type { Role } from '@/lib/roles'
 import type { EmailChangeInput, PasswordChangeInput } from '@/lib/schemas/account'
 import { Pattern, Session, User } from '@/models'
@@ -47,11 +48,22 @@ async function loadUser(actor: CurrentUser): Promise<User> {
   return user
 }
 
-/** Throws a 422 on `currentPassword` unless it is the account's password. */
-async function requirePassword(user: User, password: string): Promise<void> {
+/** Where a request of the account page comes from, for the rate limits. */
+export interface RequestContext {
+  /** The client's address (lib/client-address.ts). */
+  readonly clientAddress: string
+}
+
+/**
+ * Throws a 422 on `currentPassword` unless it is the account's password. Each try counts as a
+ * sign-in attempt (lib/rate-limits.ts), so a borrowed session cannot be used to guess the password.
+ */
+async function requirePassword(user: User, password: string, context: RequestContext): Promise<void> {
+  const attempt = await beginSignIn(user.email, context.clientAddress)
   if (!(await isPasswordCorrect(user.passwordHash, password))) {
     throw new ValidationError([{ path: 'currentPassword', message: 'That is not your current password.' }])
   }
+  await attempt.succeeded()
 }
 
 export async function getAccountOverview(actor: CurrentUser, currentSessionId: string | null): Promise<AccountOverview> {
@@ -88,9 +100,9 @@ export const EMAIL_CHANGE_ANSWER = {
  * If the new address belongs to another account, no link is sent but the answer is the same, so
  * the form cannot be used to find out who has an account.
  */
-export async function requestEmailChange(actor: CurrentUser, input: EmailChangeInput): Promise<typeof EMAIL_CHANGE_ANSWER> {
+export async function requestEmailChange(actor: CurrentUser, input: EmailChangeInput, context: RequestContext): Promise<typeof EMAIL_CHANGE_ANSWER> {
   const user = await loadUser(actor)
-  await requirePassword(user, input.currentPassword)
+  await requirePassword(user, input.currentPassword, context)
   if (input.newEmail === user.email) throw new ValidationError([{ path: 'newEmail', message: 'That is your current address already.' }])
   const taken = (await User.count({ where: { email: input.newEmail } })) > 0
   await database().transaction(async (transaction) => {
@@ -131,9 +143,14 @@ export async function confirmEmailChange(token: string): Promise<{ readonly emai
  * Changes the password (the current one is needed; the new one must pass the strength check).
  * Every other session ends; this browser stays signed in. The owner is told by e-mail.
  */
-export async function changePassword(actor: CurrentUser, currentSessionId: string | null, input: PasswordChangeInput): Promise<{ readonly endedSessions: number }> {
+export async function changePassword(
+  actor: CurrentUser,
+  currentSessionId: string | null,
+  input: PasswordChangeInput,
+  context: RequestContext,
+): Promise<{ readonly endedSessions: number }> {
   const user = await loadUser(actor)
-  await requirePassword(user, input.currentPassword)
+  await requirePassword(user, input.currentPassword, context)
   await requireStrongPassword(input.newPassword, [user.email, user.displayName], 'newPassword')
   const passwordHash = await hashPassword(input.newPassword)
   return database().transaction(async (transaction) => {
@@ -157,9 +174,9 @@ export async function endOtherSessions(actor: CurrentUser, currentSessionId: str
  * revisions it keeps forget who saved them (migration 20261202-0003).
  * Returns the Set-Cookie value that clears this browser's cookie.
  */
-export async function deleteAccount(actor: CurrentUser, currentPassword: string): Promise<{ readonly clearedCookie: string }> {
+export async function deleteAccount(actor: CurrentUser, currentPassword: string, context: RequestContext): Promise<{ readonly clearedCookie: string }> {
   const user = await loadUser(actor)
-  await requirePassword(user, currentPassword)
+  await requirePassword(user, currentPassword, context)
   // First, while the row still names them: the images in the object store (the foreign key would
   // remove only their rows).
   await removeUploadsOf(user.id)

@@ -9,6 +9,7 @@ import { POST as signIn } from '@/app/api/auth/sign-in/route'
 import { GET as listPatterns } from '@/app/api/patterns/route'
 import { PEER_ADDRESS_HEADER } from '@/lib/client-address'
 import { getObject, objectKey, putObject } from '@/lib/object-store'
+import { RATE_LIMITS } from '@/lib/rate-limits'
 import { EMAIL_CHANGE_ANSWER } from '@/lib/services/account-settings'
 import { OutgoingMail, Pattern, PatternRevision, Session, Upload, User } from '@/models'
 import { closeDatabase, freshDatabase } from '../support/database'
@@ -93,6 +94,14 @@ describe('changing the e-mail address', () => {
     expect(wrong.status).toBe(422)
     expect(wrong.json?.error.issues).toEqual([{ path: 'currentPassword', message: 'That is not your current password.' }])
     expect(await OutgoingMail.count({ where: { userId: user.id } })).toBe(0)
+  })
+
+  it('counts wrong current passwords as sign-in attempts, so a borrowed session cannot guess the password', async () => {
+    const user = await createUser({ email: freshAddress('ada') })
+    const cookie = await signInFrom(user.email, FIREFOX)
+    const attempt = () => call(requestEmailChange, { method: 'POST', cookie, body: { newEmail: freshAddress('new'), currentPassword: 'a-guess-at-it' }, headers: { [PEER_ADDRESS_HEADER]: '203.0.113.9' } })
+    for (let i = 0; i < RATE_LIMITS.signInPerAccountAndAddress.points; i++) expect((await attempt()).status).toBe(422)
+    expect((await attempt()).status).toBe(429)
   })
 
   it('changes the address only once the link sent to the new one is used, and tells the old one', async () => {

@@ -1,3 +1,4 @@
+import { requestAddress } from '@/lib/client-address'
 import { BODY_LIMITS, route } from '@/lib/http'
 import { accountDeletionSchema, displayNameChangeSchema } from '@/lib/schemas/account'
 import { changeDisplayName, deleteAccount, getAccountOverview } from '@/lib/services/account-settings'
@@ -12,7 +13,7 @@ export const PATCH = route({ bodyLimit: BODY_LIMITS.form, session: 'required', b
 )
 
 /** Deletes the account; needs the current password and `confirm: "DELETE"`. */
-export const DELETE = route({ bodyLimit: BODY_LIMITS.form, session: 'required', body: accountDeletionSchema }, async ({ user, body }) => {
-  const { clearedCookie } = await deleteAccount(user, body.currentPassword)
+export const DELETE = route({ bodyLimit: BODY_LIMITS.form, session: 'required', body: accountDeletionSchema }, async ({ request, user, body }) => {
+  const { clearedCookie } = await deleteAccount(user, body.currentPassword, { clientAddress: requestAddress(request) })
   return Response.json({ deleted: true }, { headers: { 'set-cookie': clearedCookie } })
 })
