@@ -13,7 +13,7 @@ export function DeleteAccountForm({ isDesigner }: { isDesigner: boolean }) {
     accountDeletionSchema,
     '/api/account',
     () => {
-      router.push('/?deleted=1')
+      router.push('/')
       router.refresh()
     },
     'DELETE',
