@@ -19,8 +19,20 @@ export interface UploadFacts {
 export type UploadPurpose = 'fabric-photo' | 'swatch'
 
 export interface PatternFacts {
-  readonly ownerId: string
+  /** NULL for a published or retired pattern whose designer deleted their account. */
+  readonly ownerId: string | null
   readonly state: PatternState
+  /**
+   * The people who hold an accepted, unexpired, not withdrawn invitation to test the pattern
+   * (lib/services/invitations.ts `testerIdsOf`). Left out, nobody counts as a tester: a caller that
+   * did not look them up grants no tester access.
+   */
+  readonly testerIds?: readonly string[]
+  /**
+   * The people who hold a licence to the pattern (the shop fills this in). Left out, nobody does.
+   * A licence lets its holder read and print a published or retired pattern.
+   */
+  readonly licenceHolderIds?: readonly string[]
 }
 
 type Rules = {
@@ -30,6 +42,10 @@ type Rules = {
   'update-pattern': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
   'delete-pattern': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
   'change-pattern-state': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
+  'print-pattern': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
+  'invite-testers': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
+  'test-pattern': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
+  'list-patterns-to-test': (actor: NonNullable<Actor>) => boolean
   'manage-users': (actor: NonNullable<Actor>) => boolean
   'decide-designer-requests': (actor: NonNullable<Actor>) => boolean
   'read-audit-log': (actor: NonNullable<Actor>) => boolean
@@ -46,14 +62,35 @@ const isAdmin = (actor: NonNullable<Actor>) => hasRole(actor, 'admin')
 const isOwningDesigner = (actor: NonNullable<Actor>, pattern: PatternFacts) =>
   hasRole(actor, 'designer') && pattern.ownerId === actor.id
 
+/**
+ * A tester of the pattern: an accepted, live invitation, and the pattern in testing. Invitations
+ * may be sent while it is still a draft, but testers see it only once the designer moves it to
+ * testing, and not while it is back in draft for rework.
+ */
+const isTesterOf = (actor: NonNullable<Actor>, pattern: PatternFacts) =>
+  pattern.state === 'testing' && (pattern.testerIds?.includes(actor.id) ?? false)
+/** A licence holder of a pattern that is (or was) for sale: retiring it keeps their access. */
+const isLicenceHolderOf = (actor: NonNullable<Actor>, pattern: PatternFacts) =>
+  (pattern.state === 'published' || pattern.state === 'retired') && (pattern.licenceHolderIds?.includes(actor.id) ?? false)
+
 const rules: Rules = {
   'create-pattern': (actor) => hasRole(actor, 'designer') || isAdmin(actor),
   'list-own-patterns': (actor) => hasRole(actor, 'designer') || isAdmin(actor),
-  // Testers (by invitation) and buyers (by licence) will read patterns once those features exist.
-  'read-pattern': (actor, pattern) => pattern.ownerId === actor.id || isAdmin(actor),
+  // Its owner, testers (by invitation, while it is in testing) and licence holders read a pattern.
+  'read-pattern': (actor, pattern) =>
+    pattern.ownerId === actor.id || isAdmin(actor) || isTesterOf(actor, pattern) || isLicenceHolderOf(actor, pattern),
   'update-pattern': (actor, pattern) => isOwningDesigner(actor, pattern) || isAdmin(actor),
   'delete-pattern': (actor, pattern) => isOwningDesigner(actor, pattern) || isAdmin(actor),
   'change-pattern-state': (actor, pattern) => isOwningDesigner(actor, pattern) || isAdmin(actor),
+  // Printing the booklet (the print room): the designer, testers free of charge, licence holders.
+  'print-pattern': (actor, pattern) =>
+    isOwningDesigner(actor, pattern) || isAdmin(actor) || isTesterOf(actor, pattern) || isLicenceHolderOf(actor, pattern),
+  // Inviting and withdrawing testers, and seeing who was invited (their e-mail addresses).
+  'invite-testers': (actor, pattern) => isOwningDesigner(actor, pattern) || isAdmin(actor),
+  // What only a tester does with a pattern (their booklet is marked as a test copy).
+  'test-pattern': (actor, pattern) => isTesterOf(actor, pattern),
+  // Anyone signed in has a (maybe empty) list of patterns they were invited to test.
+  'list-patterns-to-test': () => true,
   // The admin desk (app/(admin)): people's roles and accounts, designer requests, and the logs of
   // what admins did and what mail went out — admins only.
   'manage-users': (actor) => isAdmin(actor),

@@ -7,7 +7,7 @@ import {
   type Sequelize,
 } from 'sequelize'
 import { designSummary } from '@/lib/design-summary'
-import type { PatternState } from '@/lib/schemas/pattern'
+import type { PatternCurrency, PatternState } from '@/lib/schemas/pattern'
 
 /** A pattern as it stands now; every saved state of it is also kept in PatternRevision. */
 export class Pattern extends Model<InferAttributes<Pattern>, InferCreationAttributes<Pattern>> {
@@ -21,6 +21,10 @@ export class Pattern extends Model<InferAttributes<Pattern>, InferCreationAttrib
   declare repeats: CreationOptional<number>
   declare outerDiameterInches: CreationOptional<number>
   declare seamCount: CreationOptional<number>
+  /** What the pattern sells for, in integer cents of `currency`; both NULL until the designer sets a price (publishing needs one). */
+  declare priceCents: CreationOptional<number | null>
+  /** ISO 4217 code from PATTERN_CURRENCIES (lib/schemas/pattern.ts), set together with `priceCents`. */
+  declare currency: CreationOptional<PatternCurrency | null>
   /** Goes up by one on every save; a save names the revision it started from. */
   declare revision: CreationOptional<number>
   declare createdAt: CreationOptional<Date>
@@ -38,6 +42,8 @@ export function initPattern(sequelize: Sequelize): void {
       repeats: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
       outerDiameterInches: { type: DataTypes.DOUBLE, allowNull: false, defaultValue: 0 },
       seamCount: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
+      priceCents: { type: DataTypes.INTEGER, allowNull: true },
+      currency: { type: DataTypes.TEXT, allowNull: true },
       revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,

@@ -15,6 +15,29 @@ export const PATTERN_STATE_CHANGES: Readonly<Record<PatternState, readonly Patte
   retired: ['published'],
 }
 
+/**
+ * The currencies a pattern may be priced in: ISO 4217 codes, a short list of our choosing (the
+ * currencies most of our designers and buyers use); more can be added here.
+ */
+export const PATTERN_CURRENCIES = ['USD', 'EUR', 'GBP', 'CAD', 'AUD'] as const
+export type PatternCurrency = (typeof PATTERN_CURRENCIES)[number]
+
+/** The highest price a pattern may ask: 1,000.00 in its currency (our choice: a pattern, not a quilt). */
+export const MAX_PRICE_CENTS = 100_000
+
+/** A pattern's price: integer cents above zero and a currency; `null` clears it. */
+export const patternPriceSchema = z
+  .object({
+    priceCents: z
+      .number({ error: 'Give the price in cents, a whole number.' })
+      .int('Give the price in cents, a whole number.')
+      .positive('The price must be above zero.')
+      .max(MAX_PRICE_CENTS, `Keep the price to ${MAX_PRICE_CENTS / 100} or less.`),
+    currency: z.enum(PATTERN_CURRENCIES, { error: `Choose one of ${PATTERN_CURRENCIES.join(', ')}.` }),
+  })
+  .strict()
+export type PatternPrice = z.infer<typeof patternPriceSchema>
+
 export const patternNameSchema = text({
   max: MAX_NAME_LENGTH,
   messages: { required: 'Give the pattern a name.', empty: 'Give the pattern a name.', tooLong: `Keep the name to ${MAX_NAME_LENGTH} characters.` },
@@ -36,10 +59,12 @@ export const updatePatternSchema = z
     name: patternNameSchema.optional(),
     state: z.enum(PATTERN_STATES).optional(),
     design: designFileSchema.optional(),
+    /** The price (publishing needs one); `null` takes it away (not while the pattern is published). */
+    price: patternPriceSchema.nullable().optional(),
   })
   .strict()
-  .refine((input) => input.name !== undefined || input.state !== undefined || input.design !== undefined, {
-    message: 'Change at least one of name, state or design.',
+  .refine((input) => input.name !== undefined || input.state !== undefined || input.design !== undefined || input.price !== undefined, {
+    message: 'Change at least one of name, state, design or price.',
     path: ['name'],
   })
 export type UpdatePatternInput = z.infer<typeof updatePatternSchema>
@@ -60,6 +85,9 @@ export const patternSummarySchema = z.object({
   repeats: z.number(),
   outerDiameterInches: z.number(),
   seamCount: z.number(),
+  /** Both null until the designer sets a price. */
+  priceCents: z.number().int().nullable().optional(),
+  currency: z.enum(PATTERN_CURRENCIES).nullable().optional(),
   createdAt: z.string(),
   updatedAt: z.string(),
 })
