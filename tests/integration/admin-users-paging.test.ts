@@ -1,6 +1,7 @@
-import { Op } from 'sequelize'
+import { Op, QueryTypes } from 'sequelize'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { GET as listUsers } from '@/app/api/admin/users/route'
+import { database } from '@/lib/db'
 import { User } from '@/models'
 import { closeDatabase, freshDatabase } from '../support/database'
 import { createUser, sessionCookieFor } from '../support/factories'
@@ -84,6 +85,43 @@ describe('the users table with thousands of people', () => {
     const response = await get(`?q=${encodeURIComponent('100%_')}`)
     expect((response.json!.rows as Row[]).map((row) => row.displayName)).toEqual(['Mae 100%_sure'])
     expect((await get(`?q=${encodeURIComponent('%')}`)).json!.total).toBe(1)
+  })
+
+  it('answers from the indexes made for it, not by reading every row (EXPLAIN of the queries the API sends)', async () => {
+    await database().query('ANALYZE users')
+    /** The plan of the page query (not the count) the request sends, read with EXPLAIN. */
+    async function planOf(query: string, planOptions: { onlyBitmapScans?: boolean } = {}): Promise<string> {
+      const sequelize = database()
+      // Sequelize reads `options.logging` at each query; its type does not declare `options`.
+      const options = (sequelize as unknown as { options: { logging: unknown } }).options
+      const statements: string[] = []
+      const logging = options.logging
+      options.logging = (sql: string) => statements.push(sql.replace(/^Executing \([^)]*\): /, ''))
+      try {
+        await get(query)
+      } finally {
+        options.logging = logging
+      }
+      const select = statements.find((sql) => /^SELECT .* FROM "users"/.test(sql) && !sql.includes('count('))
+      if (!select) throw new Error(`no page query among ${statements.join(' | ')}`)
+      return sequelize.transaction(async (transaction) => {
+        // A few thousand rows are few enough that reading them all (or walking the sort's index)
+        // may be cheapest today; with both priced out, only a bitmap scan of an index whose
+        // expression matches the search's is left, and the plan shows whether one can answer it.
+        if (planOptions.onlyBitmapScans) {
+          await sequelize.query('SET LOCAL enable_seqscan = off', { transaction })
+          await sequelize.query('SET LOCAL enable_indexscan = off', { transaction })
+        }
+        const rows = await sequelize.query<{ 'QUERY PLAN': string }>(`EXPLAIN ${select}`, { type: QueryTypes.SELECT, transaction })
+        return rows.map((row) => row['QUERY PLAN']).join('\n')
+      })
+    }
+    expect(await planOf('?sort=name&page=3')).toContain('users_display_name_order')
+    expect(await planOf('?sort=-joined&page=3')).toContain('users_created_at_order')
+    expect(await planOf('?sort=email&page=3')).toContain('users_email_lower_unique')
+    const search = await planOf('?q=person2999', { onlyBitmapScans: true })
+    expect(search).toContain('users_display_name_trigram')
+    expect(search).toContain('users_email_trigram')
   })
 
   it('names a bad parameter with 422', async () => {
