@@ -13,10 +13,20 @@ export type Actor = { readonly id: string; readonly roles: readonly Role[] } | n
 /** An uploaded image, as far as permissions care (models/upload.ts). */
 export interface UploadFacts {
   readonly ownerId: string
+  /**
+   * For a report photo: the patterns whose reports show it (through report_photos), with their
+   * testers; their designers and testers may read it. Left out, it is shown to nobody else.
+   */
+  readonly reportPatterns?: readonly PatternFacts[]
 }
 
 /** What an upload is for: a designer's theme-fabric photos and swatches (covers and report photos later). */
-export type UploadPurpose = 'fabric-photo' | 'swatch'
+export type UploadPurpose = 'fabric-photo' | 'swatch' | 'report-photo'
+
+/** An order of the shop, as far as permissions care (models/order.ts). */
+export interface OrderFacts {
+  readonly buyerId: string | null
+}
 
 export interface PatternFacts {
   /** NULL for a published or retired pattern whose designer deleted their account. */
@@ -46,10 +56,18 @@ type Rules = {
   'invite-testers': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
   'test-pattern': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
   'list-patterns-to-test': (actor: NonNullable<Actor>) => boolean
+  'file-report': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
+  'read-reports': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
+  'answer-report': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
+  'change-report-state': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
   'manage-users': (actor: NonNullable<Actor>) => boolean
   'decide-designer-requests': (actor: NonNullable<Actor>) => boolean
   'read-audit-log': (actor: NonNullable<Actor>) => boolean
   'read-mail-log': (actor: NonNullable<Actor>) => boolean
+  'buy-pattern': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
+  'read-order': (actor: NonNullable<Actor>, order: OrderFacts) => boolean
+  'read-own-library': (actor: NonNullable<Actor>) => boolean
+  'read-payment-log': (actor: NonNullable<Actor>) => boolean
   'upload-image': (actor: NonNullable<Actor>, purpose: UploadPurpose) => boolean
   'read-upload': (actor: NonNullable<Actor>, upload: UploadFacts) => boolean
 }
@@ -91,16 +109,37 @@ const rules: Rules = {
   'test-pattern': (actor, pattern) => isTesterOf(actor, pattern),
   // Anyone signed in has a (maybe empty) list of patterns they were invited to test.
   'list-patterns-to-test': () => true,
+  // Test reports (lib/services/reports.ts): testers file them; the designer, the testers and admins
+  // read them and write in their threads; only the designer (or an admin) resolves or reopens one.
+  'file-report': (actor, pattern) => isTesterOf(actor, pattern),
+  'read-reports': (actor, pattern) => pattern.ownerId === actor.id || isAdmin(actor) || isTesterOf(actor, pattern),
+  'answer-report': (actor, pattern) => pattern.ownerId === actor.id || isAdmin(actor) || isTesterOf(actor, pattern),
+  'change-report-state': (actor, pattern) => isOwningDesigner(actor, pattern) || isAdmin(actor),
   // The admin desk (app/(admin)): people's roles and accounts, designer requests, and the logs of
   // what admins did and what mail went out — admins only.
   'manage-users': (actor) => isAdmin(actor),
   'decide-designer-requests': (actor) => isAdmin(actor),
   'read-audit-log': (actor) => isAdmin(actor),
   'read-mail-log': (actor) => isAdmin(actor),
+  // The shop: a quilter buys a published pattern that is not their own (its price is the
+  // pattern's, read on the server). Holding a licence already is told apart by the service.
+  'buy-pattern': (actor, pattern) => hasRole(actor, 'quilter') && pattern.state === 'published' && pattern.ownerId !== actor.id,
+  // An order's progress (the checkout result page): its buyer, and admins.
+  'read-order': (actor, order) => order.buyerId === actor.id || isAdmin(actor),
+  // Everyone signed in has a (maybe empty) library of licences.
+  'read-own-library': () => true,
+  // The payment log (webhook calls, verified or refused, and their processing): admins only.
+  'read-payment-log': (actor) => isAdmin(actor),
   // Theme-fabric photos and swatches serve pattern design.
-  'upload-image': (actor) => hasRole(actor, 'designer') || isAdmin(actor),
+  // A report photo may come from anyone signed in (testers need no role); it stays private to
+  // them until a report of a pattern they test shows it.
+  'upload-image': (actor, purpose) => purpose === 'report-photo' || hasRole(actor, 'designer') || isAdmin(actor),
   // Uploads are private to their owner; admins may look at any (e.g. to review what was reported).
-  'read-upload': (actor, upload) => upload.ownerId === actor.id || isAdmin(actor),
+  // A report's photos are also shown to the pattern's designer and its testers.
+  'read-upload': (actor, upload) =>
+    upload.ownerId === actor.id ||
+    isAdmin(actor) ||
+    (upload.reportPatterns ?? []).some((pattern) => pattern.ownerId === actor.id || isTesterOf(actor, pattern)),
 }
 
 type ResourceOf<A extends Action> = Parameters<Rules[A]> extends [unknown, infer R] ? [resource: R] : []
@@ -116,7 +155,7 @@ export function can<A extends Action>(actor: Actor, action: A, ...resource: Reso
 }
 
 /** The admin desk's actions: refused as 404, so that the desk's addresses are not even found by others. */
-const ADMIN_DESK_ACTIONS: ReadonlySet<Action> = new Set(['manage-users', 'decide-designer-requests', 'read-audit-log', 'read-mail-log'])
+const ADMIN_DESK_ACTIONS: ReadonlySet<Action> = new Set(['manage-users', 'decide-designer-requests', 'read-audit-log', 'read-mail-log', 'read-payment-log'])
 
 /**
  * Throws unless the actor may take the action: 401 when nobody is signed in, otherwise 403 —
@@ -128,6 +167,7 @@ export function authorize<A extends Action>(actor: Actor, action: A, ...resource
   if (can(actor, action, ...resource)) return
   if (action === 'read-pattern') throw new NotFoundError('No such pattern.')
   if (action === 'read-upload') throw new NotFoundError('No such upload.')
+  if (action === 'read-order') throw new NotFoundError('No such order.')
   if (ADMIN_DESK_ACTIONS.has(action)) throw new NotFoundError()
   throw new ForbiddenError()
 }

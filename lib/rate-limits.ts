@@ -60,6 +60,20 @@ export const RATE_LIMITS = {
    * 10 minutes, a few a minute kept up for a while. Our choice, common practice for uploads.
    */
   uploadsPerUser: { points: 30, windowSeconds: 10 * MINUTE, what: 'uploads' },
+  /**
+   * Tester invitations one designer sends (each is an e-mail to an address they typed): 30 an hour,
+   * a generous test round at once, yet no mailing-list cannon. Our choice.
+   */
+  invitationsPerDesigner: { points: 30, windowSeconds: HOUR, what: 'tester invitations' },
+  /**
+   * Checkouts one person starts: each opens a session at the payment provider. 20 an hour is more
+   * than anyone buying patterns needs. Our choice.
+   */
+  checkoutsPerUser: { points: 20, windowSeconds: HOUR, what: 'checkouts' },
+  /** Test reports one person files: 20 an hour, more than a careful tester writes in a sitting. Our choice. */
+  reportsPerUser: { points: 20, windowSeconds: HOUR, what: 'reports' },
+  /** Answers one person writes in reports' threads: 60 an hour. Our choice. */
+  reportMessagesPerUser: { points: 60, windowSeconds: HOUR, what: 'answers' },
 } as const satisfies Record<string, RateLimit>
 
 export type RateLimitName = keyof typeof RATE_LIMITS
@@ -176,7 +190,27 @@ export async function countVerificationResend(userId: string): Promise<void> {
   await consume('verificationResendPerAccount', counterKey(userId))
 }
 
+/** Counts a tester invitation sent by a designer (their user id); throws TooManyRequestsError past the limit. */
+export async function countInvitation(userId: string): Promise<void> {
+  await consume('invitationsPerDesigner', counterKey(userId))
+}
+
 /** Counts an upload attempt by a person (their user id); throws TooManyRequestsError past the limit. */
 export async function countUpload(userId: string): Promise<void> {
   await consume('uploadsPerUser', counterKey(userId))
+}
+
+/** Counts a test report filed by a person (their user id); throws TooManyRequestsError past the limit. */
+export async function countReport(userId: string): Promise<void> {
+  await consume('reportsPerUser', counterKey(userId))
+}
+
+/** Counts an answer written in a report's thread; throws TooManyRequestsError past the limit. */
+export async function countReportMessage(userId: string): Promise<void> {
+  await consume('reportMessagesPerUser', counterKey(userId))
+}
+
+/** Counts a checkout started by a person (their user id); throws TooManyRequestsError past the limit. */
+export async function countCheckout(userId: string): Promise<void> {
+  await consume('checkoutsPerUser', counterKey(userId))
 }

@@ -2,8 +2,14 @@ import type { Sequelize } from 'sequelize'
 import { AdminAuditEntry, initAdminAuditEntry } from './admin-audit-entry'
 import { AccountToken, initAccountToken } from './account-token'
 import { initOutgoingMail, OutgoingMail } from './outgoing-mail'
+import { initLicence, Licence } from './licence'
+import { initOrder, Order } from './order'
+import { initPaymentEvent, PaymentEvent } from './payment-event'
 import { initPattern, Pattern } from './pattern'
 import { initPatternRevision, PatternRevision } from './pattern-revision'
+import { initReport, Report } from './report'
+import { initReportMessage, ReportMessage } from './report-message'
+import { initReportPhoto, ReportPhoto } from './report-photo'
 import { initPatternStateChange, PatternStateChange } from './pattern-state-change'
 import { initInvitation, Invitation } from './invitation'
 import { initSession, Session } from './session'
@@ -12,6 +18,8 @@ import { initUser, User } from './user'
 
 export { AccountToken, AdminAuditEntry, OutgoingMail, Pattern, PatternRevision, Session, Upload, User }
 export { Invitation, PatternStateChange }
+export { Licence, Order, PaymentEvent }
+export { Report, ReportMessage, ReportPhoto }
 
 /** Binds every model to one Sequelize instance and declares how they relate. */
 export function initModels(sequelize: Sequelize): void {
@@ -25,6 +33,12 @@ export function initModels(sequelize: Sequelize): void {
   initAccountToken(sequelize)
   initPatternStateChange(sequelize)
   initInvitation(sequelize)
+  initOrder(sequelize)
+  initLicence(sequelize)
+  initPaymentEvent(sequelize)
+  initReport(sequelize)
+  initReportMessage(sequelize)
+  initReportPhoto(sequelize)
 
   User.hasMany(Session, { foreignKey: 'userId', onDelete: 'CASCADE' })
   Session.belongsTo(User, { foreignKey: 'userId' })
@@ -39,4 +53,13 @@ export function initModels(sequelize: Sequelize): void {
   Pattern.hasMany(Invitation, { foreignKey: 'patternId', onDelete: 'CASCADE' })
   Invitation.belongsTo(Pattern, { foreignKey: 'patternId' })
   Invitation.belongsTo(User, { foreignKey: 'userId', as: 'tester' })
+  Pattern.hasMany(Report, { foreignKey: 'patternId', onDelete: 'CASCADE' })
+  Report.belongsTo(User, { foreignKey: 'testerId', as: 'tester' })
+  Report.hasMany(ReportMessage, { foreignKey: 'reportId', as: 'messages', onDelete: 'CASCADE' })
+  ReportMessage.belongsTo(User, { foreignKey: 'authorId', as: 'author' })
+  Report.hasMany(ReportPhoto, { foreignKey: 'reportId', as: 'photos', onDelete: 'CASCADE' })
+  Order.belongsTo(Pattern, { foreignKey: 'patternId', as: 'pattern' })
+  Order.belongsTo(User, { foreignKey: 'buyerId', as: 'buyer' })
+  Licence.belongsTo(Pattern, { foreignKey: 'patternId', as: 'pattern' })
+  Licence.belongsTo(Order, { foreignKey: 'orderId', as: 'order' })
 }

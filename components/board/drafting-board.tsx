@@ -16,6 +16,7 @@ import { FabricPanel } from './fabric-panel'
 import { HelpPanel } from './help-panel'
 import { InspectorPanel } from './inspector-panel'
 import { PlanPanel } from './plan-panel'
+import { ReportPins } from './report-pins'
 import { RingPanel } from './ring-panel'
 import { SaveStatus } from './save-status'
 import { Toolbar } from './toolbar'
@@ -150,6 +151,7 @@ export function DraftingBoard({ patternId, patternName, revision, design }: { pa
         </aside>
         <div ref={canvasBox} tabIndex={0} data-testid="board-canvas" className="relative order-1 min-h-[360px] overflow-hidden bg-stone-100 md:order-2" aria-label="Drafting board canvas" role="application">
           <BoardCanvas store={store} pointer={pointer} width={size.width} height={size.height} stageRef={stageRef} />
+          <ReportPins store={store} patternId={patternId} />
           {helpOpen && <HelpPanel onClose={() => setHelpOpen(false)} />}
         </div>
         <aside className="order-3 space-y-5 overflow-auto border-l border-linen-200 bg-linen-50 p-3 md:col-span-2 xl:col-span-1" aria-label="Sewing plan and selection">

@@ -18,6 +18,36 @@ export interface MailData {
   'email-change-notice': { displayName: string; newEmail: string }
   /** An admin approved or declined a request for a designer account. */
   'designer-request-decided': { displayName: string; approved: boolean; studioUrl: string }
+  /**
+   * A designer asks someone to test a pattern. `hasAccount`: the address's owner is a tester
+   * already and the link opens the pattern; otherwise it leads to sign-up (or sign-in) and then
+   * to the pattern. `expiresOn`: the last day, in words. `displayName`: the account's name, or
+   * "there" for an address without one.
+   */
+  'tester-invitation': { displayName: string; designerName: string; patternName: string; hasAccount: boolean; actionUrl: string; expiresOn: string }
+  /** A buyer's receipt once the payment is confirmed: the amount in words of its currency, the licence and the library. */
+  'purchase-receipt': { displayName: string; patternName: string; amount: string; licenceNumber: string; libraryUrl: string }
+  /** The designer's notice of a sale (no buyer's details: they are the buyer's own). */
+  'pattern-sold': { displayName: string; patternName: string; amount: string; patternUrl: string }
+  /** A tester filed a report on a pattern; sent to its designer and its other testers. */
+  'report-filed': ReportMailData
+  /** Someone answered in a report's thread; sent to the designer and the testers but the author. */
+  'report-answered': ReportMailData
+}
+
+/** What a report's messages say: which pattern, who wrote, what and where, and the link to the thread. */
+export interface ReportMailData {
+  displayName: string
+  patternName: string
+  authorName: string
+  /** The kind and severity in words ("Cutting", "Blocks sewing"). */
+  kindName: string
+  severityName: string
+  /** Where, in words: "area A3", "step 4", "page 2", "a point on the board". */
+  placeText: string
+  /** The report's or the answer's text, shortened. */
+  excerpt: string
+  reportUrl: string
 }
 
 export type MailKind = keyof MailData
@@ -31,6 +61,11 @@ export const MAIL_KINDS = [
   'email-change-verify',
   'email-change-notice',
   'designer-request-decided',
+  'tester-invitation',
+  'purchase-receipt',
+  'pattern-sold',
+  'report-filed',
+  'report-answered',
 ] as const satisfies readonly MailKind[]
 
 /** Where a queued message stands, as the admin's mail log shows it. */

@@ -14,6 +14,11 @@ function sample(kind: MailKind, displayName = 'Ada Lovelace'): MailData[MailKind
     'email-change-verify': { displayName, verifyUrl: LINK, newEmail: 'new@example.com' },
     'email-change-notice': { displayName, newEmail: 'new@example.com' },
     'designer-request-decided': { displayName, approved: true, studioUrl: 'https://wreathwright.example/patterns' },
+    'tester-invitation': { displayName, designerName: 'Mara Quill', patternName: 'Lantern Medallion', hasAccount: false, actionUrl: 'https://wreathwright.example/sign-up?next=/testing/p1', expiresOn: '1 January 2027' },
+    'report-filed': { displayName, patternName: 'Lantern Medallion', authorName: 'Priya Desmond', kindName: 'Cutting', severityName: 'Blocks sewing', placeText: 'area A3', excerpt: 'The rough cut of A3 is too small.', reportUrl: 'https://wreathwright.example/patterns/p1/reports?report=r1' },
+    'report-answered': { displayName, patternName: 'Lantern Medallion', authorName: 'Priya Desmond', kindName: 'Cutting', severityName: 'Blocks sewing', placeText: 'area A3', excerpt: 'The rough cut of A3 is too small.', reportUrl: 'https://wreathwright.example/patterns/p1/reports?report=r1' },
+    'purchase-receipt': { displayName, patternName: 'Lantern Medallion', amount: '€12.50', licenceNumber: 'WL-001001', libraryUrl: 'https://wreathwright.example/library' },
+    'pattern-sold': { displayName, patternName: 'Lantern Medallion', amount: '€12.50', patternUrl: 'https://wreathwright.example/patterns/p1' },
   }
   return samples[kind]
 }

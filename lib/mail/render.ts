@@ -2,6 +2,9 @@ import { convert } from 'html-to-text'
 import type { MailData, MailKind } from './kinds'
 import { emailChangeNotice, emailChangeVerify, passwordChanged, passwordReset, signUpAttempt, verifyEmail } from './templates/account'
 import { designerRequestDecided } from './templates/studio'
+import { testerInvitation } from './templates/testing'
+import { patternSold, purchaseReceipt } from './templates/shop'
+import { reportAnswered, reportFiled } from './templates/reports'
 import type { MailTemplate } from './templates/template'
 
 /** One template per kind; a kind without one fails to compile. */
@@ -13,6 +16,11 @@ const TEMPLATES: { [K in MailKind]: MailTemplate<MailData[K]> } = {
   'email-change-verify': emailChangeVerify,
   'email-change-notice': emailChangeNotice,
   'designer-request-decided': designerRequestDecided,
+  'tester-invitation': testerInvitation,
+  'purchase-receipt': purchaseReceipt,
+  'pattern-sold': patternSold,
+  'report-filed': reportFiled,
+  'report-answered': reportAnswered,
 }
 
 export interface RenderedMail {

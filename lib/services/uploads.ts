@@ -8,6 +8,7 @@ import { prepareImage, proposePalette, sniffImageType } from '@/lib/images'
 import { MAX_STORED_UPLOAD_BYTES_PER_USER } from '@/lib/limits'
 import { deleteObject, getObject, objectKey, putObject } from '@/lib/object-store'
 import { countUpload } from '@/lib/rate-limits'
+import { reportPatternsOfPhoto } from '@/lib/services/reports'
 import type { UploadView } from '@/lib/schemas/upload'
 import { Upload } from '@/models'
 
@@ -126,7 +127,9 @@ export async function authorizeUploadRead(actor: Actor, id: string): Promise<Upl
   database()
   const upload = UUID.test(id) ? await Upload.findByPk(id) : null
   if (!upload) throw new NotFoundError('No such upload.')
-  authorize(actor, 'read-upload', upload)
+  // A report photo is also shown to the designer and testers of the patterns whose reports show it.
+  const reportPatterns = upload.kind === 'report-photo' ? await reportPatternsOfPhoto(upload.id) : undefined
+  authorize(actor, 'read-upload', { ownerId: upload.ownerId, reportPatterns })
   return upload
 }
 
