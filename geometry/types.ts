@@ -89,7 +89,7 @@ export interface ColorwayFabric {
   readonly name: string
   /** #rrggbb, how the board and the booklet draw it. */
   readonly color: string
-  /** An uploaded swatch image, by its key in the object store. */
+  /** An uploaded swatch image, by its upload id (what `POST /api/uploads?kind=swatch` answers). */
   readonly swatch?: string
 }
 

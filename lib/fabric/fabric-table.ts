@@ -7,6 +7,7 @@
 import Papa from 'papaparse'
 import type { FabricRequirements } from '@/geometry'
 import { centimetresToInches, inchesToCentimetres, type LengthUnits } from '@/lib/units'
+import { EXTRA_PERCENT_RANGE, WIDTH_OF_FABRIC_RANGE_INCHES } from '@/lib/schemas/cutting-settings'
 
 export interface FabricRow {
   /** The fabric role (a key, never shown where `name` exists). */
@@ -157,12 +158,9 @@ export interface CuttingSettingsForm {
   readonly extraPercent: string
 }
 
-/** What the settings fields may hold: a width from 10 to 120 in (the widest fabrics sold are about 108 in, common practice) and up to 100 % extra. */
-export const WIDTH_OF_FABRIC_RANGE_INCHES = [10, 120] as const
-export const EXTRA_PERCENT_RANGE = [0, 100] as const
-
 /**
- * The width of fabric (inches) and extra (percent) from the settings form, or the problem in words.
+ * The width of fabric (inches) and extra (percent) from the settings form, or the problem in words;
+ * the ranges are the ones the cutting command and the print room check (lib/schemas/cutting-settings.ts).
  *
  * @example cuttingSettingsFrom({ widthOfFabric: '101.6', extraPercent: '10' }, 'cm') // { ok: true, widthOfFabricIn: 40, extraPercent: 10 }
  */
