@@ -21,10 +21,17 @@ const pageSchema = z.coerce
   .max(100_000, 'There are not that many pages.')
   .default(1)
 
-/** `GET /api/admin/users?q=&sort=&page=`: `q` is found anywhere in a name or e-mail address, in any letter case. */
+/** Which accounts the users table shows: everyone, or only those in one state. */
+export const USER_FILTERS = ['all', 'disabled', 'unverified', 'designer-request'] as const
+
+/**
+ * `GET /api/admin/users?q=&sort=&page=&filter=`: `q` is found anywhere in a name or e-mail address,
+ * in any letter case.
+ */
 export const userListQuerySchema = z
   .object({
     q: text({ max: 200, min: 0 }).default(''),
+    filter: z.enum(USER_FILTERS, { error: `Filter by one of ${USER_FILTERS.join(', ')}.` }).default('all'),
     sort: z.enum(USER_SORTS, { error: `Sort by one of ${USER_SORTS.join(', ')}.` }).default('-joined'),
     page: pageSchema,
   })

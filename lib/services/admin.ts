@@ -63,18 +63,23 @@ function userOrder(sort: UserSort) {
   return [[column, direction], ['id', direction]] as [unknown, string][]
 }
 
-/** A page of the users table, searched by name or e-mail (in any letter case) and sorted. */
+/** A page of the users table, searched by name or e-mail (in any letter case), filtered by state and sorted. */
 export async function listUsers(actor: Actor, query: UserListQuery): Promise<Page<AdminUserRow>> {
   authorize(actor, 'manage-users')
   const sequelize = database()
-  const where: WhereOptions = query.q
-    ? {
-        [Op.or]: [
-          sequelize.where(sequelize.fn('lower', sequelize.col('display_name')), Op.like, likeContaining(query.q)),
-          sequelize.where(sequelize.fn('lower', sequelize.col('email')), Op.like, likeContaining(query.q)),
-        ],
-      }
-    : {}
+  const conditions: WhereOptions[] = []
+  if (query.q) {
+    conditions.push({
+      [Op.or]: [
+        sequelize.where(sequelize.fn('lower', sequelize.col('display_name')), Op.like, likeContaining(query.q)),
+        sequelize.where(sequelize.fn('lower', sequelize.col('email')), Op.like, likeContaining(query.q)),
+      ],
+    })
+  }
+  if (query.filter === 'disabled') conditions.push({ disabledAt: { [Op.ne]: null } })
+  if (query.filter === 'unverified') conditions.push({ emailVerifiedAt: null })
+  if (query.filter === 'designer-request') conditions.push({ designerRequestedAt: { [Op.ne]: null } })
+  const where: WhereOptions = { [Op.and]: conditions }
   const { rows, count } = await User.findAndCountAll({
     where,
     attributes: { exclude: ['passwordHash'] },

@@ -81,6 +81,21 @@ describe('the users table with thousands of people', () => {
     expect((byEmail.json!.rows as Row[]).map((row) => row.email)).toEqual(['person2999@crowd.example'])
   })
 
+  it('shows only the disabled, the unverified or those asking to design when asked, together with a search', async () => {
+    const [disabled, requester] = await User.findAll({ where: { email: ['person0001@crowd.example', 'person0002@crowd.example'] }, order: [['email', 'ASC']] })
+    await disabled!.update({ disabledAt: new Date() })
+    await requester!.update({ designerRequestedAt: new Date(), emailVerifiedAt: new Date() })
+    const emails = async (query: string) => ((await get(query)).json!.rows as Row[]).map((row) => row.email)
+    expect(await emails('?filter=disabled')).toEqual(['person0001@crowd.example'])
+    expect(await emails('?filter=designer-request')).toEqual(['person0002@crowd.example'])
+    // Everyone else made here is unverified: 3002 people less the one verified above.
+    expect((await get('?filter=unverified')).json!.total).toBe(PEOPLE + 1)
+    expect(await emails('?filter=unverified&q=person0002')).toEqual([])
+    expect((await get('?filter=everyone')).json?.error.issues[0].path).toBe('filter')
+    await disabled!.update({ disabledAt: null })
+    await requester!.update({ designerRequestedAt: null, emailVerifiedAt: null })
+  })
+
   it('reads % and _ in a search as letters', async () => {
     const response = await get(`?q=${encodeURIComponent('100%_')}`)
     expect((response.json!.rows as Row[]).map((row) => row.displayName)).toEqual(['Mae 100%_sure'])

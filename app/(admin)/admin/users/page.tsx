@@ -3,7 +3,7 @@ import Link from 'next/link'
 import { Pager } from '@/components/admin/pager'
 import { UserActions } from '@/components/admin/user-actions'
 import { UserState } from '@/components/admin/user-state'
-import { userListQuerySchema, type UserListQuery, type UserSort } from '@/lib/schemas/admin'
+import { USER_FILTERS, userListQuerySchema, type UserListQuery, type UserSort } from '@/lib/schemas/admin'
 import { listUsers } from '@/lib/services/admin'
 import { deskTitle, requireAdmin } from '../../admin-guard'
 
@@ -15,10 +15,18 @@ type SearchParams = Promise<Record<string, string | string[] | undefined>>
 function hrefFor(query: UserListQuery): string {
   const search = new URLSearchParams()
   if (query.q) search.set('q', query.q)
+  if (query.filter !== 'all') search.set('filter', query.filter)
   if (query.sort !== '-joined') search.set('sort', query.sort)
   if (query.page > 1) search.set('page', String(query.page))
   const text = search.toString()
   return text ? `/admin/users?${text}` : '/admin/users'
+}
+
+const FILTER_LABELS: Record<UserListQuery['filter'], string> = {
+  all: 'Everyone',
+  disabled: 'Disabled',
+  unverified: 'Unverified',
+  'designer-request': 'Asking to design',
 }
 
 const COLUMNS: { key: 'name' | 'email' | 'joined'; label: string }[] = [
@@ -58,10 +66,23 @@ export default async function AdminUsersPage({ searchParams }: { searchParams: S
           <input id="user-search" name="q" type="search" defaultValue={query.q} className="w-80 rounded border border-stone-300 bg-white px-3 py-2" />
         </div>
         {query.sort !== '-joined' && <input type="hidden" name="sort" value={query.sort} />}
+        {query.filter !== 'all' && <input type="hidden" name="filter" value={query.filter} />}
         <button type="submit" className="rounded bg-thread-700 px-4 py-2 text-white hover:bg-thread-800">
           Search
         </button>
       </form>
+      <nav aria-label="Show" className="flex flex-wrap gap-2 text-sm">
+        {USER_FILTERS.map((filter) => (
+          <Link
+            key={filter}
+            href={hrefFor({ ...query, filter, page: 1 })}
+            aria-current={query.filter === filter ? 'page' : undefined}
+            className={`rounded-full border px-3 py-1 ${query.filter === filter ? 'border-thread-700 bg-thread-700 text-white' : 'border-stone-300 hover:bg-linen-100'}`}
+          >
+            {FILTER_LABELS[filter]}
+          </Link>
+        ))}
+      </nav>
       {!parsed.success && <p className="text-sm text-madder-700">That address held a search the desk could not read; showing everyone instead.</p>}
       <table className="w-full border-collapse text-sm">
         <thead className="border-b border-linen-200 text-stone-600">
@@ -91,7 +112,7 @@ export default async function AdminUsersPage({ searchParams }: { searchParams: S
           ))}
         </tbody>
       </table>
-      {users.rows.length === 0 && <p className="text-stone-600">Nobody matches that search.</p>}
+      {users.rows.length === 0 && <p className="text-stone-600">Nobody matches.</p>}
       <Pager page={users.page} pageCount={users.pageCount} total={users.total} noun="people" hrefFor={(page) => hrefFor({ ...query, page })} />
     </section>
   )
