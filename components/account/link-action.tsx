@@ -3,9 +3,10 @@
 import Link from 'next/link'
 import { useEffect, useRef, useState } from 'react'
 import { ApiError, apiFetch } from '@/lib/api-client'
+import { safeRedirectPath } from '@/lib/safe-redirect'
 import { useLinkToken } from './link-token'
 
-type State = { readonly step: 'working' } | { readonly step: 'done' } | { readonly step: 'failed'; readonly message: string }
+type State = { readonly step: 'working' } | { readonly step: 'done'; readonly next?: string } | { readonly step: 'failed'; readonly message: string }
 
 /**
  * A page an e-mail link opens that acts at once (confirming an address): posts the link's token
@@ -30,8 +31,10 @@ export function LinkAction({
     const post = async (): Promise<State> => {
       if (!token) return { step: 'failed', message: 'This link carries no token. Open the link from the e-mail again.' }
       try {
-        await apiFetch(url, { method: 'POST', json: { token } })
-        return { step: 'done' }
+        const answer = await apiFetch(url, { method: 'POST', json: { token } })
+        // An answer may name where to go next (a tester invitation claimed on confirming the address).
+        const next = typeof answer === 'object' && answer !== null && 'next' in answer ? safeRedirectPath(answer.next, '') : ''
+        return next ? { step: 'done', next } : { step: 'done' }
       } catch (error) {
         return { step: 'failed', message: error instanceof ApiError ? error.message : 'Could not reach Wreathwright. Check your connection and try again.' }
       }
@@ -44,8 +47,8 @@ export function LinkAction({
     return (
       <div role="status" className="flex flex-col gap-4">
         <p className="text-stone-700">{done.message}</p>
-        <Link href={done.href} className="self-start rounded bg-thread-700 px-4 py-2 font-medium text-white hover:bg-thread-800">
-          {done.label}
+        <Link href={state.next ?? done.href} className="self-start rounded bg-thread-700 px-4 py-2 font-medium text-white hover:bg-thread-800">
+          {state.next ? 'Open the pattern you were invited to test' : done.label}
         </Link>
       </div>
     )

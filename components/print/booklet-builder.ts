@@ -6,6 +6,7 @@
  */
 import type { Design } from '@/geometry'
 import type { BookletFile } from '@/lib/booklet/booklet'
+import type { FooterNotice } from '@/lib/booklet/chrome'
 import type { SwatchImages } from '@/lib/booklet/swatches'
 import type { BookletOptions } from '@/lib/schemas/booklet'
 
@@ -14,6 +15,8 @@ export interface BuildRequest {
   readonly design: Design
   readonly options: BookletOptions
   readonly swatches?: SwatchImages
+  /** A notice with a person's name on every page (a tester's test copy). */
+  readonly footer?: FooterNotice
 }
 
 export type BuildReply =
@@ -32,11 +35,11 @@ export class BuildCancelled extends Error {
 }
 
 /** The booklet built on the main thread: the fallback where no worker can start. */
-async function buildHere(design: Design, options: BookletOptions, onPage: (page: number) => void, swatches: SwatchImages | undefined): Promise<BuiltFile> {
+async function buildHere(design: Design, options: BookletOptions, onPage: (page: number) => void, swatches: SwatchImages | undefined, footer: FooterNotice | undefined): Promise<BuiltFile> {
   const { buildBookletFile } = await import('@/lib/booklet/booklet')
   // Let "building" paint before the tab is busy.
   await new Promise((resolve) => setTimeout(resolve, 0))
-  return { ...buildBookletFile(design, options, { onPage, swatches }), builtIn: 'main thread' }
+  return { ...buildBookletFile(design, options, { onPage, swatches, footer }), builtIn: 'main thread' }
 }
 
 /**
@@ -45,7 +48,7 @@ async function buildHere(design: Design, options: BookletOptions, onPage: (page:
  * @example const builder = createBookletBuilder(); const file = await builder.build(design, options, (page) => show(page), swatches); builder.dispose()
  */
 export function createBookletBuilder(): {
-  build(design: Design, options: BookletOptions, onPage: (page: number) => void, swatches?: SwatchImages): Promise<BuiltFile>
+  build(design: Design, options: BookletOptions, onPage: (page: number) => void, swatches?: SwatchImages, footer?: FooterNotice): Promise<BuiltFile>
   cancel(): void
   dispose(): void
 } {
@@ -77,10 +80,10 @@ export function createBookletBuilder(): {
   }
 
   return {
-    build(design, options, onPage, swatches) {
+    build(design, options, onPage, swatches, footer) {
       cancel()
       const running = startWorker()
-      if (!running) return buildHere(design, options, onPage, swatches)
+      if (!running) return buildHere(design, options, onPage, swatches, footer)
       const id = ++nextId
       return new Promise<BuiltFile>((resolve, reject) => {
         pending = { id, reject }
@@ -102,10 +105,10 @@ export function createBookletBuilder(): {
           console.warn(`The booklet worker failed (${event.message}); building on the main thread instead.`)
           workerFailed = true
           stopWorker()
-          if (settle()) buildHere(design, options, onPage, swatches).then(resolve, reject)
+          if (settle()) buildHere(design, options, onPage, swatches, footer).then(resolve, reject)
         }
         // The swatch bytes are copied, not moved: the next build may need them again.
-        running.postMessage({ id, design, options, swatches } satisfies BuildRequest)
+        running.postMessage({ id, design, options, swatches, footer } satisfies BuildRequest)
       })
     },
     cancel,

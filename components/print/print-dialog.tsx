@@ -9,6 +9,7 @@
  */
 import { useEffect, useMemo, useState, type FormEvent } from 'react'
 import { PAPERS } from '@/lib/booklet/paper'
+import { footerLine, type FooterNotice } from '@/lib/booklet/chrome'
 import type { SwatchImages } from '@/lib/booklet/swatches'
 import { DEFAULT_EXTRA_PERCENT, DEFAULT_WIDTH_OF_FABRIC_INCHES } from '@/geometry/yardage'
 import { PAPER_NAMES, DEFAULT_MARGIN_INCHES, DEFAULT_OVERLAP_INCHES, type BookletPart, type PaperName } from '@/lib/schemas/booklet'
@@ -20,11 +21,12 @@ import { fetchSwatchImages, swatchUrls } from './swatch-images'
 import { optionsKey, useBookletPreview } from './use-booklet-preview'
 
 /**
- * The print dialog for one pattern's design.
+ * The print dialog for one pattern's design. `footer`: a notice with a person's name printed on
+ * every page (a tester's "test copy – not for sale"), said above the download button.
  *
  * @example <PrintDialog name="Hollyberry Wreath" design={pattern.design} />
  */
-export function PrintDialog({ name, design }: { name: string; design: DesignFile }) {
+export function PrintDialog({ name, design, footer }: { name: string; design: DesignFile; footer?: FooterNotice }) {
   const colorways = design.colorways ?? []
   const [paper, setPaper] = useState<PaperName>('letter')
   const [orientation, setOrientation] = useState<'portrait' | 'landscape'>('portrait')
@@ -71,7 +73,7 @@ export function PrintDialog({ name, design }: { name: string; design: DesignFile
     : !swatchImages
       ? 'Loading the swatch images of this colourway…'
       : swatchNoteCount(Object.keys(swatchImages).length, swatchCount)
-  const preview = useBookletPreview(parsed.ok ? parsed.design : null, options.ok ? options.options : null, problem, swatchImages)
+  const preview = useBookletPreview(parsed.ok ? parsed.design : null, options.ok ? options.options : null, problem, swatchImages, footer)
   const ready = preview.kind === 'built' && options.ok && preview.booklet.key === optionsKey(options.options, swatchImages) ? preview.booklet : null
 
   function onSubmit(event: FormEvent<HTMLFormElement>): void {
@@ -201,6 +203,11 @@ export function PrintDialog({ name, design }: { name: string; design: DesignFile
         <p className="text-sm text-stone-600">
           Print the booklet at 100 % (actual size) and check the 1 in and 2 cm test squares before you cut.
         </p>
+        {footer && (
+          <p className="text-sm text-stone-600" data-testid="print-footer">
+            Every page says “{footerLine(footer)}” at its foot.
+          </p>
+        )}
 
         <button
           type="submit"

@@ -7,6 +7,7 @@
  */
 import { useEffect, useRef, useState } from 'react'
 import type { BookletPage, FoundationTiling } from '@/lib/booklet/page-list'
+import type { FooterNotice } from '@/lib/booklet/chrome'
 import type { SwatchImages } from '@/lib/booklet/swatches'
 import type { BookletOptions } from '@/lib/schemas/booklet'
 import type { Design } from '@/geometry'
@@ -59,7 +60,13 @@ export function optionsKey(options: BookletOptions, swatches?: SwatchImages): st
  *
  * @example const preview = useBookletPreview(design, options.ok ? options.options : null, options.ok ? null : options.message, swatches)
  */
-export function useBookletPreview(design: Design | null, options: BookletOptions | null, problem: string | null, swatches?: SwatchImages): PreviewState {
+export function useBookletPreview(
+  design: Design | null,
+  options: BookletOptions | null,
+  problem: string | null,
+  swatches?: SwatchImages,
+  footer?: FooterNotice,
+): PreviewState {
   const [state, setState] = useState<PreviewState>({ kind: 'waiting' })
   const key = options ? optionsKey(options, swatches) : null
   // The latest request; a build that finishes after another was asked for is thrown away.
@@ -89,7 +96,7 @@ export function useBookletPreview(design: Design | null, options: BookletOptions
       }
       try {
         builder.current ??= createBookletBuilder()
-        const file = await builder.current.build(design, options, onPage, swatches)
+        const file = await builder.current.build(design, options, onPage, swatches, footer)
         if (request !== latest.current) return
         setState({ kind: 'built', booklet: { key, options, bytes: file.bytes, pages: file.pages, tilings: file.tilings, builtIn: file.builtIn } })
       } catch (error) {
@@ -106,7 +113,7 @@ export function useBookletPreview(design: Design | null, options: BookletOptions
       // The options changed: the booklet under way is stale, stop it.
       builder.current?.cancel()
     }
-  }, [key, options, problem, design, swatches])
+  }, [key, options, problem, design, swatches, footer])
 
   if (problem || !design || !options) return { kind: 'error', message: problem ?? 'The booklet cannot be built from these options.' }
   return state

@@ -7,6 +7,7 @@ import type { jsPDF } from 'jspdf'
 import type { Design } from '@/geometry'
 import { bookletOptionsSchema, type BookletOptionsInput, type BookletPart } from '@/lib/schemas/booklet'
 import { writeCautions } from './cautions'
+import { drawFooterOnEveryPage, type FooterNotice } from './chrome'
 import { createContext, type BookletContext } from './context'
 import { writeCover } from './cover'
 import { writeCuttingDiagrams } from './cutting-diagrams'
@@ -40,6 +41,11 @@ export interface BookletExtras {
    * swatch uploads); drawn beside each fabric's colour. Any that cannot be read are left out.
    */
   readonly swatches?: SwatchImages
+  /**
+   * A notice with a person's name at the foot of every page: a tester's "test copy – not for
+   * sale", a buyer's licence. Left out, pages carry none.
+   */
+  readonly footer?: FooterNotice
 }
 
 /**
@@ -49,7 +55,7 @@ export interface BookletExtras {
  * @example writeBooklet(design, { paper: 'a4' }).doc.getNumberOfPages()
  */
 export function writeBooklet(design: Design, input: BookletOptionsInput, extras: BookletExtras = {}): WrittenBooklet {
-  const { onPage, swatches } = extras
+  const { onPage, swatches, footer } = extras
   const options = bookletOptionsSchema.parse(input)
   const model = bookletModel(design, options)
   const context = createContext(model, swatches)
@@ -94,6 +100,7 @@ export function writeBooklet(design: Design, input: BookletOptionsInput, extras:
     writePlacementGuide(context)
   }
   const written = ensureOnePage(context)
+  if (footer) drawFooterOnEveryPage(context.doc, context.frame, footer)
   const kinds = foundations.map(({ sheet, layout }) => ({ kind: sheet.kind, layout }))
   const pages = written ? describePages({ partPages, foundations: kinds, pageCount: context.pages }) : [{ number: 1, part: options.parts[0]!, description: 'no parts were chosen' }]
   const tilings = foundationTilings(kinds, partPages.foundations ?? 1)

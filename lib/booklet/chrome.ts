@@ -96,3 +96,59 @@ export function drawPageNumber(doc: jsPDF, frame: PageFrame, pageNumber: number,
   font(doc, 7, 'normal', 90)
   doc.text(`${patternName} - page ${pageNumber}`, x + width - 2, y + height - 2, { align: 'right' })
 }
+
+/**
+ * A notice printed at the foot of every page with a person's name, e.g. a tester's
+ * `{ person: 'Sam Reed', notice: 'test copy – not for sale' }` or a buyer's
+ * `{ person: 'Ada Lovelace', notice: 'licensed to Ada Lovelace for personal use' }`.
+ */
+export interface FooterNotice {
+  /** Whose copy this is. */
+  readonly person: string
+  /** What the copy is; the line reads "{notice} · {person}". */
+  readonly notice: string
+}
+
+/** Height of the footer line's text, points. */
+const FOOTER_SIZE_PT = 7
+
+/**
+ * The footer line as printed (one line, no more than 160 characters).
+ *
+ * @example footerLine({ person: 'Sam Reed', notice: 'test copy – not for sale' }) // 'test copy – not for sale · Sam Reed'
+ */
+export function footerLine(footer: FooterNotice): string {
+  const line = `${footer.notice} · ${footer.person}`.replace(/\s+/g, ' ').trim()
+  return line.length > 160 ? `${line.slice(0, 159)}…` : line
+}
+
+/**
+ * Writes the footer notice centred at the foot of the printable area of every page written so
+ * far: after the whole booklet, so that every part (foundations, templates and text alike) gets
+ * it. Centred, it keeps clear of the test squares (left) and the page number (right).
+ *
+ * jsPDF's standard Helvetica covers WinAnsi only: characters outside it (the en dash is inside)
+ * would print as garbage, so they are replaced with "?".
+ *
+ * @example drawFooterOnEveryPage(doc, frame, { person: 'Sam Reed', notice: 'test copy – not for sale' })
+ */
+export function drawFooterOnEveryPage(doc: jsPDF, frame: PageFrame, footer: FooterNotice): void {
+  const { x, y, width, height } = frame.printable
+  const text = fitLine(doc, toWinAnsi(footerLine(footer)), width / 2)
+  for (let page = 1; page <= doc.getNumberOfPages(); page += 1) {
+    doc.setPage(page)
+    font(doc, FOOTER_SIZE_PT, 'bold', 70)
+    doc.text(text, x + width / 2, y + height - 1, { align: 'center' })
+  }
+}
+
+/** fitText at the footer's font. */
+function fitLine(doc: jsPDF, text: string, width: number): string {
+  font(doc, FOOTER_SIZE_PT, 'bold', 70)
+  return fitText(doc, text, width)
+}
+
+/** Characters Helvetica in jsPDF can print (Latin-1 plus the WinAnsi extras such as – and ’); the rest become "?". */
+function toWinAnsi(text: string): string {
+  return [...text].map((c) => (c.charCodeAt(0) <= 0xff || '–—‘’“”•…€'.includes(c) ? c : '?')).join('')
+}

@@ -14,6 +14,7 @@ import { beginSignIn, countPasswordReset, countSignUp, countVerificationResend }
 import { rolesAtSignUp, type Role } from '@/lib/roles'
 import type { SignInInput, SignUpInput } from '@/lib/schemas/account'
 import { User } from '@/models'
+import { afterClaimPath, claimInvitationsOf } from './invitations'
 
 /**
  * Signing up, in and out, verifying an address, resetting a password, and disabling an account.
@@ -191,15 +192,20 @@ export async function signOut(sessionId: string | null): Promise<string> {
   return lucia().createBlankSessionCookie().serialize()
 }
 
-/** Marks the address of the link's account as verified. The link works once, for 24 hours. */
-export async function verifyEmail(token: string): Promise<{ readonly verified: true }> {
-  await database().transaction(async (transaction) => {
+/**
+ * Marks the address of the link's account as verified. The link works once, for 24 hours. The
+ * address now proven, the tester invitations sent to it are claimed (lib/services/invitations.ts);
+ * `next` is then the page of the newest one, for the confirmation page to lead to.
+ */
+export async function verifyEmail(token: string): Promise<{ readonly verified: true; readonly next?: string }> {
+  const next = await database().transaction(async (transaction) => {
     const { userId } = await useAccountToken(token, 'verify-email', { transaction })
     const user = await User.findByPk(userId, { transaction })
     if (!user || user.disabledAt) throw new InvalidLinkError()
     if (!user.emailVerifiedAt) await user.update({ emailVerifiedAt: new Date() }, { transaction })
+    return afterClaimPath(await claimInvitationsOf(user, transaction))
   })
-  return { verified: true }
+  return next ? { verified: true, next } : { verified: true }
 }
 
 /** Sends the signed-in person a new verification link ("send it again"); earlier links stop working. */

@@ -1,9 +1,10 @@
 import 'server-only'
 import { Transaction } from 'sequelize'
-import { authorize, type Actor } from '@/lib/authorization'
+import { authorize, can, type Actor, type PatternFacts } from '@/lib/authorization'
 import { database } from '@/lib/db'
 import { ConflictError, NotFoundError, StoredDesignError, UnauthenticatedError, ValidationError } from '@/lib/errors'
 import { emptyDesign } from '@/lib/new-design'
+import { readinessProblems } from '@/lib/pattern-readiness'
 import { parseDesign, type DesignFile } from '@/lib/schemas/design'
 import {
   PATTERN_STATE_CHANGES,
@@ -14,7 +15,8 @@ import {
   type PatternView,
   type UpdatePatternInput,
 } from '@/lib/schemas/pattern'
-import { Pattern, PatternRevision } from '@/models'
+import { Pattern, PatternRevision, PatternStateChange, User } from '@/models'
+import { testerIdsOf } from './testers'
 
 // The answers' shapes are the schemas the browser parses them with (lib/schemas/pattern.ts).
 export type { PatternSummary, PatternView }
@@ -28,6 +30,8 @@ function toSummary(pattern: Pattern): PatternSummary {
     repeats: pattern.repeats,
     outerDiameterInches: pattern.outerDiameterInches,
     seamCount: pattern.seamCount,
+    priceCents: pattern.priceCents ?? null,
+    currency: pattern.currency ?? null,
     createdAt: pattern.createdAt.toISOString(),
     updatedAt: pattern.updatedAt.toISOString(),
   }
@@ -45,7 +49,7 @@ function toView(pattern: Pattern): PatternView {
 }
 
 /** What `listOwnPatterns` reads of a pattern: every field of PatternSummary, no design. */
-const SHELF_COLUMNS = ['id', 'name', 'state', 'revision', 'repeats', 'outerDiameterInches', 'seamCount', 'createdAt', 'updatedAt'] satisfies (keyof Pattern)[]
+const SHELF_COLUMNS = ['id', 'name', 'state', 'revision', 'repeats', 'outerDiameterInches', 'seamCount', 'priceCents', 'currency', 'createdAt', 'updatedAt'] satisfies (keyof Pattern)[]
 
 /** The designer's own patterns, most recently changed first. */
 export async function listOwnPatterns(actor: Actor): Promise<PatternSummary[]> {
@@ -82,6 +86,31 @@ async function findPattern(id: string, transaction?: Transaction): Promise<Patte
 }
 
 /**
+ * What the permission rules need of a pattern: owner, state and its testers now (accepted, live
+ * invitations). Licence holders are the shop's to add (PatternFacts.licenceHolderIds).
+ *
+ * @example authorize(user, 'print-pattern', await patternFacts(pattern))
+ */
+export async function patternFacts(pattern: Pattern, transaction?: Transaction): Promise<PatternFacts> {
+  return { ownerId: pattern.ownerId, state: pattern.state, testerIds: await testerIdsOf(pattern.id, { transaction }) }
+}
+
+/**
+ * A pattern the actor may read (else 404, as for a missing one), with its permission facts, for
+ * the other services of a pattern (invitations, reports).
+ *
+ * @example const { pattern, facts } = await readablePattern(user, id, transaction)
+ */
+export async function readablePattern(actor: Actor, id: string, transaction?: Transaction): Promise<{ pattern: Pattern; facts: PatternFacts }> {
+  if (!actor) throw new UnauthenticatedError()
+  database()
+  const pattern = await findPattern(id, transaction)
+  const facts = await patternFacts(pattern, transaction)
+  authorize(actor, 'read-pattern', facts)
+  return { pattern, facts }
+}
+
+/**
  * The permission step of the routes under /api/patterns/:id (lib/http.ts runs it before reading the
  * body): the pattern must exist and be visible to the actor — 404 otherwise, the same for both —
  * and the action must be allowed (403). The services check again inside their transactions.
@@ -89,21 +118,61 @@ async function findPattern(id: string, transaction?: Transaction): Promise<Patte
 export async function authorizePatternAction(
   actor: Actor,
   id: string,
-  action: 'read-pattern' | 'update-pattern' | 'delete-pattern',
+  action: 'read-pattern' | 'update-pattern' | 'delete-pattern' | 'print-pattern' | 'invite-testers',
 ): Promise<void> {
   // A stranger learns nothing about ids: 401 before any lookup.
   if (!actor) throw new UnauthenticatedError()
-  database()
-  const pattern = await findPattern(id)
-  authorize(actor, 'read-pattern', pattern)
-  if (action !== 'read-pattern') authorize(actor, action, pattern)
+  const { facts } = await readablePattern(actor, id)
+  if (action !== 'read-pattern') authorize(actor, action, facts)
 }
 
 export async function getPattern(actor: Actor, id: string): Promise<PatternView> {
-  database()
-  const pattern = await findPattern(id)
-  authorize(actor, 'read-pattern', pattern)
+  const { pattern } = await readablePattern(actor, id)
   return toView(pattern)
+}
+
+/** The notice a tester's booklet carries on every page (lib/booklet: `footer`). */
+export const TEST_COPY_NOTICE = 'test copy – not for sale'
+
+/** A pattern as the print room gets it: the view, and the footer its booklets must carry (a tester's name and notice), if any. */
+export interface PrintablePattern {
+  readonly pattern: PatternView
+  readonly footer: { readonly person: string; readonly notice: string } | null
+  /** Whether the actor prints as a tester (free, marked as a test copy). */
+  readonly asTester: boolean
+}
+
+/**
+ * The pattern for the print room: its designer and admins print it plain; a tester prints it free
+ * with "test copy – not for sale" and their name in every page's footer. Anyone else: 404.
+ *
+ * @example const { pattern, footer } = await getPatternForPrint(user, id)
+ */
+export async function getPatternForPrint(actor: Actor, id: string): Promise<PrintablePattern> {
+  const { pattern, facts } = await readablePattern(actor, id)
+  authorize(actor, 'print-pattern', facts)
+  // The designer of a pattern who is also its tester (an admin testing) still prints a plain copy.
+  const asTester = can(actor, 'test-pattern', facts) && !can(actor, 'update-pattern', facts)
+  if (!asTester) return { pattern: toView(pattern), footer: null, asTester }
+  const person = await User.findByPk(actor.id, { attributes: ['displayName'] })
+  return { pattern: toView(pattern), footer: { person: person?.displayName ?? 'a tester', notice: TEST_COPY_NOTICE }, asTester }
+}
+
+/** Why a pattern may not move to `to` now; the first rule that refuses names it (field `state`). */
+function refuseStateChange(pattern: Pattern, to: PatternState): void {
+  const refuse = (message: string): never => {
+    throw new ValidationError([{ path: 'state', message }], `The pattern cannot become ${to}: ${message}.`)
+  }
+  if (!PATTERN_STATE_CHANGES[pattern.state as PatternState].includes(to)) refuse(`a ${pattern.state} pattern cannot become ${to}`)
+  if (to === 'testing' || to === 'published') {
+    const parsed = parseDesign(pattern.design)
+    if (!parsed.ok) refuse('the design cannot be read')
+    else {
+      const problem = readinessProblems(parsed.design)[0]
+      if (problem) refuse(problem.message)
+    }
+  }
+  if (to === 'published' && (pattern.priceCents === null || pattern.priceCents === undefined || !pattern.currency)) refuse('it needs a price')
 }
 
 /**
@@ -113,17 +182,11 @@ export async function getPattern(actor: Actor, id: string): Promise<PatternView>
  */
 export async function updatePattern(actor: Actor, id: string, input: UpdatePatternInput): Promise<PatternView> {
   return database().transaction(async (transaction) => {
-    const pattern = await findPattern(id, transaction)
-    authorize(actor, 'read-pattern', pattern)
-    authorize(actor, 'update-pattern', pattern)
-    if (input.state !== undefined && input.state !== pattern.state) {
-      authorize(actor, 'change-pattern-state', pattern)
-      if (!PATTERN_STATE_CHANGES[pattern.state as PatternState].includes(input.state)) {
-        throw new ValidationError([
-          { path: 'state', message: `A ${pattern.state} pattern cannot become ${input.state}.` },
-        ])
-      }
-    }
+    const { pattern, facts } = await readablePattern(actor, id, transaction)
+    authorize(actor, 'update-pattern', facts)
+    const from = pattern.state
+    const changesState = input.state !== undefined && input.state !== from
+    if (changesState) authorize(actor, 'change-pattern-state', facts)
     if (input.revision !== pattern.revision) {
       throw new ConflictError(
         `This pattern was saved elsewhere (now revision ${pattern.revision}; your change started from ${input.revision}).`,
@@ -132,10 +195,19 @@ export async function updatePattern(actor: Actor, id: string, input: UpdatePatte
     }
     pattern.set({
       name: input.name ?? pattern.name,
-      state: input.state ?? pattern.state,
       design: input.design ?? pattern.design,
       revision: pattern.revision + 1,
     })
+    if (input.price !== undefined) {
+      pattern.set({ priceCents: input.price?.priceCents ?? null, currency: input.price?.currency ?? null })
+    }
+    // The rules are checked against the pattern as this change leaves it (a price or a repaired
+    // design sent with the state counts).
+    if (changesState) refuseStateChange(pattern, input.state!)
+    if (pattern.state === 'published' && !changesState && (pattern.priceCents == null || !pattern.currency)) {
+      throw new ValidationError([{ path: 'price', message: 'a published pattern keeps its price; retire it first' }])
+    }
+    if (changesState) pattern.set({ state: input.state! })
     // A change to the name alone still counts as a change of the pattern.
     pattern.changed('updatedAt', true)
     await pattern.save({ transaction })
@@ -150,25 +222,54 @@ export async function updatePattern(actor: Actor, id: string, input: UpdatePatte
       },
       { transaction },
     )
+    if (changesState) await PatternStateChange.create({ patternId: pattern.id, fromState: from, toState: pattern.state, changedById: actor.id }, { transaction })
     return toView(pattern)
   })
+}
+
+/** One move of a pattern, as its history lists it. */
+export interface StateChangeView {
+  readonly from: PatternState
+  readonly to: PatternState
+  /** The person's display name, or null once their account is gone. */
+  readonly by: string | null
+  readonly at: string
+}
+
+/**
+ * The pattern's moves from state to state, oldest first: who and when. For its designer and
+ * admins (testers do not see who else worked on it).
+ *
+ * @example (await listStateChanges(user, id))[0] // { from: 'draft', to: 'testing', by: 'Ada', at: '2026-12-02T…' }
+ */
+export async function listStateChanges(actor: Actor, id: string): Promise<StateChangeView[]> {
+  const { facts } = await readablePattern(actor, id)
+  authorize(actor, 'update-pattern', facts)
+  const changes = await PatternStateChange.findAll({
+    where: { patternId: id },
+    include: [{ model: User, as: 'changedBy', attributes: ['displayName'] }],
+    order: [['createdAt', 'ASC'], ['id', 'ASC']],
+  })
+  return changes.map((change) => ({
+    from: change.fromState,
+    to: change.toState,
+    by: (change as PatternStateChange & { changedBy?: User | null }).changedBy?.displayName ?? null,
+    at: change.createdAt.toISOString(),
+  }))
 }
 
 /** Deletes a pattern with its revisions. */
 export async function deletePattern(actor: Actor, id: string): Promise<void> {
   await database().transaction(async (transaction) => {
-    const pattern = await findPattern(id, transaction)
-    authorize(actor, 'read-pattern', pattern)
-    authorize(actor, 'delete-pattern', pattern)
+    const { pattern, facts } = await readablePattern(actor, id, transaction)
+    authorize(actor, 'delete-pattern', facts)
     await pattern.destroy({ transaction })
   })
 }
 
 /** The saved revisions of a pattern, newest first (without their designs). */
 export async function listRevisions(actor: Actor, id: string) {
-  database()
-  const pattern = await findPattern(id)
-  authorize(actor, 'read-pattern', pattern)
+  await readablePattern(actor, id)
   const revisions = await PatternRevision.findAll({
     where: { patternId: id },
     attributes: ['revision', 'name', 'state', 'createdAt'],

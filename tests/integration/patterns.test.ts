@@ -186,7 +186,8 @@ describe('a designer works on their patterns', () => {
     expect(skip.status).toBe(422)
     expect(skip.json?.error.issues[0].path).toBe('state')
     expect((await call(updatePattern, { method: 'PATCH', cookie, params, body: { revision: 1, state: 'testing' } })).status).toBe(200)
-    expect((await call(updatePattern, { method: 'PATCH', cookie, params, body: { revision: 2, state: 'published' } })).status).toBe(200)
+    // Publishing needs a price (tests/integration/pattern-states.test.ts has every rule).
+    expect((await call(updatePattern, { method: 'PATCH', cookie, params, body: { revision: 2, state: 'published', price: { priceCents: 1000, currency: 'EUR' } } })).status).toBe(200)
   })
 
   it('answers 404 for an id that is not a pattern id', async () => {
