@@ -3,15 +3,16 @@
  * in `next start` on the first one, whose address may therefore be missed (it then counts as
  * unknown; see lib/client-address.ts).
  *
- * It also starts this instance's mail worker (lib/mail/worker.ts), which sends queued messages in
- * the background, unless MAIL_WORKER=off. Every instance may run one: they share the queue.
+ * It also starts this instance's background workers (lib/jobs/worker.ts): the mail worker, which
+ * sends queued messages (unless MAIL_WORKER=off), and the payment worker, which applies verified
+ * payment events (unless PAYMENTS_WORKER=off). Every instance may run them: they share the queues.
  */
 export async function register(): Promise<void> {
   if (process.env.NEXT_RUNTIME !== 'nodejs') return
   const { stampPeerAddresses } = await import('@/lib/peer-address-stamp')
   stampPeerAddresses()
   // `next build` may load this file to collect pages: no worker there.
-  if (process.env.NEXT_PHASE === 'phase-production-build' || process.env.MAIL_WORKER === 'off') return
-  const { runMailWorkerInThisProcess } = await import('@/lib/mail/worker')
-  runMailWorkerInThisProcess()
+  if (process.env.NEXT_PHASE === 'phase-production-build') return
+  const { runJobWorkersInThisProcess } = await import('@/lib/jobs/worker')
+  runJobWorkersInThisProcess()
 }

@@ -15,6 +15,8 @@ const env = (overrides: Partial<ServerEnv>): ServerEnv => ({
   MAIL_RETRY_LIMIT: 6,
   MAIL_RETRY_DELAY_SECONDS: 30,
   MAIL_POLL_SECONDS: 2,
+  PAYMENTS_WORKER: 'on',
+  PAYMENTS_POLL_SECONDS: 1,
   ...overrides,
 })
 

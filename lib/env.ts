@@ -74,6 +74,23 @@ const serverEnvSchema = z.object({
   MAIL_RETRY_DELAY_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
   /** How often an idle worker looks for new messages (pg-boss's minimum is 0.5 s). */
   MAIL_POLL_SECONDS: z.coerce.number().min(0.5).max(60).default(2),
+  /**
+   * The payment provider's API, reached through its official SDK (lib/payments/provider.ts).
+   * Unset, the SDK talks to the provider itself; `npm run demo` and `npm test` start a local fake
+   * (scripts/payment-fake.ts) on loopback and point this at it. Without PAYMENTS_SECRET_KEY,
+   * checkout answers 503; without PAYMENTS_WEBHOOK_SECRET, every webhook call is refused.
+   */
+  PAYMENTS_API_URL: z
+    .string()
+    .refine((value) => URL.canParse(value) && /^https?:$/.test(new URL(value).protocol), 'an http(s) URL')
+    .optional(),
+  PAYMENTS_SECRET_KEY: z.string().min(1).optional(),
+  /** The secret the provider signs webhook events with (`whsec_…`). */
+  PAYMENTS_WEBHOOK_SECRET: z.string().min(1).optional(),
+  /** `off` keeps this process from processing payment events (another instance does). */
+  PAYMENTS_WORKER: z.enum(['on', 'off']).default('on'),
+  /** How often an idle payment worker looks for queued events (pg-boss's minimum is 0.5 s). */
+  PAYMENTS_POLL_SECONDS: z.coerce.number().min(0.5).max(60).default(1),
 })
 
 export type ServerEnv = z.infer<typeof serverEnvSchema>
@@ -155,5 +172,33 @@ export function mailSettings(env: ServerEnv = serverEnv()): MailSettings {
     retryLimit: env.MAIL_RETRY_LIMIT,
     retryDelaySeconds: env.MAIL_RETRY_DELAY_SECONDS,
     pollSeconds: env.MAIL_POLL_SECONDS,
+  }
+}
+
+/** How the app reaches the payment provider (lib/payments/). */
+export interface PaymentSettings {
+  /** Null when PAYMENTS_SECRET_KEY is unset: checkout is closed. */
+  readonly secretKey: string | null
+  /** Null when unset: every webhook call is refused. */
+  readonly webhookSecret: string | null
+  /** The API's address when it is not the provider's own (the local fake); null otherwise. */
+  readonly api: { readonly host: string; readonly port: number; readonly protocol: 'http' | 'https' } | null
+  readonly worker: boolean
+  readonly pollSeconds: number
+}
+
+export function paymentSettings(env: ServerEnv = serverEnv()): PaymentSettings {
+  let api: PaymentSettings['api'] = null
+  if (env.PAYMENTS_API_URL) {
+    const url = new URL(env.PAYMENTS_API_URL)
+    const protocol = url.protocol === 'https:' ? 'https' : 'http'
+    api = { host: url.hostname, port: url.port ? Number(url.port) : protocol === 'https' ? 443 : 80, protocol }
+  }
+  return {
+    secretKey: env.PAYMENTS_SECRET_KEY ?? null,
+    webhookSecret: env.PAYMENTS_WEBHOOK_SECRET ?? null,
+    api,
+    worker: env.PAYMENTS_WORKER === 'on',
+    pollSeconds: env.PAYMENTS_POLL_SECONDS,
   }
 }

@@ -71,6 +71,12 @@ export interface RouteSpec<Param extends string, S extends SessionRule, Resource
   /** 'required': strangers get 401 before anything else is looked at. */
   readonly session: S
   /**
+   * Who may send state-changing requests: 'same' (the default) only this app's pages; 'signed' any
+   * caller, for a webhook, which comes from another server with no browser origin and proves itself
+   * by a signature over the raw body that its handler checks (`body: 'bytes'`).
+   */
+  readonly origin?: 'same' | 'signed'
+  /**
    * Loads what the route acts on and calls `authorize` (lib/authorization.ts), throwing 401, 403 or
    * 404; what it returns is the handler's `resource`. Runs before the body is read.
    */
@@ -201,7 +207,7 @@ export function route<Param extends string = never, S extends SessionRule = Sess
     let setCookie: string | null = null
     try {
       checkAnnouncedSize(request, spec.bodyLimit)
-      if (!SAFE_METHODS.has(request.method) && !isSameOrigin(request)) {
+      if (spec.origin !== 'signed' && !SAFE_METHODS.has(request.method) && !isSameOrigin(request)) {
         throw new ServiceError('This request did not come from a Wreathwright page.', 403)
       }
       const check = await checkSession(sessionIdFromRequest(request))

@@ -8,15 +8,19 @@
  * .data/objects/, stopped with the rest.
  * Every message the app sends goes to a local mail catcher (maildev): SMTP on 127.0.0.1:54332, its
  * web view on http://127.0.0.1:54331, messages kept in .data/mail/, stopped with the rest.
+ * Payments go to a local fake of the payment provider (scripts/payment-fake.ts) on
+ * http://127.0.0.1:54333: its test payment page has "Pay" and "Cancel" buttons, and it sends the
+ * signed events to the app's webhook. No money moves; it forgets everything when stopped.
  * Settings: WREATHWRIGHT_DB_PORT (default 54329), WREATHWRIGHT_S3_PORT (default 54330),
  * WREATHWRIGHT_MAIL_PORT (the catcher's web view, default 54331), WREATHWRIGHT_SMTP_PORT (default 54332),
- * PORT (default 3000).
+ * WREATHWRIGHT_PAYMENTS_PORT (default 54333), PORT (default 3000).
  */
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
 import { isPortTaken, run, startProcess, stopProcess, waitForHttp } from './processes'
 import { startMailCatcher, type MailCatcher } from './mail-catcher'
 import { startObjectStore, type ObjectStore } from './object-store'
+import { startPaymentFake, type PaymentFake } from './payment-fake'
 import { isClusterRunning, projectClusterFolder, projectPasswordFile, startCluster, type Cluster } from './postgres'
 
 const projectRoot = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '..')
@@ -25,6 +29,7 @@ const appPort = Number(process.env.PORT ?? 3000)
 const objectStorePort = Number(process.env.WREATHWRIGHT_S3_PORT ?? 54330)
 const mailWebPort = Number(process.env.WREATHWRIGHT_MAIL_PORT ?? 54331)
 const smtpPort = Number(process.env.WREATHWRIGHT_SMTP_PORT ?? 54332)
+const paymentsPort = Number(process.env.WREATHWRIGHT_PAYMENTS_PORT ?? 54333)
 
 /** A problem the person running the demo can fix: one line on stderr, exit code 2, no stack trace. */
 function refuse(message: string): never {
@@ -48,6 +53,9 @@ if (await isPortTaken(mailWebPort)) {
 }
 if (await isPortTaken(smtpPort)) {
   refuse(`something already listens on 127.0.0.1:${smtpPort}, where the demo's mail catcher takes messages; stop it or set WREATHWRIGHT_SMTP_PORT`)
+}
+if (await isPortTaken(paymentsPort)) {
+  refuse(`something already listens on 127.0.0.1:${paymentsPort}, where the demo's payment fake goes; stop it or set WREATHWRIGHT_PAYMENTS_PORT`)
 }
 
 let cluster: Cluster
@@ -75,10 +83,21 @@ try {
   if (!clusterWasRunning) cluster.stop()
   process.exit(1)
 }
+let paymentFake: PaymentFake
+try {
+  paymentFake = await startPaymentFake({ port: paymentsPort, webhookUrl: `http://127.0.0.1:${appPort}/api/webhooks/payments` })
+} catch (error) {
+  console.error(`demo: could not start the payment fake: ${(error as Error).message.trim()}`)
+  await mailCatcher.stop().catch(() => undefined)
+  await objectStore.stop().catch(() => undefined)
+  if (!clusterWasRunning) cluster.stop()
+  process.exit(1)
+}
 const env = {
   ...process.env,
   ...objectStore.env,
   ...mailCatcher.env,
+  ...paymentFake.env,
   DATABASE_URL: cluster.url('wreathwright'),
   NEXT_TELEMETRY_DISABLED: '1',
   // The demo serves plain http on loopback; a Secure cookie would not be sent back.
@@ -96,6 +115,7 @@ async function stopAll(code: number): Promise<never> {
     await stopProcess(app)
     await objectStore.stop().catch((error: Error) => console.error(`demo: could not stop the object store: ${error.message}`))
     await mailCatcher.stop().catch((error: Error) => console.error(`demo: could not stop the mail catcher: ${error.message}`))
+    await paymentFake.stop().catch((error: Error) => console.error(`demo: could not stop the payment fake: ${error.message}`))
     if (!clusterWasRunning) {
       try {
         cluster.stop()
@@ -128,6 +148,7 @@ app: http://127.0.0.1:${appPort}
 database: http://127.0.0.1:${databasePort} (PostgreSQL; data in ${cluster.folder}, password in ${projectPasswordFile(projectRoot, databasePort)})
 object-store: ${objectStore.url} (S3-compatible, bucket ${objectStore.bucket}; data in ${objectStore.folder})
 mail: ${mailCatcher.url} (every message the app sends, caught; SMTP on 127.0.0.1:${mailCatcher.smtpPort})
+payments: ${paymentFake.url} (the payment provider's local fake: test payment pages, signed events to the app; no money moves)
 
 Demo sign-ins (password for all: ${DEMO_PASSWORD}):
 ${DEMO_PEOPLE.map((person) => `  ${person.email.padEnd(34)} ${person.note}`).join('\n')}

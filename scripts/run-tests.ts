@@ -6,6 +6,8 @@
  *   3. a throwaway S3-compatible object store (s3rver) in that folder, on a free loopback port;
  *   4. a mail catcher (maildev), SMTP and web view on free loopback ports: the app and the
  *      integration tests send to it, the tests read what came through its API (MAIL_CATCHER_URL);
+ *      and the payment provider's local fake (scripts/payment-fake.ts) on a free loopback port: the
+ *      integration tests point its webhooks at themselves, the end-to-end run at the app;
  *   5. unit and integration tests (vitest), the integration ones against that database, store and catcher;
  *   6. the app built and started on a free port with demo data in a second database;
  *   7. end-to-end tests in headless Debian Chromium (playwright-core) against it.
@@ -17,6 +19,7 @@ import os from 'node:os'
 import path from 'node:path'
 import { startMailCatcher, type MailCatcher } from './mail-catcher'
 import { startObjectStore, type ObjectStore } from './object-store'
+import { startPaymentFake, type PaymentFake } from './payment-fake'
 import { freePort, run, startProcess, stopProcess, waitForHttp } from './processes'
 import { startCluster, type Cluster } from './postgres'
 
@@ -30,11 +33,13 @@ let cluster: Cluster | undefined
 let app: ReturnType<typeof startProcess> | undefined
 let objectStore: ObjectStore | undefined
 let mailCatcher: MailCatcher | undefined
+let paymentFake: PaymentFake | undefined
 
 async function cleanUp(): Promise<void> {
   await stopProcess(app)
   await objectStore?.stop().catch((error: Error) => console.error(`tests: could not stop the object store: ${error.message}`))
   await mailCatcher?.stop().catch((error: Error) => console.error(`tests: could not stop the mail catcher: ${error.message}`))
+  await paymentFake?.stop().catch((error: Error) => console.error(`tests: could not stop the payment fake: ${error.message}`))
   try {
     cluster?.stop()
   } catch (error) {
@@ -87,12 +92,16 @@ try {
   mailCatcher = await startMailCatcher(path.join(workFolder, 'mail'), await freePort(), await freePort())
   // The app's mail settings, plus the catcher's address for the tests that read what it caught.
   const mailEnv = { ...mailCatcher.env, MAIL_CATCHER_URL: mailCatcher.url }
+  paymentFake = await startPaymentFake({ port: await freePort() })
+  // Quick polling, so a webhook's effect (a licence) shows within a second.
+  const paymentEnv = { ...paymentFake.env, PAYMENTS_POLL_SECONDS: '0.5' }
 
   console.log('\n== unit and integration tests ==')
   const testEnv = {
     ...baseEnv,
     ...objectStore.env,
     ...mailEnv,
+    ...paymentEnv,
     // Quick retries and polling, so a test of a failing SMTP server sees the last try within seconds.
     MAIL_RETRY_LIMIT: '2',
     MAIL_RETRY_DELAY_SECONDS: '1',
@@ -103,7 +112,7 @@ try {
   if ((await vitest(['unit', 'integration'], path.join(reports, 'unit.json'), testEnv)) !== 0) failedSteps.push('unit/integration')
 
   console.log('\n== build and start the app for end-to-end tests ==')
-  const e2eEnv = { ...baseEnv, ...objectStore.env, ...mailEnv, MAIL_POLL_SECONDS: '0.5', DATABASE_URL: cluster.url('wreathwright_e2e'), SESSION_COOKIE_SECURE: 'false' }
+  const e2eEnv = { ...baseEnv, ...objectStore.env, ...mailEnv, ...paymentEnv, MAIL_POLL_SECONDS: '0.5', DATABASE_URL: cluster.url('wreathwright_e2e'), SESSION_COOKIE_SECURE: 'false' }
   const prepared =
     (await run('npx', ['tsx', 'scripts/migrate.ts', 'up'], e2eEnv)) === 0 &&
     (await run('npx', ['tsx', 'scripts/seed-demo.ts'], e2eEnv)) === 0 &&
@@ -114,6 +123,8 @@ try {
     const appPort = await freePort()
     // The app's own origin, for its origin check: the loopback address it is started on here.
     const appEnv = { ...e2eEnv, PUBLIC_URL: `http://127.0.0.1:${appPort}` }
+    // The provider's events go to the app's webhook from here on (the integration tests had them).
+    paymentFake.setWebhookUrl(`http://127.0.0.1:${appPort}/api/webhooks/payments`)
     app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(appPort)], appEnv, { quiet: true })
     await waitForHttp(`http://127.0.0.1:${appPort}/api/health`)
     console.log('\n== end-to-end tests (headless Chromium) ==')

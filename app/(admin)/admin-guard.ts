@@ -5,7 +5,7 @@ import { getCurrentUser, requireUser } from '@/lib/auth/current-user'
 import { can, type Action } from '@/lib/authorization'
 import type { CurrentUser } from '@/lib/auth/session'
 
-type DeskAction = Extract<Action, 'manage-users' | 'decide-designer-requests' | 'read-audit-log' | 'read-mail-log'>
+type DeskAction = Extract<Action, 'manage-users' | 'decide-designer-requests' | 'read-audit-log' | 'read-mail-log' | 'read-payment-log'>
 
 /**
  * For the admin desk's layout and each of its pages (Next.js renders a page alongside its layout,

@@ -7,6 +7,7 @@ const SECTIONS = [
   { href: '/admin/users', label: 'People' },
   { href: '/admin/requests', label: 'Designer requests' },
   { href: '/admin/mail', label: 'Mail log' },
+  { href: '/admin/payments', label: 'Payment log' },
   { href: '/admin/audit', label: 'Audit log' },
 ] as const
 

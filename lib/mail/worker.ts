@@ -66,7 +66,7 @@ async function deliver(job: PgBoss.JobWithMetadata<MailJob>, transport: Transpor
 }
 
 /**
- * Starts this process's mail worker (instrumentation.ts does, unless MAIL_WORKER=off). Without
+ * Starts this process's mail worker (lib/jobs/worker.ts does, unless MAIL_WORKER=off). Without
  * SMTP settings it says so once and does not start: messages wait in the queue. Calling it again
  * while it runs does nothing.
  */
@@ -104,16 +104,4 @@ export async function stopMailWorker(timeoutMs = 10_000): Promise<void> {
   if (!worker) return
   await worker.boss.stop({ graceful: true, close: true, timeout: timeoutMs })
   worker.transport.close()
-}
-
-/**
- * The app's own worker (instrumentation.ts): started in the background, so a database that is
- * not up yet delays the mail and not the app; stopped on SIGTERM or SIGINT, letting a message
- * being sent finish (an unfinished one is tried again by the next start).
- */
-export function runMailWorkerInThisProcess(): void {
-  startMailWorker().catch((error: Error) => console.error(`mail: the worker did not start: ${error.message}`))
-  for (const signal of ['SIGTERM', 'SIGINT'] as const) {
-    process.once(signal, () => void stopMailWorker().finally(() => process.exit(0)))
-  }
 }

@@ -1,0 +1,60 @@
+import 'server-only'
+import type PgBoss from 'pg-boss'
+import type { ClientBase } from 'pg'
+import type { Transaction } from 'sequelize'
+import { senderBoss } from '@/lib/mail/queue'
+
+/**
+ * The app's background jobs beside mail, on the same durable queue (pg-boss in the app's
+ * PostgreSQL, lib/mail/queue.ts). Each kind of job has its queue and retry policy here; workers
+ * are in lib/jobs/worker.ts.
+ */
+
+/** Verified payment events waiting to be applied (lib/payments/process.ts). */
+export const PAYMENT_EVENTS_QUEUE = 'payment-events'
+
+export interface PaymentEventJob {
+  /** The payment_events row. */
+  eventId: string
+}
+
+/**
+ * The payment events' policy: tries again after 2 s, 4 s, 8 s … (ten tries, about half an hour in
+ * all) when processing fails, e.g. while the database is briefly away.
+ */
+const PAYMENT_QUEUE_OPTIONS = { name: PAYMENT_EVENTS_QUEUE, retryLimit: 10, retryDelay: 2, retryBackoff: true }
+
+export async function ensurePaymentQueue(boss: PgBoss): Promise<void> {
+  await boss.createQueue(PAYMENT_EVENTS_QUEUE, PAYMENT_QUEUE_OPTIONS)
+  await boss.updateQueue(PAYMENT_EVENTS_QUEUE, PAYMENT_QUEUE_OPTIONS)
+}
+
+/** The payment queue is made once per sending instance (a closed sender is replaced by a new one). */
+const readyFor = new WeakMap<Promise<PgBoss>, Promise<PgBoss>>()
+
+/** The mail queue's sending instance, with the job queues made on it. */
+function jobSender(): Promise<PgBoss> {
+  const sender = senderBoss()
+  let ready = readyFor.get(sender)
+  if (!ready) {
+    ready = sender.then(async (boss) => {
+      await ensurePaymentQueue(boss)
+      return boss
+    })
+    ready.catch(() => readyFor.delete(sender))
+    readyFor.set(sender, ready)
+  }
+  return ready
+}
+
+/**
+ * Queues a job in the caller's transaction: it is inserted through the transaction's own
+ * connection, so it commits or rolls back with the caller's rows (as queueMail does).
+ */
+export async function queueJob(queue: typeof PAYMENT_EVENTS_QUEUE, data: PaymentEventJob, transaction: Transaction): Promise<void> {
+  const boss = await jobSender()
+  const connection = (transaction as unknown as { connection: ClientBase }).connection
+  const db = { executeSql: (text: string, values: unknown[]) => connection.query(text, values) }
+  const jobId = await boss.send(queue, data, { db })
+  if (!jobId) throw new Error(`queueJob: the ${queue} queue refused the job`)
+}
