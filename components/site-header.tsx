@@ -17,6 +17,11 @@ export async function SiteHeader() {
             Pattern shelf
           </Link>
         )}
+        {can(user, 'list-patterns-to-test') && (
+          <Link href="/testing" className="text-sm text-stone-700 hover:text-thread-700">
+            Patterns to test
+          </Link>
+        )}
         {can(user, 'manage-users') && (
           <Link href="/admin" className="text-sm text-stone-700 hover:text-thread-700">
             Admin desk

@@ -30,6 +30,44 @@ describe('can', () => {
   })
 })
 
+describe('testers and licence holders', () => {
+  const testing = { ownerId: 'designer-1', state: 'testing' as const, testerIds: ['tester-1'] }
+  const tester = person(['quilter'], 'tester-1')
+
+  it('lets a tester read and print the pattern while it is in testing, nothing more', () => {
+    expect(can(tester, 'read-pattern', testing)).toBe(true)
+    expect(can(tester, 'print-pattern', testing)).toBe(true)
+    expect(can(tester, 'test-pattern', testing)).toBe(true)
+    for (const action of ['update-pattern', 'delete-pattern', 'change-pattern-state', 'invite-testers'] as const) {
+      expect(can(tester, action, testing)).toBe(false)
+    }
+  })
+
+  it.each(['draft', 'published', 'retired'] as const)('closes a %s pattern to its testers', (state) => {
+    expect(can(tester, 'read-pattern', { ...testing, state })).toBe(false)
+    expect(can(tester, 'print-pattern', { ...testing, state })).toBe(false)
+  })
+
+  it('gives nothing to someone not listed, or when the testers were not looked up', () => {
+    expect(can(person(['quilter'], 'tester-2'), 'read-pattern', testing)).toBe(false)
+    expect(can(tester, 'read-pattern', { ownerId: 'designer-1', state: 'testing' })).toBe(false)
+  })
+
+  it('lets a licence holder read and print a published or retired pattern, not a draft', () => {
+    const buyer = person(['quilter'], 'buyer-1')
+    for (const state of ['published', 'retired'] as const) {
+      expect(can(buyer, 'print-pattern', { ownerId: 'designer-1', state, licenceHolderIds: ['buyer-1'] })).toBe(true)
+    }
+    expect(can(buyer, 'read-pattern', { ownerId: 'designer-1', state: 'draft', licenceHolderIds: ['buyer-1'] })).toBe(false)
+  })
+
+  it('lets only the owning designer or an admin invite testers', () => {
+    expect(can(person(['designer'], 'designer-1'), 'invite-testers', testing)).toBe(true)
+    expect(can(person(['admin'], 'admin-1'), 'invite-testers', testing)).toBe(true)
+    expect(can(person(['designer'], 'designer-2'), 'invite-testers', testing)).toBe(false)
+  })
+})
+
 describe('authorize', () => {
   it('asks who is there first, then hides unreadable patterns as missing, then forbids', () => {
     expect(() => authorize(null, 'create-pattern')).toThrow(UnauthenticatedError)

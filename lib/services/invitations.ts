@@ -100,6 +100,7 @@ export async function inviteTester(actor: Actor, patternId: string, input: Creat
           acceptedAt: claimsNow ? now : null,
           withdrawnAt: null,
           expiresAt: new Date(now.getTime() + invitationLifetimeDays() * DAY_MS),
+          createdAt: now,
         },
         { transaction },
       )

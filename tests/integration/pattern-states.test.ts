@@ -69,7 +69,7 @@ describe('moving a pattern from state to state', () => {
   it.each([
     ['another designer', ['designer'], 404],
     ['a quilter', ['quilter'], 404],
-  ] as const)('refuses %s (%i), and records nothing', async (_who, roles, status) => {
+  ] as const)('refuses %s (not found, as for a missing pattern), and records nothing', async (_who, roles, status) => {
     const designer = await person(['designer'])
     const stranger = await person([...roles])
     const pattern = await patternIn(designer.user, 'draft')

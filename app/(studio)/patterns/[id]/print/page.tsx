@@ -5,7 +5,7 @@ import { requireUser } from '@/lib/auth/current-user'
 import { UnreadableDesign } from '@/components/patterns/unreadable-design'
 import { StoredDesignError } from '@/lib/errors'
 import { loadForPatternPage } from '@/lib/pattern-page'
-import { getPattern } from '@/lib/services/patterns'
+import { getPatternForPrint } from '@/lib/services/patterns'
 
 export const metadata: Metadata = { title: 'Print room' }
 
@@ -13,8 +13,9 @@ export const metadata: Metadata = { title: 'Print room' }
 export default async function PrintPage({ params }: { params: Promise<{ id: string }> }) {
   const { id } = await params
   const user = await requireUser(undefined, `/patterns/${id}/print`)
-  const pattern = await loadForPatternPage(getPattern(user, id))
-  if (pattern instanceof StoredDesignError) return <UnreadableDesign error={pattern} />
+  const loaded = await loadForPatternPage(getPatternForPrint(user, id))
+  if (loaded instanceof StoredDesignError) return <UnreadableDesign error={loaded} />
+  const { pattern, footer } = loaded
   return (
     <article className="mx-auto max-w-6xl space-y-6">
       <Link href={`/patterns/${pattern.id}`} className="text-sm text-thread-700 hover:underline">
@@ -25,7 +26,7 @@ export default async function PrintPage({ params }: { params: Promise<{ id: stri
         One PDF booklet: cover, cutting list, sewing steps, the foundations mirrored at exact scale and tiled across
         your paper, templates and a placement guide. Revision {pattern.revision}.
       </p>
-      <PrintDialog name={pattern.name} design={pattern.design} />
+      <PrintDialog name={pattern.name} design={pattern.design} footer={footer ?? undefined} />
     </article>
   )
 }
