@@ -67,9 +67,15 @@ describe('npm run demo on a taken port', () => {
   it.each([
     ['WREATHWRIGHT_MAIL_PORT', "where the demo's mail catcher shows its messages"],
     ['WREATHWRIGHT_SMTP_PORT', "where the demo's mail catcher takes messages"],
-  ])("says in one line that the mail catcher's %s is taken and exits 2, before starting PostgreSQL", async (setting, where) => {
+    ['WREATHWRIGHT_PAYMENTS_PORT', "where the demo's payment fake goes"],
+  ])("says in one line that the mail catcher's or the payment fake's %s is taken and exits 2, before starting PostgreSQL", async (setting, where) => {
     const takenPort = await occupyPort()
-    const free = { WREATHWRIGHT_S3_PORT: String(await freePort()), WREATHWRIGHT_MAIL_PORT: String(await freePort()), WREATHWRIGHT_SMTP_PORT: String(await freePort()) }
+    const free = {
+      WREATHWRIGHT_S3_PORT: String(await freePort()),
+      WREATHWRIGHT_MAIL_PORT: String(await freePort()),
+      WREATHWRIGHT_SMTP_PORT: String(await freePort()),
+      WREATHWRIGHT_PAYMENTS_PORT: String(await freePort()),
+    }
     const result = await runDemo({ PORT: String(await freePort()), WREATHWRIGHT_DB_PORT: String(await freePort()), ...free, [setting]: String(takenPort) })
     expect(result.code).toBe(2)
     expect(result.stderr.trim().split('\n')).toEqual([`demo: something already listens on 127.0.0.1:${takenPort}, ${where}; stop it or set ${setting}`])

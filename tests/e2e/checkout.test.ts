@@ -1,6 +1,7 @@
 import type { Browser } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { closeDatabase, database } from '@/lib/db'
+import { checkoutAnswerSchema } from '@/lib/schemas/shop'
 import { Pattern } from '@/models'
 import { baseUrl, launchBrowser, signInThroughPage } from '../support/browser'
 import { createUser, TEST_PASSWORD } from '../support/factories'
@@ -29,10 +30,11 @@ describe('buying a pattern', () => {
     const page = await (await browser.newContext()).newPage()
     await signInThroughPage(page, quilter.email, TEST_PASSWORD)
     // The shop's pattern pages come later; the page's own fetch starts the checkout as theirs will.
-    const { url } = await page.evaluate(async (patternId) => {
+    const answer = await page.evaluate(async (patternId) => {
       const response = await fetch('/api/shop/checkout', { method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ patternId, amountCents: 1 }) })
-      return (await response.json()) as { url: string }
+      return (await response.json()) as unknown
     }, pattern.id)
+    const { url } = checkoutAnswerSchema.parse(answer)
     expect(new URL(url).origin).toBe(process.env.PAYMENTS_API_URL)
     await page.goto(url)
     // The fake's page shows the pattern's price, not the 1 cent the page sent: 1450 cents of USD.

@@ -4,6 +4,7 @@ import { GET as orderStatus } from '@/app/api/shop/orders/[id]/route'
 import { POST as webhook } from '@/app/api/webhooks/payments/route'
 import { GET as library } from '@/app/api/library/route'
 import { GET as paymentLog } from '@/app/api/admin/payments/route'
+import { libraryAnswerSchema } from '@/lib/schemas/shop'
 import { Licence, Order, PaymentEvent, Pattern } from '@/models'
 import { closeDatabase, freshDatabase } from '../support/database'
 import { createPatternRow, createUser, sessionCookieFor } from '../support/factories'
@@ -145,8 +146,8 @@ describe('the payment webhook', () => {
     expect(await Licence.count({ where: { userId: quilter.id } })).toBe(1)
     expect(await PaymentEvent.count({ where: { providerEventId: completed!.event.id } })).toBe(1)
 
-    const listed = await call(library, { cookie })
-    expect(listed.json!.licences).toEqual([expect.objectContaining({ id: licence.id, number: licence.number, patternId: pattern.id, patternName: 'Hollyhock Ring', designer: 'Maren Holt' })])
+    const listed = libraryAnswerSchema.parse((await call(library, { cookie })).json)
+    expect(listed.licences).toEqual([expect.objectContaining({ id: licence.id, number: licence.number, patternId: pattern.id, patternName: 'Hollyhock Ring', designer: 'Maren Holt' })])
     // Buying it again is refused: the licence is held.
     expect((await startCheckout(cookie, { patternId: pattern.id })).status).toBe(409)
   })
