@@ -15,8 +15,14 @@ import { emptyDesign } from '../lib/new-design'
 import type { Role } from '../lib/roles'
 import type { DesignFile } from '../lib/schemas/design'
 import { designFileSchema } from '../lib/schemas/design'
-import type { PatternState } from '../lib/schemas/pattern'
-import { AdminAuditEntry, OutgoingMail, Pattern, PatternRevision, User } from '../models'
+import type { PatternCurrency, PatternState } from '../lib/schemas/pattern'
+import { planDesign } from '../geometry'
+import { pinOf } from '../lib/report-place'
+import { parseDesign } from '../lib/schemas/design'
+import type { ReportKind, ReportPlace, ReportSeverity } from '../lib/schemas/report'
+import { AdminAuditEntry, Invitation, OutgoingMail, Pattern, PatternRevision, Report, ReportMessage, ReportPhoto, User } from '../models'
+import type { ReportAuthorRole } from '../models/report-message'
+import { storeDemoPhotos, type DemoPhoto } from './demo-photos'
 import type { AdminAction } from '../models/admin-audit-entry'
 import { hollyberryWreath } from './demo-wreath'
 
@@ -42,7 +48,8 @@ export const DEMO_PEOPLE: readonly DemoPerson[] = [
   { email: 'odile@wreathwright.example', displayName: 'Odile Fairweather', roles: ['admin'], note: 'admin (the admin desk: /admin)' },
   { email: 'marguerite@bramblelane.example', displayName: 'Marguerite Okafor', roles: ['designer', 'quilter'], note: 'designer, Bramble Lane Quiltworks' },
   { email: 'tomasz@juniperthread.example', displayName: 'Tomasz Lindqvist', roles: ['designer', 'quilter'], note: 'designer, Juniper Thread Co.' },
-  { email: 'priya@testers.example', displayName: 'Priya Desmond', roles: ['tester', 'quilter'], note: 'pattern tester' },
+  { email: 'priya@testers.example', displayName: 'Priya Desmond', roles: ['tester', 'quilter'], note: 'pattern tester of Lantern Medallion (reports with photos and threads)' },
+  { email: 'hana@testers.example', displayName: 'Hana Kowalczyk', roles: ['quilter'], note: 'second tester of Lantern Medallion' },
   { email: 'elsie@quilters.example', displayName: 'Elsie Varga', roles: ['quilter'], note: 'quilter' },
   { email: 'ruben@quilters.example', displayName: 'Ruben Achterberg', roles: ['quilter'], note: 'quilter' },
   {
@@ -230,8 +237,9 @@ const winterStarSketch: DesignFile = {
   ],
 }
 
-export const DEMO_PATTERNS: readonly { owner: string; state: PatternState; design: DesignFile }[] = [
-  { owner: 'marguerite@bramblelane.example', state: 'published', design: hollyberryWreath },
+/** A pattern that is or was for sale carries its price, in integer cents. */
+export const DEMO_PATTERNS: readonly { owner: string; state: PatternState; design: DesignFile; priceCents?: number; currency?: PatternCurrency }[] = [
+  { owner: 'marguerite@bramblelane.example', state: 'published', design: hollyberryWreath, priceCents: 1400, currency: 'USD' },
   { owner: 'marguerite@bramblelane.example', state: 'testing', design: lanternMedallion },
   { owner: 'marguerite@bramblelane.example', state: 'draft', design: winterStarSketch },
   { owner: 'tomasz@juniperthread.example', state: 'draft', design: compassRing },
@@ -239,6 +247,8 @@ export const DEMO_PATTERNS: readonly { owner: string; state: PatternState; desig
     owner: 'tomasz@juniperthread.example',
     state: 'retired',
     design: { ...compassRing, name: 'Sunday Ring', ring: { ...compassRing.ring, repeats: 8 } },
+    priceCents: 1150,
+    currency: 'EUR',
   },
 ]
 
@@ -264,11 +274,12 @@ async function seedCrowd(passwordHash: string, transaction: Transaction): Promis
 }
 
 /** Loads the demo people and patterns into the database named by DATABASE_URL; safe to repeat. */
-export async function seedDemoData(): Promise<{ people: number; patterns: number }> {
+export async function seedDemoData(): Promise<{ people: number; patterns: number; reports: number }> {
   const sequelize = database()
   const passwordHash = await hashPassword(DEMO_PASSWORD)
   let people = 0
   let patterns = 0
+  let reports = 0
   await sequelize.transaction(async (transaction) => {
     const owners = new Map<string, User>()
     const created = new Set<string>()
@@ -326,7 +337,7 @@ export async function seedDemoData(): Promise<{ people: number; patterns: number
       const owner = owners.get(demo.owner)!
       const [pattern, isNew] = await Pattern.findOrCreate({
         where: { ownerId: owner.id, name: design.name },
-        defaults: { ownerId: owner.id, name: design.name, state: demo.state, design, revision: 1 },
+        defaults: { ownerId: owner.id, name: design.name, state: demo.state, design, revision: 1, priceCents: demo.priceCents ?? null, currency: demo.currency ?? null },
         transaction,
       })
       if (!isNew) continue
@@ -336,6 +347,131 @@ export async function seedDemoData(): Promise<{ people: number; patterns: number
         { transaction },
       )
     }
+    reports = await seedTestRound(owners, transaction)
   })
-  return { people, patterns }
+  return { people, patterns, reports }
+}
+
+/** The test round of the pattern in testing: who was invited, and what they reported. */
+export const DEMO_TEST_ROUND = {
+  designer: 'marguerite@bramblelane.example',
+  pattern: 'Lantern Medallion',
+  /** Accepted invitations: testers now. */
+  testers: ['priya@testers.example', 'hana@testers.example'],
+  /** Sent but not yet taken up (no account with this address yet). */
+  pendingInvitations: ['felix@sewing-circle.example'],
+} as const
+
+interface DemoReport {
+  readonly tester: string
+  readonly kind: ReportKind
+  readonly severity: ReportSeverity
+  readonly text: string
+  readonly place: ReportPlace
+  readonly state: 'open' | 'resolved'
+  readonly daysAgo: number
+  readonly photos: readonly DemoPhoto[]
+  readonly thread: readonly { readonly from: string; readonly role: ReportAuthorRole; readonly text: string; readonly daysAgo: number }[]
+}
+
+export const DEMO_REPORTS: readonly DemoReport[] = [
+  {
+    tester: 'priya@testers.example',
+    kind: 'cutting',
+    severity: 'blocks-sewing',
+    text: 'The rough-cut piece for A3 comes out about 1/4 in short along the outer arc: after flipping it, the seam allowance at the edge of the ring is not covered.',
+    place: { area: 'A3' },
+    state: 'open',
+    daysAgo: 6,
+    photos: [{ base: '#8a4b2f', band: '#e8dcc4' }],
+    thread: [
+      { from: 'marguerite@bramblelane.example', role: 'designer', text: 'Thank you! Which paper did you print on, and did the 1 in test square measure true?', daysAgo: 5 },
+      { from: 'priya@testers.example', role: 'tester', text: 'US Letter, and the test square was exactly 1 in. The photo shows the gap at the outer edge.', daysAgo: 5 },
+    ],
+  },
+  {
+    tester: 'priya@testers.example',
+    kind: 'printing',
+    severity: 'minor',
+    text: 'On page 2 the cutting list names the background fabric twice.',
+    place: { page: 2 },
+    state: 'resolved',
+    daysAgo: 8,
+    photos: [],
+    thread: [{ from: 'marguerite@bramblelane.example', role: 'designer', text: 'Well spotted: the second line was the binding. Fixed for the next booklet.', daysAgo: 7 }],
+  },
+  {
+    tester: 'hana@testers.example',
+    kind: 'instructions',
+    severity: 'needs-fixing',
+    text: 'Step 2 says to sew A2 next, but I could not tell which edge of A1 it is sewn along until I held the foundation up to the light.',
+    place: { step: 2 },
+    state: 'open',
+    daysAgo: 4,
+    photos: [{ base: '#2f5d50', band: '#d9a441' }, { base: '#3b4f7a', band: '#e8dcc4' }],
+    thread: [],
+  },
+  {
+    tester: 'hana@testers.example',
+    kind: 'fit',
+    severity: 'minor',
+    text: 'Where the three seams meet here the block gets bulky; pressing these seams open might help.',
+    place: { point: [6.1, 5.8] },
+    state: 'open',
+    daysAgo: 3,
+    photos: [],
+    thread: [{ from: 'marguerite@bramblelane.example', role: 'designer', text: 'Good idea: I will add a pressing note to that step.', daysAgo: 2 }],
+  },
+]
+
+/**
+ * Invites the demo's testers to the pattern in testing and files their reports, with threads and
+ * generated photos, unless the pattern already has invitations or reports. Returns the reports added.
+ */
+async function seedTestRound(people: ReadonlyMap<string, User>, transaction: Transaction): Promise<number> {
+  const designer = people.get(DEMO_TEST_ROUND.designer)!
+  const pattern = await Pattern.findOne({ where: { ownerId: designer.id, name: DEMO_TEST_ROUND.pattern }, transaction })
+  if (!pattern) return 0
+  if ((await Invitation.count({ where: { patternId: pattern.id }, transaction })) === 0) {
+    for (const email of DEMO_TEST_ROUND.testers) {
+      const tester = people.get(email)!
+      await Invitation.create(
+        { patternId: pattern.id, email, invitedById: designer.id, userId: tester.id, acceptedAt: daysAgo(9), withdrawnAt: null, expiresAt: daysAgo(-21), createdAt: daysAgo(10) },
+        { transaction },
+      )
+    }
+    for (const email of DEMO_TEST_ROUND.pendingInvitations) {
+      await Invitation.create({ patternId: pattern.id, email, invitedById: designer.id, userId: null, acceptedAt: null, withdrawnAt: null, expiresAt: daysAgo(-28), createdAt: daysAgo(2) }, { transaction })
+    }
+  }
+  if ((await Report.count({ where: { patternId: pattern.id }, transaction })) > 0) return 0
+  const parsed = parseDesign(pattern.design)
+  const plan = parsed.ok ? planDesign(parsed.design) : null
+  for (const demo of DEMO_REPORTS) {
+    const tester = people.get(demo.tester)!
+    const at = daysAgo(demo.daysAgo)
+    const lastAt = demo.thread.length > 0 ? daysAgo(demo.thread.at(-1)!.daysAgo) : at
+    const report = await Report.create(
+      {
+        patternId: pattern.id,
+        testerId: tester.id,
+        kind: demo.kind,
+        severity: demo.severity,
+        text: demo.text,
+        place: demo.place,
+        pin: plan && parsed.ok ? pinOf(demo.place, plan, parsed.design.ring) : null,
+        state: demo.state,
+        revision: pattern.revision,
+        createdAt: at,
+        updatedAt: lastAt,
+      },
+      { transaction, silent: true },
+    )
+    for (const message of demo.thread) {
+      await ReportMessage.create({ reportId: report.id, authorId: people.get(message.from)!.id, authorRole: message.role, text: message.text, createdAt: daysAgo(message.daysAgo) }, { transaction })
+    }
+    const photoIds = demo.photos.length > 0 ? await storeDemoPhotos(tester.id, demo.photos, transaction) : []
+    await ReportPhoto.bulkCreate((photoIds ?? []).map((uploadId, position) => ({ reportId: report.id, uploadId, position })), { transaction })
+  }
+  return DEMO_REPORTS.length
 }

@@ -1,5 +1,6 @@
 'use client'
 
+import Link from 'next/link'
 import { useDeferredValue, useEffect, useMemo, useState } from 'react'
 import { ReportThread } from '@/components/reports/report-thread'
 import { apiFetch } from '@/lib/api-client'
@@ -56,6 +57,11 @@ export function ReportPins({ store, patternId }: { store: BoardStore; patternId:
         >
           {shown ? `Hide test reports${reports ? ` (${pinned.length})` : ''}` : 'Show test reports'}
         </button>
+        {shown && (
+          <Link href={`/patterns/${patternId}/reports`} className="rounded bg-white/90 px-2 py-1 text-xs text-thread-700 underline">
+            All reports
+          </Link>
+        )}
         {error && (
           <span role="alert" className="rounded bg-white/90 px-2 py-1 text-xs text-madder-700">
             {error}

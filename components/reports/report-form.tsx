@@ -13,8 +13,10 @@ import {
   reportAnswerSchema,
   type ReportKind,
   type ReportSeverity,
+  type ReportMap as ReportMapData,
   type ReportView,
 } from '@/lib/schemas/report'
+import { ReportMap } from './report-map'
 
 const input = 'rounded border border-stone-300 bg-white px-2 py-1.5 text-sm'
 
@@ -26,16 +28,17 @@ const input = 'rounded border border-stone-300 bg-white px-2 py-1.5 text-sm'
 export function ReportForm({
   patternId,
   areas,
-  point,
+  map,
   onFiled,
 }: {
   patternId: string
   /** The plan's area labels in sewing order: step n is the n-th. */
   areas: readonly string[]
-  /** A point clicked on the board, in design inches, when filed from there. */
-  point?: readonly [number, number]
+  /** The ring's areas to click a point on; null when the design does not read. */
+  map: ReportMapData | null
   onFiled: (report: ReportView) => void
 }) {
+  const [point, setPoint] = useState<[number, number] | null>(null)
   const [kind, setKind] = useState<ReportKind>('fit')
   const [severity, setSeverity] = useState<ReportSeverity>('needs-fixing')
   const [text, setText] = useState('')
@@ -96,6 +99,7 @@ export function ReportForm({
       setStep('')
       setPage('')
       setPhotos([])
+      setPoint(null)
       onFiled(answer.report)
     } catch (caught) {
       if (caught instanceof ApiError && caught.issues.length > 0) setIssues(Object.fromEntries(caught.issues.map((issue) => [issue.path, issue.message])))
@@ -105,12 +109,15 @@ export function ReportForm({
     }
   }
 
-  const issue = (path: string) =>
-    issues[path] ? (
+  /** The message of a field, or of any field under it (`photoIds` covers `photoIds.1`). */
+  const issue = (path: string) => {
+    const key = Object.keys(issues).find((candidate) => candidate === path || candidate.startsWith(`${path}.`))
+    return key ? (
       <p id={`report-${path}-error`} className="text-sm text-madder-700">
-        {issues[path]}
+        {issues[key]}
       </p>
     ) : null
+  }
 
   return (
     <form onSubmit={submit} className="space-y-3" aria-label="File a report" noValidate>
@@ -137,7 +144,8 @@ export function ReportForm({
         </label>
       </div>
       <fieldset className="space-y-2">
-        <legend className="text-sm font-medium text-stone-700">Where {point ? '(the point you clicked on the board, and more if you like)' : '(one or more)'}</legend>
+        <legend className="text-sm font-medium text-stone-700">Where (one or more: an area, a step, a page, a point on the ring)</legend>
+        {map && <ReportMap map={map} point={point} onPick={setPoint} />}
         <div className="grid gap-3 sm:grid-cols-3">
           <label className="flex flex-col gap-1 text-sm">
             <span>Area</span>

@@ -10,6 +10,7 @@ import {
   REPORT_SEVERITY_NAMES,
   reportListAnswerSchema,
   type ReportKind,
+  type ReportMap,
   type ReportState,
   type ReportView,
 } from '@/lib/schemas/report'
@@ -27,6 +28,7 @@ export function ReportsPage({
   patternId,
   patternName,
   areas,
+  map,
   canFile,
   canChangeState,
   initialReportId,
@@ -34,6 +36,7 @@ export function ReportsPage({
   patternId: string
   patternName: string
   areas: readonly string[]
+  map: ReportMap | null
   canFile: boolean
   canChangeState: boolean
   initialReportId: string | null
@@ -85,11 +88,12 @@ export function ReportsPage({
             Report a problem
           </h2>
           <p className="max-w-2xl text-sm text-stone-600">
-            Say where: an area by its label (as printed on the foundations), a step of the sewing order, or a page of the booklet.
+            Say where: an area by its label (as printed on the foundations), a step of the sewing order, a page of the booklet, or a point you click on the ring.
           </p>
           <ReportForm
             patternId={patternId}
             areas={areas}
+            map={map}
             onFiled={(report) => {
               setReports((list) => [report, ...(list ?? [])])
               setOpenId(report.id)

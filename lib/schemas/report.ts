@@ -152,5 +152,11 @@ export const reportViewSchema = z.object({
 })
 export type ReportView = z.infer<typeof reportViewSchema>
 
+/** The plan's areas of the first repeat, in inches, with the ring: the map a tester clicks a point on. */
+export interface ReportMap {
+  readonly ring: { readonly innerRadius: number; readonly outerRadius: number; readonly repeats: number; readonly repeatMode: 'rotate' | 'mirror' }
+  readonly areas: readonly { readonly label: string | null; readonly polygon: readonly [number, number][]; readonly point: [number, number] }[]
+}
+
 export const reportListAnswerSchema = z.object({ reports: z.array(reportViewSchema) })
 export const reportAnswerSchema = z.object({ report: reportViewSchema })

@@ -15,6 +15,7 @@ import {
   placeInWords,
   type CreateReportInput,
   type ReportFilter,
+  type ReportMap,
   type ReportMessageView,
   type ReportPlace,
   type ReportState,
@@ -318,12 +319,13 @@ export async function reportPatternsOfPhoto(uploadId: string): Promise<PatternFa
 }
 
 /** What the reports page needs: the plan's area labels in sewing order (step n is the n-th) and what the person may do. */
-export async function reportPlaces(actor: Actor, patternId: string): Promise<{ areas: string[]; patternName: string; canFile: boolean; canChangeState: boolean }> {
+export async function reportPlaces(actor: Actor, patternId: string): Promise<{ areas: string[]; map: ReportMap | null; patternName: string; canFile: boolean; canChangeState: boolean }> {
   const { pattern, facts } = await loadPattern(patternId)
   mayRead(actor, facts, 'pattern')
   const plan = currentPlan(pattern)
   return {
     areas: plan ? stepLabels(plan.plan) : [],
+    map: plan ? { ring: plan.ring, areas: plan.plan.areas.map((area) => ({ label: area.label, polygon: area.polygon.map((p) => [p[0], p[1]] as [number, number]), point: [area.point[0], area.point[1]] as [number, number] })) } : null,
     patternName: pattern.name,
     canFile: can(actor, 'file-report', facts),
     canChangeState: can(actor, 'change-report-state', facts),

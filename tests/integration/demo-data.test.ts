@@ -1,14 +1,17 @@
 import { afterAll, beforeEach, describe, expect, it } from 'vitest'
 import { parseDesign } from '@/lib/schemas/design'
 import { Op } from 'sequelize'
-import { AdminAuditEntry, OutgoingMail, Pattern, PatternRevision, User } from '@/models'
-import { DEMO_CROWD_SIZE, DEMO_PATTERNS, DEMO_PEOPLE, DEMO_PEOPLE_IN_STATES, demoCrowd, seedDemoData } from '@/scripts/demo-data'
+import { testerIdsOf } from '@/lib/services/testers'
+import { AdminAuditEntry, Invitation, OutgoingMail, Pattern, PatternRevision, Report, ReportMessage, ReportPhoto, Upload, User } from '@/models'
+import { DEMO_CROWD_SIZE, DEMO_PATTERNS, DEMO_PEOPLE, DEMO_PEOPLE_IN_STATES, DEMO_REPORTS, DEMO_TEST_ROUND, demoCrowd, seedDemoData } from '@/scripts/demo-data'
 import { emptyAdminLogs } from '../support/audit-log'
 import { closeDatabase, freshDatabase } from '../support/database'
+import { emptyBucket, storedKeys } from '../support/object-store'
 
 beforeEach(async () => {
   await freshDatabase()
   await emptyAdminLogs()
+  await emptyBucket()
 })
 afterAll(closeDatabase)
 
@@ -18,7 +21,7 @@ const EVERYONE = DEMO_PEOPLE.length + DEMO_PEOPLE_IN_STATES.length + DEMO_CROWD_
 describe('demo data', () => {
   it('loads every demo person and pattern, each pattern with its first revision', async () => {
     const loaded = await seedDemoData()
-    expect(loaded).toEqual({ people: EVERYONE, patterns: DEMO_PATTERNS.length })
+    expect(loaded).toEqual({ people: EVERYONE, patterns: DEMO_PATTERNS.length, reports: DEMO_REPORTS.length })
     expect(await User.count()).toBe(EVERYONE)
     expect(await PatternRevision.count()).toBe(DEMO_PATTERNS.length)
     const states = (await Pattern.findAll()).map((pattern) => pattern.state).sort()
@@ -31,7 +34,9 @@ describe('demo data', () => {
     await wreath!.update({ revision: 7, design: { ...(wreath!.design as object), seams: [] } })
     const entries = await AdminAuditEntry.count()
     const mail = await OutgoingMail.count()
-    expect(await seedDemoData()).toEqual({ people: 0, patterns: 0 })
+    const uploads = await Upload.count()
+    expect(await seedDemoData()).toEqual({ people: 0, patterns: 0, reports: 0 })
+    expect([await Report.count(), await Invitation.count(), await Upload.count()]).toEqual([DEMO_REPORTS.length, DEMO_TEST_ROUND.testers.length + DEMO_TEST_ROUND.pendingInvitations.length, uploads])
     expect(await User.count()).toBe(EVERYONE)
     expect([await AdminAuditEntry.count(), await OutgoingMail.count()]).toEqual([entries, mail])
     expect(await Pattern.count()).toBe(DEMO_PATTERNS.length)
@@ -84,5 +89,46 @@ describe('demo data', () => {
     const crowd = new Set(demoCrowd().map((person) => person.email))
     expect(crowd.size).toBe(DEMO_CROWD_SIZE)
     for (const person of DEMO_PEOPLE) expect(crowd.has(person.email)).toBe(false)
+  })
+
+  it('prices every pattern that is or was for sale, in integer cents', async () => {
+    await seedDemoData()
+    for (const pattern of await Pattern.findAll()) {
+      const forSale = pattern.state === 'published' || pattern.state === 'retired'
+      expect(pattern.priceCents !== null, pattern.name).toBe(forSale)
+      expect(pattern.currency !== null, pattern.name).toBe(forSale)
+      if (forSale) expect(Number.isInteger(pattern.priceCents), pattern.name).toBe(true)
+    }
+  })
+
+  it('gives the pattern in testing two testers, a pending invitation, and open and resolved reports with threads and stored photos', async () => {
+    await seedDemoData()
+    const pattern = (await Pattern.findOne({ where: { name: DEMO_TEST_ROUND.pattern } }))!
+    expect(pattern.state).toBe('testing')
+    const testers = await User.findAll({ where: { id: await testerIdsOf(pattern.id) } })
+    expect(testers.map((user) => user.email).sort()).toEqual([...DEMO_TEST_ROUND.testers].sort())
+    expect(await Invitation.count({ where: { patternId: pattern.id, userId: null } })).toBe(DEMO_TEST_ROUND.pendingInvitations.length)
+
+    const reports = await Report.findAll({ where: { patternId: pattern.id } })
+    expect(reports.map((report) => report.state).sort()).toEqual(['open', 'open', 'open', 'resolved'])
+    expect(new Set(reports.map((report) => report.testerId)).size).toBe(2)
+    // Pins as filed: area A3 at its label, step 2 at A2 (the second area sewn), a point in A1, a page nowhere.
+    const byPlace = (key: string) => reports.find((report) => key in report.place)!
+    expect(byPlace('area').pin?.area).toBe('A3')
+    expect(byPlace('step').pin?.area).toBe('A2')
+    expect(byPlace('point').pin).toEqual({ point: [6.1, 5.8], area: 'A1' })
+    expect(byPlace('page').pin).toBeNull()
+    expect(await ReportMessage.count()).toBe(DEMO_REPORTS.reduce((sum, report) => sum + report.thread.length, 0))
+
+    const photos = await ReportPhoto.findAll()
+    expect(photos).toHaveLength(3)
+    const uploads = await Upload.findAll({ where: { id: photos.map((photo) => photo.uploadId) } })
+    expect(uploads.map((upload) => upload.kind)).toEqual(['report-photo', 'report-photo', 'report-photo'])
+    for (const upload of uploads) {
+      const report = reports.find((candidate) => photos.some((photo) => photo.uploadId === upload.id && photo.reportId === candidate.id))!
+      // Each photo belongs to the tester whose report shows it, and its object is in the store.
+      expect(upload.ownerId).toBe(report.testerId)
+    }
+    expect((await storedKeys()).sort()).toEqual(uploads.map((upload) => upload.key).sort())
   })
 })

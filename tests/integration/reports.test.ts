@@ -10,6 +10,7 @@ import { POST as answerRoute } from '@/app/api/reports/[id]/messages/route'
 import { GET as reportRoute, PATCH as stateRoute } from '@/app/api/reports/[id]/route'
 import { GET as readUpload } from '@/app/api/uploads/[id]/route'
 import { POST as postUpload } from '@/app/api/uploads/route'
+import { RATE_LIMITS } from '@/lib/rate-limits'
 import type { Role } from '@/lib/roles'
 import type { DesignFile } from '@/lib/schemas/design'
 import { Invitation, Pattern } from '@/models'
@@ -103,6 +104,17 @@ describe('filing a report', () => {
     expect((await file(pattern.id, outsider.cookie)).status).toBe(404)
     expect((await file(pattern.id, stranger.cookie)).status).toBe(404)
     expect((await file(pattern.id, undefined)).status).toBe(401)
+  })
+
+  it('is limited per person: past the reports limit a 429 with Retry-After, counted before the body is read', async () => {
+    const { testerA, testerB, pattern } = await scene()
+    // Refused bodies count too: the limit is on attempts (lib/rate-limits.ts).
+    for (let i = 0; i < RATE_LIMITS.reportsPerUser.points; i += 1) expect((await file(pattern.id, testerA.cookie, { kind: 'fit' })).status).toBe(422)
+    const refused = await file(pattern.id, testerA.cookie)
+    expect(refused.status).toBe(429)
+    expect(Number(refused.headers.get('retry-after'))).toBeGreaterThan(0)
+    // Another tester is counted apart.
+    expect((await file(pattern.id, testerB.cookie)).status).toBe(201)
   })
 
   it('is refused once the pattern is back in draft, although the invitation stands', async () => {

@@ -26,6 +26,7 @@ export default async function PatternReportsPage({ params, searchParams }: { par
         patternId={id}
         patternName={places.patternName}
         areas={places.areas}
+        map={places.map}
         canFile={places.canFile}
         canChangeState={places.canChangeState}
         initialReportId={typeof report === 'string' ? report : null}
