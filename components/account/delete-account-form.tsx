@@ -28,7 +28,7 @@ export function DeleteAccountForm({ isDesigner }: { isDesigner: boolean }) {
       <p className="text-sm text-stone-700">
         This deletes your account, your sessions and your uploaded images at once; it cannot be undone.
         {isDesigner &&
-          ' Your drafts and patterns in testing are deleted too. A published or retired pattern stays in the shop’s records, without your name, so people who bought a licence keep it.'}
+          ' Your drafts and patterns in testing are deleted too. A published pattern leaves the shop; it and your retired patterns stay, without your name, for the people who bought a licence.'}
       </p>
       <Field id="deleteCurrentPassword" name="currentPassword" type="password" label="Current password" autoComplete="current-password" error={errors.currentPassword} />
       <Field id="confirm" name="confirm" label="Type DELETE to confirm" autoComplete="off" error={errors.confirm} />

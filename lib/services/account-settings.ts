@@ -12,7 +12,7 @@ import { requireStrongPassword } from '@/lib/password-strength'
 import { beginSignIn } from '@/lib/rate-limits'
 import type { Role } from '@/lib/roles'
 import type { EmailChangeInput, PasswordChangeInput } from '@/lib/schemas/account'
-import { Pattern, Session, User } from '@/models'
+import { Pattern, PatternRevision, PatternStateChange, Session, User } from '@/models'
 import { appLink, LINK_PATHS } from './accounts'
 import { removeUploadsOf } from './uploads'
 
@@ -169,9 +169,9 @@ export async function endOtherSessions(actor: CurrentUser, currentSessionId: str
 
 /**
  * Deletes the account (the current password is needed). With it go: its sessions, links, uploaded
- * images, and its patterns that are drafts or in testing. A published or retired pattern stays,
- * without an owner, for the people who hold a licence to it (migration 20261202-0081); the
- * revisions it keeps forget who saved them (migration 20261202-0003).
+ * images, and its patterns that are drafts or in testing. A published pattern is retired (it
+ * leaves the shop), and retired patterns stay, without an owner, for the people who hold a
+ * licence to them (migration 20261202-0081); their revisions and history forget who saved them.
  * Returns the Set-Cookie value that clears this browser's cookie.
  */
 export async function deleteAccount(actor: CurrentUser, currentPassword: string, context: RequestContext): Promise<{ readonly clearedCookie: string }> {
@@ -182,6 +182,18 @@ export async function deleteAccount(actor: CurrentUser, currentPassword: string,
   await removeUploadsOf(user.id)
   await database().transaction(async (transaction) => {
     await Pattern.destroy({ where: { ownerId: user.id, state: ['draft', 'testing'] }, transaction })
+    // A published pattern leaves the shop (nobody would receive its sales) as a retirement of
+    // its own, with its revision and history row like any other state change.
+    const published = await Pattern.findAll({ where: { ownerId: user.id, state: 'published' }, transaction, lock: transaction.LOCK.UPDATE })
+    for (const pattern of published) {
+      pattern.set({ state: 'retired', revision: pattern.revision + 1 })
+      await pattern.save({ transaction })
+      await PatternRevision.create(
+        { patternId: pattern.id, revision: pattern.revision, name: pattern.name, state: 'retired', design: pattern.design, savedById: user.id },
+        { transaction },
+      )
+      await PatternStateChange.create({ patternId: pattern.id, fromState: 'published', toState: 'retired', changedById: user.id }, { transaction })
+    }
     await user.destroy({ transaction })
   })
   return { clearedCookie: lucia().createBlankSessionCookie().serialize() }

@@ -11,7 +11,7 @@ import { PEER_ADDRESS_HEADER } from '@/lib/client-address'
 import { getObject, objectKey, putObject } from '@/lib/object-store'
 import { RATE_LIMITS } from '@/lib/rate-limits'
 import { EMAIL_CHANGE_ANSWER } from '@/lib/services/account-settings'
-import { OutgoingMail, Pattern, PatternRevision, Session, Upload, User } from '@/models'
+import { OutgoingMail, Pattern, PatternRevision, PatternStateChange, Session, Upload, User } from '@/models'
 import { closeDatabase, freshDatabase } from '../support/database'
 import { createPatternRow, createUser, TEST_PASSWORD } from '../support/factories'
 import { firstLink, useMailWorker, waitForMail } from '../support/mail'
@@ -156,7 +156,7 @@ describe('changing the password', () => {
 })
 
 describe('deleting the account', () => {
-  it('needs the password and DELETE; removes uploads and drafts and testing patterns, keeps published and retired ones without an owner', async () => {
+  it('needs the password and DELETE; removes uploads and drafts and testing patterns, retires published ones and keeps them and retired ones without an owner', async () => {
     const designer = await createUser({ email: freshAddress('ada'), roles: ['designer'] })
     const cookie = await signInFrom(designer.email, FIREFOX)
     const draft = await createPatternRow(designer, { name: 'Draft', state: 'draft' })
@@ -182,11 +182,15 @@ describe('deleting the account', () => {
     expect(await Session.count({ where: { userId: designer.id } })).toBe(0)
     expect(await Pattern.count({ where: { id: [draft.id, testing.id] } })).toBe(0)
     const kept = await Pattern.findAll({ where: { id: [published.id, retired.id] }, order: [['name', 'ASC']] })
-    expect(kept.map((pattern) => [pattern.name, pattern.ownerId])).toEqual([
-      ['Published', null],
-      ['Retired', null],
+    // The published one left the shop: retired, with its revision and history like any state change.
+    expect(kept.map((pattern) => [pattern.name, pattern.ownerId, pattern.state])).toEqual([
+      ['Published', null, 'retired'],
+      ['Retired', null, 'retired'],
     ])
-    expect(await PatternRevision.count({ where: { patternId: published.id, savedById: null } })).toBe(1)
+    expect(await PatternRevision.count({ where: { patternId: published.id, savedById: null } })).toBe(2)
+    expect((await PatternStateChange.findAll({ where: { patternId: published.id } })).map((change) => [change.fromState, change.toState, change.changedById])).toEqual([
+      ['published', 'retired', null],
+    ])
     expect((await call(getAccount, { cookie })).status).toBe(401)
   })
 })
