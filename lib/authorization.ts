@@ -68,6 +68,7 @@ type Rules = {
   'read-order': (actor: NonNullable<Actor>, order: OrderFacts) => boolean
   'read-own-library': (actor: NonNullable<Actor>) => boolean
   'read-payment-log': (actor: NonNullable<Actor>) => boolean
+  'hide-listing': (actor: NonNullable<Actor>) => boolean
   'upload-image': (actor: NonNullable<Actor>, purpose: UploadPurpose) => boolean
   'read-upload': (actor: NonNullable<Actor>, upload: UploadFacts) => boolean
 }
@@ -130,6 +131,9 @@ const rules: Rules = {
   'read-own-library': () => true,
   // The payment log (webhook calls, verified or refused, and their processing): admins only.
   'read-payment-log': (actor) => isAdmin(actor),
+  // Taking a published pattern's listing out of the shop (and back): admins only, recorded in the
+  // audit log. Looking at the shop needs no rule: it is open to everyone, signed in or not.
+  'hide-listing': (actor) => isAdmin(actor),
   // Theme-fabric photos and swatches serve pattern design.
   // A report photo may come from anyone signed in (testers need no role); it stays private to
   // them until a report of a pattern they test shows it.
@@ -155,7 +159,7 @@ export function can<A extends Action>(actor: Actor, action: A, ...resource: Reso
 }
 
 /** The admin desk's actions: refused as 404, so that the desk's addresses are not even found by others. */
-const ADMIN_DESK_ACTIONS: ReadonlySet<Action> = new Set(['manage-users', 'decide-designer-requests', 'read-audit-log', 'read-mail-log', 'read-payment-log'])
+const ADMIN_DESK_ACTIONS: ReadonlySet<Action> = new Set(['manage-users', 'decide-designer-requests', 'read-audit-log', 'read-mail-log', 'read-payment-log', 'hide-listing'])
 
 /**
  * Throws unless the actor may take the action: 401 when nobody is signed in, otherwise 403 —

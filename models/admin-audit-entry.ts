@@ -15,6 +15,9 @@ export const ADMIN_ACTIONS = [
   'enable-account',
   'approve-designer-request',
   'decline-designer-request',
+  // The shop (migrations/20261202-0130-…): an admin takes a listing out of the shop, or puts it back.
+  'hide-listing',
+  'show-listing',
 ] as const
 export type AdminAction = (typeof ADMIN_ACTIONS)[number]
 
