@@ -36,7 +36,6 @@ export const patternPriceSchema = z
     currency: z.enum(PATTERN_CURRENCIES, { error: `Choose one of ${PATTERN_CURRENCIES.join(', ')}.` }),
   })
   .strict()
-export type PatternPrice = z.infer<typeof patternPriceSchema>
 
 export const patternNameSchema = text({
   max: MAX_NAME_LENGTH,
