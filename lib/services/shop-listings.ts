@@ -1,6 +1,6 @@
 import 'server-only'
 import { Op, Transaction, type WhereOptions } from 'sequelize'
-import { authorize, type Actor } from '@/lib/authorization'
+import { authorize, can, type Actor } from '@/lib/authorization'
 import { database } from '@/lib/db'
 import { NotFoundError, ValidationError } from '@/lib/errors'
 import { fieldIssues } from '@/lib/http'
@@ -107,21 +107,23 @@ export async function listShopPatterns(query: ShopListingQuery): Promise<ShopLis
 
 /**
  * One listed pattern, or a 404 for anything not listed (a draft, a retired or hidden pattern, a
- * malformed id): the shop tells none of these apart.
+ * malformed id): the shop tells none of these apart. An admin (who may hide listings) also gets
+ * a hidden one, marked, so that the page can put it back.
  *
- * @example (await getShopPattern(id)).colorways.map((colorway) => colorway.name) // ['Snowberry Dusk', 'Cider Orchard']
+ * @example (await getShopPattern(null, id)).listing.colorways.map((colorway) => colorway.name) // ['Snowberry Dusk', 'Cider Orchard']
  */
-export async function getShopPattern(id: string): Promise<ShopListing> {
+export async function getShopPattern(actor: Actor, id: string): Promise<{ listing: ShopListing; hidden: boolean }> {
   database()
+  const listed: WhereOptions = can(actor, 'hide-listing') ? { state: 'published', priceCents: { [Op.ne]: null } } : LISTED
   const pattern = patternIdSchema.safeParse(id).success
     ? await Pattern.findOne({
-      where: { [Op.and]: [LISTED, { id }] },
-      attributes: LISTING_COLUMNS,
+      where: { [Op.and]: [listed, { id }] },
+      attributes: [...LISTING_COLUMNS, 'hiddenAt'],
       include: [{ model: User, as: 'owner', attributes: ['displayName'], required: false }],
     })
     : null
   if (!pattern) throw new NotFoundError('No such pattern in the shop.')
-  return toListing(pattern as PatternWithOwner)
+  return { listing: toListing(pattern as PatternWithOwner), hidden: pattern.hiddenAt !== null }
 }
 
 // Covers: drawn from the design (a few milliseconds each, lib/shop/cover-svg.ts) and kept per

@@ -238,6 +238,8 @@ describe('hiding a listing', () => {
     expect(hidden.json).toEqual({ id: row.id, hidden: true })
     expect(await names()).toEqual([])
     expect((await call(getOne, { params: { id: row.id } })).status).toBe(404)
+    // The admin still finds it, marked hidden, to put it back.
+    expect((await call(getOne, { params: { id: row.id }, cookie: adminCookie })).json).toMatchObject({ pattern: { id: row.id }, hidden: true })
     // The pattern stays published: its licence holders keep it.
     await row.reload()
     expect(row.state).toBe('published')
