@@ -61,6 +61,13 @@ describe('testers and licence holders', () => {
     expect(can(buyer, 'read-pattern', { ownerId: 'designer-1', state: 'draft', licenceHolderIds: ['buyer-1'] })).toBe(false)
   })
 
+  it("shows a pattern's swatches to its testers only while it is in testing", () => {
+    const upload = { ownerId: 'designer-1', designPatterns: [testing] }
+    expect(can(tester, 'read-upload', upload)).toBe(true)
+    expect(can(person(['quilter'], 'tester-2'), 'read-upload', upload)).toBe(false)
+    expect(can(tester, 'read-upload', { ownerId: 'designer-1', designPatterns: [{ ...testing, state: 'published' as const }] })).toBe(false)
+  })
+
   it('lets only the owning designer or an admin invite testers', () => {
     expect(can(person(['designer'], 'designer-1'), 'invite-testers', testing)).toBe(true)
     expect(can(person(['admin'], 'admin-1'), 'invite-testers', testing)).toBe(true)

@@ -18,6 +18,12 @@ export interface UploadFacts {
    * testers; their designers and testers may read it. Left out, it is shown to nobody else.
    */
   readonly reportPatterns?: readonly PatternFacts[]
+  /**
+   * For a swatch or theme photo: the patterns whose design uses it, with their testers (the
+   * uploads service looks up only those the reader tests: lib/services/testers.ts). Left out,
+   * nobody else sees it.
+   */
+  readonly designPatterns?: readonly PatternFacts[]
 }
 
 /** What an upload is for: a designer's theme-fabric photos and swatches (covers and report photos later). */
@@ -143,7 +149,9 @@ const rules: Rules = {
   'read-upload': (actor, upload) =>
     upload.ownerId === actor.id ||
     isAdmin(actor) ||
-    (upload.reportPatterns ?? []).some((pattern) => pattern.ownerId === actor.id || isTesterOf(actor, pattern)),
+    (upload.reportPatterns ?? []).some((pattern) => pattern.ownerId === actor.id || isTesterOf(actor, pattern)) ||
+    // The swatches and theme photos of a pattern in testing, for its testers' booklets.
+    (upload.designPatterns ?? []).some((pattern) => isTesterOf(actor, pattern)),
 }
 
 type ResourceOf<A extends Action> = Parameters<Rules[A]> extends [unknown, infer R] ? [resource: R] : []

@@ -1,5 +1,6 @@
 import 'server-only'
-import { Op, type Transaction } from 'sequelize'
+import { Op, QueryTypes, type Transaction } from 'sequelize'
+import type { PatternFacts } from '@/lib/authorization'
 import { database } from '@/lib/db'
 import { Invitation } from '@/models'
 
@@ -44,4 +45,22 @@ export async function isTesterOf(userId: string, patternId: string, options: { t
     transaction: options.transaction,
   })
   return found !== null
+}
+
+/**
+ * The patterns in testing that `userId` tests now and whose design names the upload (a swatch or
+ * a colourway's theme photo): their testers may see it, so their booklets show the swatches. An
+ * upload id is a UUID, so finding it in the design's text finds exactly its uses.
+ *
+ * @example const designPatterns = await testedPatternsShowing(actor.id, upload.id)
+ */
+export async function testedPatternsShowing(userId: string, uploadId: string): Promise<PatternFacts[]> {
+  const rows = await database().query<{ id: string; owner_id: string | null }>(
+    `SELECT DISTINCT p.id, p.owner_id FROM patterns p
+       JOIN pattern_invitations i ON i.pattern_id = p.id
+      WHERE i.user_id = :userId AND i.accepted_at IS NOT NULL AND i.withdrawn_at IS NULL AND i.expires_at > now()
+        AND p.state = 'testing' AND strpos(p.design::text, :uploadId) > 0`,
+    { replacements: { userId, uploadId }, type: QueryTypes.SELECT },
+  )
+  return rows.map((row) => ({ ownerId: row.owner_id, state: 'testing', testerIds: [userId] }))
 }

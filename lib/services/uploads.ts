@@ -9,6 +9,7 @@ import { MAX_STORED_UPLOAD_BYTES_PER_USER } from '@/lib/limits'
 import { deleteObject, getObject, objectKey, putObject } from '@/lib/object-store'
 import { countUpload } from '@/lib/rate-limits'
 import { reportPatternsOfPhoto } from '@/lib/services/reports'
+import { testedPatternsShowing } from '@/lib/services/testers'
 import type { UploadView } from '@/lib/schemas/upload'
 import { Upload } from '@/models'
 
@@ -129,7 +130,9 @@ export async function authorizeUploadRead(actor: Actor, id: string): Promise<Upl
   if (!upload) throw new NotFoundError('No such upload.')
   // A report photo is also shown to the designer and testers of the patterns whose reports show it.
   const reportPatterns = upload.kind === 'report-photo' ? await reportPatternsOfPhoto(upload.id) : undefined
-  authorize(actor, 'read-upload', { ownerId: upload.ownerId, reportPatterns })
+  // A swatch or theme photo is also shown to the testers of the patterns that use it (their booklets draw the swatches).
+  const designPatterns = upload.kind !== 'report-photo' && actor && actor.id !== upload.ownerId ? await testedPatternsShowing(actor.id, upload.id) : undefined
+  authorize(actor, 'read-upload', { ownerId: upload.ownerId, reportPatterns, designPatterns })
   return upload
 }
 

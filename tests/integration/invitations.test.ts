@@ -12,7 +12,8 @@ import { RATE_LIMITS } from '@/lib/rate-limits'
 import { getPatternForPrint, TEST_COPY_NOTICE } from '@/lib/services/patterns'
 import { isTesterOf, listPatternsToTest, testerIdsOf } from '@/lib/services/invitations'
 import type { PatternState } from '@/lib/schemas/pattern'
-import { Invitation, User } from '@/models'
+import { authorizeUploadRead } from '@/lib/services/uploads'
+import { Invitation, Upload, User } from '@/models'
 import { closeDatabase, freshDatabase } from '../support/database'
 import { createPatternRow, createUser, sessionCookieFor } from '../support/factories'
 import { clearMailQueue, firstLink, useMailWorker, waitForMail } from '../support/mail'
@@ -281,5 +282,26 @@ describe('when an invitation gives nothing', () => {
     await call(updatePattern, { method: 'PATCH', cookie: designer.cookie, params: { id: pattern.id }, body: { revision: 1, state: 'draft' } })
     expect((await call(readPattern, { cookie: tester.cookie, params: { id: pattern.id } })).status).toBe(404)
     expect(await listPatternsToTest({ id: tester.user.id, roles: tester.user.roles })).toEqual([expect.objectContaining({ patternId: pattern.id, open: false })])
+  })
+})
+
+describe('the swatches of a pattern in testing', () => {
+  it('are readable by its testers (for their booklets), not by a tester of another pattern nor once the invitation is withdrawn', async () => {
+    const designer = await person(['designer'])
+    const tester = await person(['quilter'])
+    const otherTester = await person(['quilter'])
+    const swatch = await Upload.create({ ownerId: designer.user.id, kind: 'swatch', key: `swatches/${randomUUID()}.png`, contentType: 'image/png', width: 8, height: 8, bytes: 100, palette: null })
+    const file = wreathFile()
+    const holly = file.colorways![0]!
+    const design = { ...file, colorways: [{ ...holly, fabrics: { ...holly.fabrics, berry: { ...holly.fabrics.berry!, swatch: swatch.id } } }, file.colorways![1]!] }
+    const pattern = await createPatternRow(designer.user, { state: 'testing', design })
+    const other = await patternIn(designer.user, 'testing', 'Other')
+    const invitation = (await inviteAs(designer.cookie, pattern.id, tester.user.email)).json?.invitation
+    await inviteAs(designer.cookie, other.id, otherTester.user.email)
+    const actor = (p: { user: User }) => ({ id: p.user.id, roles: p.user.roles })
+    expect((await authorizeUploadRead(actor(tester), swatch.id)).id).toBe(swatch.id)
+    await expect(authorizeUploadRead(actor(otherTester), swatch.id)).rejects.toThrow('No such upload')
+    await call(withdraw, { method: 'DELETE', cookie: designer.cookie, params: { id: pattern.id, invitationId: invitation.id } })
+    await expect(authorizeUploadRead(actor(tester), swatch.id)).rejects.toThrow('No such upload')
   })
 })
