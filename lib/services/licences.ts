@@ -25,7 +25,8 @@ export async function liveLicenceOf(userId: string, patternId: string): Promise<
  */
 export async function patternFactsWithLicence(actor: Actor, pattern: PatternFacts & { readonly id: string }): Promise<PatternFacts> {
   const holds = actor ? (await liveLicenceOf(actor.id, pattern.id)) !== null : false
-  return { ...pattern, licenceHolderIds: holds && actor ? [actor.id] : [] }
+  // Field by field: a model instance's attributes are getters that a spread would not copy.
+  return { ownerId: pattern.ownerId, state: pattern.state, testerIds: pattern.testerIds, licenceHolderIds: holds && actor ? [actor.id] : [] }
 }
 
 /** The buyer's library: their live licences, newest first. */
