@@ -15,6 +15,7 @@ import type { EmailChangeInput, PasswordChangeInput } from '@/lib/schemas/accoun
 import { Pattern, PatternRevision, PatternStateChange, Session, User } from '@/models'
 import { appLink, LINK_PATHS } from './accounts'
 import { removeUploadsOf } from './uploads'
+import { claimInvitationsOf } from './invitations'
 
 /**
  * The account page: one's name, address, password, sessions, and leaving. Every function acts
@@ -131,6 +132,8 @@ export async function confirmEmailChange(token: string): Promise<{ readonly emai
       const user = await User.findByPk(userId, { transaction, lock: transaction.LOCK.UPDATE })
       if (!user || user.disabledAt || !newEmail) throw new InvalidLinkError()
       await user.update({ email: newEmail, emailVerifiedAt: new Date() }, { transaction })
+      // The new address is proven: tester invitations sent to it are now this person's.
+      await claimInvitationsOf(user, transaction)
       return { email: newEmail }
     })
   } catch (error) {

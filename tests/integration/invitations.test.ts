@@ -205,6 +205,20 @@ describe('what an invitation gives', () => {
     expect((await call(readPattern, { cookie, params: { id: pattern.id } })).status).toBe(200)
   })
 
+  it('is claimed by a person who moves their account to the invited address and confirms it', async () => {
+    const designer = await person(['designer'])
+    const mover = await person(['quilter'])
+    const pattern = await patternIn(designer.user)
+    const email = freshAddress('moving')
+    await inviteAs(designer.cookie, pattern.id, email)
+    const { issueAccountToken } = await import('@/lib/auth/account-tokens')
+    const { confirmEmailChange } = await import('@/lib/services/account-settings')
+    const { database } = await import('@/lib/db')
+    const token = await database().transaction((transaction) => issueAccountToken(mover.user.id, 'change-email', { transaction, newEmail: email }))
+    await confirmEmailChange(token)
+    expect(await isTesterOf(mover.user.id, pattern.id)).toBe(true)
+  })
+
   it('waits for an unverified account to confirm its address before it counts', async () => {
     const designer = await person(['designer'])
     const unverified = await person(['quilter'], { verified: false })
