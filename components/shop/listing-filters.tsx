@@ -17,13 +17,13 @@ const label = 'flex flex-col gap-1 text-xs font-medium text-stone-600'
 export function ListingFilters({ query }: { query: ShopListingQuery }) {
   return (
     <form method="get" action="/shop" role="search" aria-label="Find patterns" className="flex flex-wrap items-end gap-3 rounded-lg border border-linen-200 bg-white/70 p-4">
-      <label className={`${label} grow`}>
-        Pattern or designer
-        <input type="search" name="q" defaultValue={query.q ?? ''} maxLength={100} placeholder="e.g. holly" className={field} />
-      </label>
-      <label className={label}>
-        Colour
-        <select name="colour" defaultValue={query.colour ?? ''} className={field}>
+      <div className={`${label} grow`}>
+        <label htmlFor="shop-q">Pattern or designer</label>
+        <input type="search" id="shop-q" name="q" defaultValue={query.q ?? ''} maxLength={100} placeholder="e.g. holly" className={field} />
+      </div>
+      <div className={label}>
+        <label htmlFor="shop-colour">Colour</label>
+        <select id="shop-colour" name="colour" defaultValue={query.colour ?? ''} className={field}>
           <option value="">Any colour</option>
           {COLOUR_FAMILIES.map((family) => (
             <option key={family} value={family}>
@@ -31,14 +31,14 @@ export function ListingFilters({ query }: { query: ShopListingQuery }) {
             </option>
           ))}
         </select>
-      </label>
-      <label className={label}>
-        Repeats
-        <input type="number" name="repeats" min={2} max={36} step={1} defaultValue={query.repeats ?? ''} className={`${field} w-20`} />
-      </label>
-      <label className={label}>
-        Price from
-        <select name="minPriceCents" defaultValue={query.minPriceCents ?? ''} className={field}>
+      </div>
+      <div className={label}>
+        <label htmlFor="shop-repeats">Repeats</label>
+        <input type="number" id="shop-repeats" name="repeats" min={2} max={36} step={1} defaultValue={query.repeats ?? ''} className={`${field} w-20`} />
+      </div>
+      <div className={label}>
+        <label htmlFor="shop-minPriceCents">Price from</label>
+        <select id="shop-minPriceCents" name="minPriceCents" defaultValue={query.minPriceCents ?? ''} className={field}>
           <option value="">Any</option>
           {FROM_CENTS.map((cents) => (
             <option key={cents} value={cents}>
@@ -46,10 +46,10 @@ export function ListingFilters({ query }: { query: ShopListingQuery }) {
             </option>
           ))}
         </select>
-      </label>
-      <label className={label}>
-        Up to
-        <select name="maxPriceCents" defaultValue={query.maxPriceCents ?? ''} className={field}>
+      </div>
+      <div className={label}>
+        <label htmlFor="shop-maxPriceCents">Up to</label>
+        <select id="shop-maxPriceCents" name="maxPriceCents" defaultValue={query.maxPriceCents ?? ''} className={field}>
           <option value="">Any</option>
           {UP_TO_CENTS.map((cents) => (
             <option key={cents} value={cents}>
@@ -57,17 +57,17 @@ export function ListingFilters({ query }: { query: ShopListingQuery }) {
             </option>
           ))}
         </select>
-      </label>
-      <label className={label}>
-        Order
-        <select name="sort" defaultValue={query.sort} className={field}>
+      </div>
+      <div className={label}>
+        <label htmlFor="shop-sort">Order</label>
+        <select id="shop-sort" name="sort" defaultValue={query.sort} className={field}>
           {SHOP_SORTS.map((sort) => (
             <option key={sort} value={sort}>
               {SORT_NAMES[sort]}
             </option>
           ))}
         </select>
-      </label>
+      </div>
       {query.designer && <input type="hidden" name="designer" value={query.designer} />}
       <button type="submit" className="rounded bg-thread-700 px-4 py-1.5 text-sm text-white hover:bg-thread-800">
         Show patterns
