@@ -87,7 +87,6 @@ export function readShopQuery(
 
 /** `PATCH /api/admin/listings/:id { hidden }`: take a listing out of the shop, or put it back. */
 export const listingVisibilitySchema = z.object({ hidden: z.boolean({ error: 'Say true or false.' }) }).strict()
-export type ListingVisibility = z.infer<typeof listingVisibilitySchema>
 
 /** Longest skill notes, characters (the table's check, migrations/20261202-0130-…, says the same). */
 const MAX_SKILL_NOTES = 2000
