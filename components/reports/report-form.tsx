@@ -149,7 +149,7 @@ export function ReportForm({
         <div className="grid gap-3 sm:grid-cols-3">
           <label className="flex flex-col gap-1 text-sm">
             <span>Area</span>
-            <select value={area} onChange={(event) => setArea(event.target.value)} className={input} aria-invalid={issues['place.area'] ? true : undefined}>
+            <select aria-label="Area" value={area} onChange={(event) => setArea(event.target.value)} className={input} aria-invalid={issues['place.area'] ? true : undefined}>
               <option value="">—</option>
               {areas.map((label) => (
                 <option key={label} value={label}>
@@ -160,11 +160,11 @@ export function ReportForm({
           </label>
           <label className="flex flex-col gap-1 text-sm">
             <span>Step</span>
-            <input type="number" min={1} max={areas.length || undefined} value={step} onChange={(event) => setStep(event.target.value)} className={input} />
+            <input aria-label="Step" type="number" min={1} max={areas.length || undefined} value={step} onChange={(event) => setStep(event.target.value)} className={input} />
           </label>
           <label className="flex flex-col gap-1 text-sm">
             <span>Booklet page</span>
-            <input type="number" min={1} value={page} onChange={(event) => setPage(event.target.value)} className={input} />
+            <input aria-label="Booklet page" type="number" min={1} value={page} onChange={(event) => setPage(event.target.value)} className={input} />
           </label>
         </div>
         {issue('place.area')}
