@@ -51,6 +51,18 @@ export interface PatternFacts {
   readonly licenceHolderIds?: readonly string[]
 }
 
+/**
+ * A buyer's booklet built on the server (models/booklet-build.ts), as far as permissions care: who
+ * asked for it, whether the licence it was built under is still live and who holds it, and the
+ * pattern (with the licence holders filled in by the caller).
+ */
+export interface BookletFacts {
+  readonly requesterId: string
+  readonly licenceHolderId: string
+  readonly licenceRevoked: boolean
+  readonly pattern: PatternFacts
+}
+
 type Rules = {
   'create-pattern': (actor: NonNullable<Actor>) => boolean
   'list-own-patterns': (actor: NonNullable<Actor>) => boolean
@@ -77,6 +89,7 @@ type Rules = {
   'hide-listing': (actor: NonNullable<Actor>) => boolean
   'upload-image': (actor: NonNullable<Actor>, purpose: UploadPurpose) => boolean
   'read-upload': (actor: NonNullable<Actor>, upload: UploadFacts) => boolean
+  'get-licensed-booklet': (actor: NonNullable<Actor>, booklet: BookletFacts) => boolean
 }
 
 export type Action = keyof Rules
@@ -152,6 +165,11 @@ const rules: Rules = {
     (upload.reportPatterns ?? []).some((pattern) => pattern.ownerId === actor.id || isTesterOf(actor, pattern)) ||
     // The swatches and theme photos of a pattern in testing, for its testers' booklets.
     (upload.designPatterns ?? []).some((pattern) => isTesterOf(actor, pattern)),
+  // A buyer's booklet built on the server (asked for, watched, downloaded): only the person who
+  // holds the live licence it was built under, and asked for it — not even an admin, since its
+  // pages carry the buyer's name. A refund (revoked licence) closes it.
+  'get-licensed-booklet': (actor, booklet) =>
+    booklet.requesterId === actor.id && booklet.licenceHolderId === actor.id && !booklet.licenceRevoked && isLicenceHolderOf(actor, booklet.pattern),
 }
 
 type ResourceOf<A extends Action> = Parameters<Rules[A]> extends [unknown, infer R] ? [resource: R] : []
@@ -180,6 +198,7 @@ export function authorize<A extends Action>(actor: Actor, action: A, ...resource
   if (action === 'read-pattern') throw new NotFoundError('No such pattern.')
   if (action === 'read-upload') throw new NotFoundError('No such upload.')
   if (action === 'read-order') throw new NotFoundError('No such order.')
+  if (action === 'get-licensed-booklet') throw new NotFoundError('No such booklet.')
   if (ADMIN_DESK_ACTIONS.has(action)) throw new NotFoundError()
   throw new ForbiddenError()
 }

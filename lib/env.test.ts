@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { mailSettings, objectStoreSettings, originSettings, type ServerEnv } from './env'
+import { bookletSettings, mailSettings, objectStoreSettings, originSettings, type ServerEnv } from './env'
 
 const env = (overrides: Partial<ServerEnv>): ServerEnv => ({
   DATABASE_URL: 'postgres://127.0.0.1/x',
@@ -17,6 +17,9 @@ const env = (overrides: Partial<ServerEnv>): ServerEnv => ({
   MAIL_POLL_SECONDS: 2,
   PAYMENTS_WORKER: 'on',
   PAYMENTS_POLL_SECONDS: 1,
+  BOOKLET_LINK_MINUTES: 10,
+  BOOKLET_WORKER_CONCURRENCY: 2,
+  BOOKLET_POLL_SECONDS: 1,
   ...overrides,
 })
 
@@ -76,5 +79,13 @@ describe('mailSettings', () => {
     const settings = mailSettings(env({ MAIL_VIEW_URL: 'http://127.0.0.1:54331', MAIL_WORKER: 'off' }))
     expect(settings.viewUrl).toBe('http://127.0.0.1:54331')
     expect(settings.worker).toBe(false)
+  })
+})
+
+describe('bookletSettings', () => {
+  it('leaves the link secret to the process unless one is set, and counts link lives in seconds', () => {
+    expect(bookletSettings(env({}))).toEqual({ linkSecret: null, linkSeconds: 600, workerConcurrency: 2, pollSeconds: 1 })
+    const secret = 'x'.repeat(32)
+    expect(bookletSettings(env({ BOOKLET_LINK_SECRET: secret, BOOKLET_LINK_MINUTES: 2, BOOKLET_WORKER_CONCURRENCY: 4 }))).toMatchObject({ linkSecret: secret, linkSeconds: 120, workerConcurrency: 4 })
   })
 })

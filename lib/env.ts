@@ -91,6 +91,18 @@ const serverEnvSchema = z.object({
   PAYMENTS_WORKER: z.enum(['on', 'off']).default('on'),
   /** How often an idle payment worker looks for queued events (pg-boss's minimum is 0.5 s). */
   PAYMENTS_POLL_SECONDS: z.coerce.number().min(0.5).max(60).default(1),
+  /**
+   * The secret that signs buyers' short-lived booklet download links (HMAC-SHA-256), at least 32
+   * characters. Unset, each app process makes a random one when it starts: links then work only
+   * on the instance that made them, which is enough for one instance (the demo, the tests).
+   */
+  BOOKLET_LINK_SECRET: z.string().min(32).optional(),
+  /** How long a booklet download link works, minutes. */
+  BOOKLET_LINK_MINUTES: z.coerce.number().int().min(1).max(24 * 60).default(10),
+  /** Booklets one booklet worker process (scripts/booklet-worker.ts) builds at once, each in its own thread. */
+  BOOKLET_WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(32).default(2),
+  /** How often an idle booklet worker looks for queued builds (pg-boss's minimum is 0.5 s). */
+  BOOKLET_POLL_SECONDS: z.coerce.number().min(0.5).max(60).default(1),
 })
 
 export type ServerEnv = z.infer<typeof serverEnvSchema>
@@ -200,5 +212,23 @@ export function paymentSettings(env: ServerEnv = serverEnv()): PaymentSettings {
     api,
     worker: env.PAYMENTS_WORKER === 'on',
     pollSeconds: env.PAYMENTS_POLL_SECONDS,
+  }
+}
+
+/** How buyers' booklets are built and handed out (lib/services/booklets.ts, scripts/booklet-worker.ts). */
+export interface BookletSettings {
+  /** Null when BOOKLET_LINK_SECRET is unset: the process makes its own (lib/booklets/download-token.ts). */
+  readonly linkSecret: string | null
+  readonly linkSeconds: number
+  readonly workerConcurrency: number
+  readonly pollSeconds: number
+}
+
+export function bookletSettings(env: ServerEnv = serverEnv()): BookletSettings {
+  return {
+    linkSecret: env.BOOKLET_LINK_SECRET ?? null,
+    linkSeconds: env.BOOKLET_LINK_MINUTES * 60,
+    workerConcurrency: env.BOOKLET_WORKER_CONCURRENCY,
+    pollSeconds: env.BOOKLET_POLL_SECONDS,
   }
 }

@@ -74,6 +74,12 @@ export const RATE_LIMITS = {
   reportsPerUser: { points: 20, windowSeconds: HOUR, what: 'reports' },
   /** Answers one person writes in reports' threads: 60 an hour. Our choice. */
   reportMessagesPerUser: { points: 60, windowSeconds: HOUR, what: 'answers' },
+  /**
+   * Booklets one buyer asks the server to build (each costs a worker a second or more; asking again
+   * for one already built is counted too, cheap as it is): 30 an hour, every paper and colourway
+   * of a few patterns. Our choice.
+   */
+  bookletBuildsPerUser: { points: 30, windowSeconds: HOUR, what: 'booklet requests' },
 } as const satisfies Record<string, RateLimit>
 
 export type RateLimitName = keyof typeof RATE_LIMITS
@@ -213,4 +219,9 @@ export async function countReportMessage(userId: string): Promise<void> {
 /** Counts a checkout started by a person (their user id); throws TooManyRequestsError past the limit. */
 export async function countCheckout(userId: string): Promise<void> {
   await consume('checkoutsPerUser', counterKey(userId))
+}
+
+/** Counts a buyer's booklet request (lib/services/booklets.ts). */
+export async function countBookletBuild(userId: string): Promise<void> {
+  await consume('bookletBuildsPerUser', counterKey(userId))
 }

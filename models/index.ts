@@ -1,6 +1,7 @@
 import type { Sequelize } from 'sequelize'
 import { AdminAuditEntry, initAdminAuditEntry } from './admin-audit-entry'
 import { AccountToken, initAccountToken } from './account-token'
+import { BookletBuild, initBookletBuild } from './booklet-build'
 import { initOutgoingMail, OutgoingMail } from './outgoing-mail'
 import { initLicence, Licence } from './licence'
 import { initOrder, Order } from './order'
@@ -20,6 +21,7 @@ export { AccountToken, AdminAuditEntry, OutgoingMail, Pattern, PatternRevision, 
 export { Invitation, PatternStateChange }
 export { Licence, Order, PaymentEvent }
 export { Report, ReportMessage, ReportPhoto }
+export { BookletBuild }
 
 /** Binds every model to one Sequelize instance and declares how they relate. */
 export function initModels(sequelize: Sequelize): void {
@@ -39,6 +41,7 @@ export function initModels(sequelize: Sequelize): void {
   initReport(sequelize)
   initReportMessage(sequelize)
   initReportPhoto(sequelize)
+  initBookletBuild(sequelize)
 
   User.hasMany(Session, { foreignKey: 'userId', onDelete: 'CASCADE' })
   Session.belongsTo(User, { foreignKey: 'userId' })

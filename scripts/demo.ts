@@ -11,6 +11,8 @@
  * Payments go to a local fake of the payment provider (scripts/payment-fake.ts) on
  * http://127.0.0.1:54333: its test payment page has "Pay" and "Cancel" buttons, and it sends the
  * signed events to the app's webhook. No money moves; it forgets everything when stopped.
+ * Buyers' booklets are built by the booklet worker (scripts/booklet-worker.ts), a process of its
+ * own beside the app, stopped with the rest.
  * Settings: WREATHWRIGHT_DB_PORT (default 54329), WREATHWRIGHT_S3_PORT (default 54330),
  * WREATHWRIGHT_MAIL_PORT (the catcher's web view, default 54331), WREATHWRIGHT_SMTP_PORT (default 54332),
  * WREATHWRIGHT_PAYMENTS_PORT (default 54333), PORT (default 3000).
@@ -108,11 +110,13 @@ const env = {
 process.env.DATABASE_URL = env.DATABASE_URL
 
 let app: ReturnType<typeof startProcess> | undefined
+let bookletWorker: ReturnType<typeof startProcess> | undefined
 let stopping = false
 async function stopAll(code: number): Promise<never> {
   if (!stopping) {
     stopping = true
     await stopProcess(app)
+    await stopProcess(bookletWorker)
     await objectStore.stop().catch((error: Error) => console.error(`demo: could not stop the object store: ${error.message}`))
     await mailCatcher.stop().catch((error: Error) => console.error(`demo: could not stop the mail catcher: ${error.message}`))
     await paymentFake.stop().catch((error: Error) => console.error(`demo: could not stop the payment fake: ${error.message}`))
@@ -141,6 +145,8 @@ try {
   app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(appPort)], env)
   app.once('exit', (code) => !stopping && void stopAll(code ?? 1))
   await waitForHttp(`http://127.0.0.1:${appPort}/api/health`)
+  bookletWorker = startProcess('npx', ['tsx', '--conditions=react-server', 'scripts/booklet-worker.ts'], env, { quiet: true })
+  bookletWorker.once('exit', (code) => !stopping && void stopAll(code ?? 1))
 
   console.log(`
 Wreathwright is running. What the demo started, one line each:
@@ -149,6 +155,7 @@ database: http://127.0.0.1:${databasePort} (PostgreSQL; data in ${cluster.folder
 object-store: ${objectStore.url} (S3-compatible, bucket ${objectStore.bucket}; data in ${objectStore.folder})
 mail: ${mailCatcher.url} (every message the app sends, caught; SMTP on 127.0.0.1:${mailCatcher.smtpPort})
 payments: ${paymentFake.url} (the payment provider's local fake: test payment pages, signed events to the app; no money moves)
+booklet-worker: started (pid ${bookletWorker.pid}; builds buyers' booklets off the web process)
 
 Demo sign-ins (password for all: ${DEMO_PASSWORD}):
 ${DEMO_PEOPLE.map((person) => `  ${person.email.padEnd(34)} ${person.note}`).join('\n')}

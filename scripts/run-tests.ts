@@ -9,7 +9,9 @@
  *      and the payment provider's local fake (scripts/payment-fake.ts) on a free loopback port: the
  *      integration tests point its webhooks at themselves, the end-to-end run at the app;
  *   5. unit and integration tests (vitest), the integration ones against that database, store and catcher;
- *   6. the app built and started on a free port with demo data in a second database;
+ *   6. the app built and started on a free port with demo data in a second database, with the
+ *      booklet worker (scripts/booklet-worker.ts) beside it on that database (the integration tests
+ *      of booklets start their own worker, so that they know which process built what);
  *   7. end-to-end tests in headless Debian Chromium (playwright-core) against it.
  * Exits non-zero if anything failed, a lint finding included. Pass vitest filters after `--`, e.g.
  * `npm test -- shelf`; they narrow the tests, never the lint, which always covers every file.
@@ -34,9 +36,11 @@ let app: ReturnType<typeof startProcess> | undefined
 let objectStore: ObjectStore | undefined
 let mailCatcher: MailCatcher | undefined
 let paymentFake: PaymentFake | undefined
+let bookletWorker: ReturnType<typeof startProcess> | undefined
 
 async function cleanUp(): Promise<void> {
   await stopProcess(app)
+  await stopProcess(bookletWorker)
   await objectStore?.stop().catch((error: Error) => console.error(`tests: could not stop the object store: ${error.message}`))
   await mailCatcher?.stop().catch((error: Error) => console.error(`tests: could not stop the mail catcher: ${error.message}`))
   await paymentFake?.stop().catch((error: Error) => console.error(`tests: could not stop the payment fake: ${error.message}`))
@@ -126,6 +130,7 @@ try {
     // The provider's events go to the app's webhook from here on (the integration tests had them).
     paymentFake.setWebhookUrl(`http://127.0.0.1:${appPort}/api/webhooks/payments`)
     app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(appPort)], appEnv, { quiet: true })
+    bookletWorker = startProcess('npx', ['tsx', '--conditions=react-server', 'scripts/booklet-worker.ts'], { ...appEnv, BOOKLET_POLL_SECONDS: '0.5' }, { quiet: true })
     await waitForHttp(`http://127.0.0.1:${appPort}/api/health`)
     console.log('\n== end-to-end tests (headless Chromium) ==')
     const browserEnv = { ...e2eEnv, E2E_BASE_URL: `http://127.0.0.1:${appPort}` }

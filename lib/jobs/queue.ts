@@ -29,6 +29,26 @@ export async function ensurePaymentQueue(boss: PgBoss): Promise<void> {
   await boss.updateQueue(PAYMENT_EVENTS_QUEUE, PAYMENT_QUEUE_OPTIONS)
 }
 
+/** Buyers' booklets waiting to be built by the booklet worker (scripts/booklet-worker.ts). */
+export const BOOKLETS_QUEUE = 'booklets'
+
+export interface BookletBuildJob {
+  /** The booklet_builds row. */
+  buildId: string
+}
+
+/**
+ * The booklets' policy: two more tries, 5 s and 10 s later, when a build fails (the store briefly
+ * away); a booklet that cannot be written fails the same way each time, so no more than that.
+ * A build that runs past 10 minutes is given up (expired) and tried again.
+ */
+const BOOKLETS_QUEUE_OPTIONS = { name: BOOKLETS_QUEUE, retryLimit: 2, retryDelay: 5, retryBackoff: true, expireInSeconds: 10 * 60 }
+
+export async function ensureBookletQueue(boss: PgBoss): Promise<void> {
+  await boss.createQueue(BOOKLETS_QUEUE, BOOKLETS_QUEUE_OPTIONS)
+  await boss.updateQueue(BOOKLETS_QUEUE, BOOKLETS_QUEUE_OPTIONS)
+}
+
 /** The payment queue is made once per sending instance (a closed sender is replaced by a new one). */
 const readyFor = new WeakMap<Promise<PgBoss>, Promise<PgBoss>>()
 
@@ -39,6 +59,7 @@ function jobSender(): Promise<PgBoss> {
   if (!ready) {
     ready = sender.then(async (boss) => {
       await ensurePaymentQueue(boss)
+      await ensureBookletQueue(boss)
       return boss
     })
     ready.catch(() => readyFor.delete(sender))
@@ -51,7 +72,9 @@ function jobSender(): Promise<PgBoss> {
  * Queues a job in the caller's transaction: it is inserted through the transaction's own
  * connection, so it commits or rolls back with the caller's rows (as queueMail does).
  */
-export async function queueJob(queue: typeof PAYMENT_EVENTS_QUEUE, data: PaymentEventJob, transaction: Transaction): Promise<void> {
+export function queueJob(queue: typeof PAYMENT_EVENTS_QUEUE, data: PaymentEventJob, transaction: Transaction): Promise<void>
+export function queueJob(queue: typeof BOOKLETS_QUEUE, data: BookletBuildJob, transaction: Transaction): Promise<void>
+export async function queueJob(queue: string, data: object, transaction: Transaction): Promise<void> {
   const boss = await jobSender()
   const connection = (transaction as unknown as { connection: ClientBase }).connection
   const db = { executeSql: (text: string, values: unknown[]) => connection.query(text, values) }

@@ -1,0 +1,57 @@
+/**
+ * A buyer's booklet built on the server (`POST /api/licences/:id/booklets`, `GET
+ * /api/booklets/:id`): the request, in the API's words, made of the booklet's own option schemas
+ * (lib/schemas/booklet.ts), and the answers, shared by the library page and the server.
+ */
+import { z } from 'zod'
+import { bookletOptionsSchema, type BookletOptionsInput } from './booklet'
+
+const options = bookletOptionsSchema.shape
+
+/**
+ * What a buyer chooses: paper, orientation, colourway (by name; the design's first when left out)
+ * and finished diameter in inches (the design's own when left out). Every part of the booklet is
+ * built, with the default margins, overlap and cutting settings.
+ *
+ * @example bookletRequestSchema.parse({ paper: 'a4', diameterIn: 20 }).orientation // 'portrait'
+ */
+export const bookletRequestSchema = z.strictObject({
+  paper: options.paper,
+  orientation: options.orientation,
+  colorway: options.colorway,
+  diameterIn: options.finishedDiameterInches,
+})
+
+export type BookletRequest = z.output<typeof bookletRequestSchema>
+
+/**
+ * The booklet's own options for a request (what the booklet code and the cache key see).
+ *
+ * @example bookletOptionsOf({ paper: 'letter', orientation: 'portrait', diameterIn: 18 }) // { paper: 'letter', orientation: 'portrait', finishedDiameterInches: 18 }
+ */
+export function bookletOptionsOf(request: BookletRequest): BookletOptionsInput {
+  return {
+    paper: request.paper,
+    orientation: request.orientation,
+    ...(request.colorway !== undefined ? { colorway: request.colorway } : {}),
+    ...(request.diameterIn !== undefined ? { finishedDiameterInches: request.diameterIn } : {}),
+  }
+}
+
+export const BOOKLET_BUILD_STATES = ['queued', 'building', 'ready', 'failed'] as const
+
+/** `GET /api/booklets/:id` (and `POST`'s answer, with `id`). */
+export const bookletStatusSchema = z.object({
+  id: z.string(),
+  state: z.enum(BOOKLET_BUILD_STATES),
+  /** Pages written so far, and the total once known. */
+  progress: z.object({ pages: z.number().int(), of: z.number().int().nullable() }).optional(),
+  /** The short-lived download link (a path on this site), once ready. */
+  url: z.string().optional(),
+  /** When the link stops working (ISO time). */
+  urlExpiresAt: z.string().optional(),
+  /** Why it failed, in words for the buyer. */
+  error: z.string().optional(),
+})
+
+export type BookletStatus = z.infer<typeof bookletStatusSchema>

@@ -1,0 +1,31 @@
+/**
+ * The booklet worker: a process of its own, beside the web app, that builds buyers' booklets from
+ * the 'booklets' queue (lib/booklets/worker.ts) with the same booklet code as the print room and
+ * `cli pdf`, and stores them in the object store. Run it with
+ * `tsx --conditions=react-server scripts/booklet-worker.ts` and the app's settings (DATABASE_URL,
+ * S3_*, BOOKLET_WORKER_CONCURRENCY, BOOKLET_POLL_SECONDS); `npm run demo` and `npm test` start it.
+ * SIGTERM or SIGINT stops it after the builds in hand (an unfinished one is tried again later).
+ */
+import { startBookletWorker } from '../lib/booklets/worker'
+import { closeDatabase } from '../lib/db'
+import { bookletSettings } from '../lib/env'
+
+try {
+  const settings = bookletSettings()
+  const worker = await startBookletWorker({ concurrency: settings.workerConcurrency, pollSeconds: settings.pollSeconds })
+  console.log(`booklet-worker: ready (pid ${process.pid}, ${settings.workerConcurrency} at a time)`)
+  let stopping = false
+  const stop = () => {
+    if (stopping) return
+    stopping = true
+    void worker
+      .stop()
+      .then(() => closeDatabase())
+      .then(() => process.exit(0), () => process.exit(1))
+  }
+  process.once('SIGTERM', stop)
+  process.once('SIGINT', stop)
+} catch (error) {
+  console.error(`booklet-worker: could not start: ${(error as Error).message}`)
+  process.exit(1)
+}
