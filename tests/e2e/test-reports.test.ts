@@ -5,18 +5,17 @@
  * new state. Mail goes to the designer on the report and to the tester on the answer.
  *
  * The pattern is the demo's pattern in testing, made afresh for this run so other tests' state
- * changes cannot touch it; its tester is invited through the invitation table in the setup (the
- * invitation journey by e-mail has its own test).
+ * changes cannot touch it: the designer moves it to testing and invites a tester who has an
+ * account (PATCH /api/patterns/:id, POST /api/patterns/:id/invitations), who follows the
+ * invitation's link. A new tester signing up from the invitation is tests/e2e/pattern-testing.test.ts.
  */
 import type { Browser, Page } from 'playwright-core'
 import sharp from 'sharp'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { closeDatabase, database } from '@/lib/db'
-import { Invitation, Pattern, User } from '@/models'
 import { DEMO_PASSWORD, DEMO_PATTERNS, DEMO_TEST_ROUND } from '@/scripts/demo-data'
 import { createPatternFromPage } from '../support/board'
 import { baseUrl, launchBrowser, signInThroughPage } from '../support/browser'
-import { waitForMail } from '../support/mail'
+import { firstLink, waitForMail } from '../support/mail'
 
 const DESIGNER = DEMO_TEST_ROUND.designer
 const TESTER = DEMO_TEST_ROUND.testers[1]
@@ -40,23 +39,18 @@ beforeAll(async () => {
   designer = await personPage(DESIGNER)
   tester = await personPage(TESTER)
   patternId = await createPatternFromPage(designer, `Lantern test round ${Date.now()}`, LANTERN)
-  database()
-  const pattern = (await Pattern.findByPk(patternId))!
-  await pattern.update({ state: 'testing' })
-  const person = (await User.findOne({ where: { email: TESTER } }))!
-  await Invitation.create({
-    patternId,
-    email: TESTER,
-    invitedById: pattern.ownerId,
-    userId: person.id,
-    acceptedAt: new Date(),
-    withdrawnAt: null,
-    expiresAt: new Date(Date.now() + 7 * 24 * 3600 * 1000),
-  })
+  const statuses = await designer.evaluate(
+    async ({ id, email }) => {
+      const send = (method: string, path: string, body: unknown) =>
+        fetch(path, { method, headers: { 'content-type': 'application/json' }, body: JSON.stringify(body) }).then((response) => response.status)
+      return [await send('PATCH', `/api/patterns/${id}`, { revision: 1, state: 'testing' }), await send('POST', `/api/patterns/${id}/invitations`, { email })]
+    },
+    { id: patternId, email: TESTER },
+  )
+  expect(statuses).toEqual([200, 201])
 })
 afterAll(async () => {
   await browser?.close()
-  await closeDatabase()
 })
 
 /** A generated "photo": a rust block with a linen band, never a real photo. */
@@ -70,6 +64,9 @@ const ANSWER = 'Thank you — the margin for A3 is now 1/2 in; please print page
 
 describe('test reports', () => {
   it('a tester files a report with a photo on area A3', async () => {
+    const invitation = await waitForMail({ to: TESTER, kind: 'tester-invitation' })
+    await tester.goto(firstLink(invitation, `/testing/${patternId}`))
+    await tester.getByRole('heading', { level: 1 }).waitFor()
     await tester.goto(`${baseUrl()}/patterns/${patternId}/reports`)
     const form = tester.getByRole('form', { name: 'File a report' })
     await form.getByLabel('What kind of problem').selectOption('cutting')
