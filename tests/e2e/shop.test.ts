@@ -1,8 +1,10 @@
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { closeDatabase, database } from '@/lib/db'
+import { formatPrice } from '@/lib/shop/price'
 import { Pattern } from '@/models'
 import { baseUrl, launchBrowser } from '../support/browser'
+import { createUser, TEST_PASSWORD } from '../support/factories'
 
 /** The demo's flagship pattern (scripts/demo-wreath.ts): 4 repeats, two colourways, holly greens in the first. */
 const DEMO_PATTERN = 'Hollyberry Wreath'
@@ -102,6 +104,24 @@ describe('the shop, for a visitor who is not signed in', () => {
     await page.goto(`${baseUrl()}/shop?colour=mauve`)
     await expect(page.getByRole('alert').textContent()).resolves.toContain('colour')
     await context.close()
+  })
+
+  it('sends a visitor who wants to buy to sign in, back to the pattern, and on to the payment provider’s page for its price', async () => {
+    const quilter = await createUser({ displayName: 'Tamsin Larkspur', email: `tamsin-${Date.now()}@example.test` })
+    const page = await (await browser.newContext()).newPage()
+    await page.goto(`${baseUrl()}/shop/${pattern.id}`)
+    await page.getByRole('link', { name: /^Sign in to buy/ }).click()
+    await page.waitForURL(/\/sign-in\?next=/)
+    await page.getByLabel('E-mail address').fill(quilter.email)
+    await page.getByLabel('Password').fill(TEST_PASSWORD)
+    await page.getByRole('button', { name: 'Sign in' }).click()
+    await page.waitForURL(`${baseUrl()}/shop/${pattern.id}`)
+    // The price now, whatever an earlier test set it to; the provider's page shows the same.
+    const { priceCents, currency } = (await Pattern.findByPk(pattern.id, { attributes: ['priceCents', 'currency'] }))!
+    const price = formatPrice(priceCents!, currency!)
+    await page.getByRole('button', { name: `Buy · ${price}` }).click()
+    await page.waitForURL((url) => url.origin === process.env.PAYMENTS_API_URL)
+    await expect(page.getByTestId('total').textContent()).resolves.toBe(price)
   })
 
   it('answers not found for a pattern that is not for sale', async () => {
