@@ -1,8 +1,11 @@
+import { QueryTypes } from 'sequelize'
 import { afterAll, beforeEach, describe, expect, it } from 'vitest'
 import { PATCH as setVisibility } from '@/app/api/admin/listings/[id]/route'
 import { GET as getOne } from '@/app/api/shop/patterns/[id]/route'
 import { GET as listPatterns } from '@/app/api/shop/patterns/route'
 import { wreathFile } from '@/lib/booklet/test-support/designs'
+import { database } from '@/lib/db'
+import { createMigrator } from '@/lib/migrator'
 import type { Role } from '@/lib/roles'
 import type { DesignFile } from '@/lib/schemas/design'
 import type { PatternCurrency, PatternState } from '@/lib/schemas/pattern'
@@ -76,8 +79,9 @@ describe('the shop’s listing API', () => {
         repeats: 6,
         // wreathFile's ring: outer radius 9 in, so 18 in across.
         finishedDiameterIn: 18,
+        // Each colourway's colours lightest first, whatever order its fabrics are listed in.
         colorways: [
-          { name: 'Holly', colours: ['#f4ecd8', '#2f5540', '#7da37a'] },
+          { name: 'Holly', colours: ['#f4ecd8', '#7da37a', '#2f5540'] },
           { name: 'Harbour', colours: ['#f6f1e7', '#4f8a8b', '#1d3557'] },
         ],
         colourFamilies: ['greens', 'blues', 'neutrals'],
@@ -268,5 +272,48 @@ describe('hiding a listing', () => {
     const missing = await call(setVisibility, { method: 'PATCH', cookie, params: { id: '00000000-0000-4000-8000-000000000000' }, body: { hidden: true } })
     expect(missing.status).toBe(404)
     expect(await AdminAuditEntry.count()).toBe(0)
+  })
+})
+
+describe('the migration that adds the listing columns', () => {
+  it('backfills swatches, colour families and the date on sale from what is stored, and removes them on the way down', async () => {
+    const owner = await designer()
+    const migrator = createMigrator(database())
+    await migrator.down({ to: '20261202-0130-shop-listings.ts' })
+    const columns = async () =>
+      (await database().query<{ name: string }>("SELECT column_name::text AS name FROM information_schema.columns WHERE table_name = 'patterns'", { type: QueryTypes.SELECT })).map((row) => row.name)
+    expect(await columns()).not.toContain('colour_families')
+    // Stored before the shop: a published ring with a state change on record, a draft, a damaged design.
+    const insert = (name: string, state: string, design: unknown) =>
+      database().query<{ id: string }>('INSERT INTO patterns (owner_id, name, state, design) VALUES (:owner, :name, :state, CAST(:design AS jsonb)) RETURNING id', {
+        type: QueryTypes.SELECT,
+        replacements: { owner: owner.id, name, state, design: JSON.stringify(design) },
+      })
+    const [published] = await insert('Old ring', 'published', wreathFile({ name: 'Old ring', colorways: [HOLLY, POPPY] }))
+    await insert('Draft ring', 'draft', wreathFile({ name: 'Draft ring', colorways: [] }))
+    await insert('Damaged', 'draft', { colorways: 'none' })
+    const onSale = new Date('2026-11-20T09:00:00Z')
+    await database().query("INSERT INTO pattern_state_changes (pattern_id, from_state, to_state, created_at) VALUES (:id, 'testing', 'published', :at)", {
+      replacements: { id: published!.id, at: onSale },
+    })
+    await migrator.up()
+    const rows = await database().query<{ name: string; colour_families: string[]; colorway_swatches: unknown; published_at: Date | null; hidden_at: Date | null }>(
+      'SELECT name, colour_families, colorway_swatches, published_at, hidden_at FROM patterns ORDER BY name',
+      { type: QueryTypes.SELECT },
+    )
+    expect(rows).toEqual([
+      { name: 'Damaged', colour_families: [], colorway_swatches: [], published_at: null, hidden_at: null },
+      { name: 'Draft ring', colour_families: [], colorway_swatches: [], published_at: null, hidden_at: null },
+      {
+        name: 'Old ring',
+        colour_families: ['reds', 'greens', 'neutrals'],
+        colorway_swatches: [
+          { name: 'Holly', colours: ['#f4ecd8', '#7da37a', '#2f5540'] },
+          { name: 'Poppy', colours: ['#c0392b', '#dc143c', '#9b2915'] },
+        ],
+        published_at: onSale,
+        hidden_at: null,
+      },
+    ])
   })
 })
