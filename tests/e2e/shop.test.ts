@@ -3,7 +3,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { closeDatabase, database } from '@/lib/db'
 import { formatPrice } from '@/lib/shop/price'
 import { Pattern } from '@/models'
-import { baseUrl, launchBrowser } from '../support/browser'
+import { DEMO_PASSWORD } from '@/scripts/demo-data'
+import { baseUrl, launchBrowser, signInThroughPage } from '../support/browser'
 import { createUser, TEST_PASSWORD } from '../support/factories'
 
 /** The demo's flagship pattern (scripts/demo-wreath.ts): 4 repeats, two colourways, holly greens in the first. */
@@ -127,5 +128,27 @@ describe('the shop, for a visitor who is not signed in', () => {
   it('answers not found for a pattern that is not for sale', async () => {
     const response = await (await browser.newContext()).request.get(`${baseUrl()}/shop/00000000-0000-4000-8000-000000000000`)
     expect(response.status()).toBe(404)
+  })
+})
+
+describe('an admin on a pattern’s shop page', () => {
+  it('hides the listing from the shop and puts it back', async () => {
+    const context = await browser.newContext()
+    const page = await context.newPage()
+    await signInThroughPage(page, 'odile@wreathwright.example', DEMO_PASSWORD)
+    await page.goto(`${baseUrl()}/shop/${pattern.id}`)
+    await page.getByRole('button', { name: 'Hide from the shop' }).click()
+    await page.getByRole('button', { name: 'Put back in the shop' }).waitFor()
+    const stranger = await browser.newContext()
+    expect((await stranger.request.get(`${baseUrl()}/shop/${pattern.id}`)).status()).toBe(404)
+    await page.goto(`${baseUrl()}/shop?q=hollyberry`)
+    expect(await cards(page).count()).toBe(0)
+
+    await page.goto(`${baseUrl()}/shop/${pattern.id}`)
+    await page.getByRole('button', { name: 'Put back in the shop' }).click()
+    await page.getByRole('button', { name: 'Hide from the shop' }).waitFor()
+    expect((await stranger.request.get(`${baseUrl()}/shop/${pattern.id}`)).status()).toBe(200)
+    await stranger.close()
+    await context.close()
   })
 })
