@@ -126,4 +126,37 @@ describe('test reports', () => {
     expect(await thread.getByRole('button', { name: 'Mark resolved' }).count()).toBe(0)
     expect(pageErrors).toEqual([])
   })
+
+  it('a report on a point of the ring says so on the board once the designer redraws the area there', async () => {
+    await tester.goto(`${baseUrl()}/patterns/${patternId}/reports`)
+    const form = tester.getByRole('form', { name: 'File a report' })
+    // A2's label point in the first repeat (geometry/plan.ts), clicked on the map of the ring.
+    const [x, y] = await tester.getByTestId('report-map').evaluate((svg: SVGSVGElement) => {
+      const at = new DOMPoint(8.45, -2.42).matrixTransform(svg.getScreenCTM()!)
+      return [at.x, at.y]
+    })
+    await tester.mouse.click(x, y)
+    await expect.poll(() => form.getByTestId('report-map').locator('..').textContent()).toContain('in area A2')
+    await form.getByLabel('What kind of problem').selectOption('fit')
+    await form.getByLabel('What happened').fill('The points do not meet here.')
+    await form.getByRole('button', { name: 'File the report' }).click()
+    await expect.poll(() => tester.getByTestId('report-row').count(), { timeout: 15_000 }).toBe(2)
+
+    await designer.goto(`${baseUrl()}/patterns/${patternId}/board`)
+    await designer.getByRole('button', { name: 'Show test reports' }).click()
+    const pin = designer.getByTestId('report-pin')
+    await expect.poll(() => pin.count(), { timeout: 15_000 }).toBe(1)
+    expect(await pin.getAttribute('aria-label')).toBe('Report 1: Pieces do not fit at a point on the board')
+    // Every seam taken out: one area is left, A1, where A2 was.
+    await designer.evaluate(() => {
+      const board = window.wreathwrightBoard!
+      const present = board.getState().history.present
+      board.run('replaceDesign', { design: { ...present, seams: [], leaves: [], order: undefined } })
+    })
+    await expect.poll(() => pin.getAttribute('aria-label')).toBe('Report 1: Pieces do not fit at a point on the board, the design has changed here since')
+    await pin.click()
+    const thread = designer.getByRole('complementary', { name: 'Test report' })
+    await expect.poll(() => thread.getByRole('note').textContent()).toBe('The design has changed here since the report.')
+  })
 })
+
