@@ -2,6 +2,7 @@ import type { Metadata } from 'next'
 import Link from 'next/link'
 import { requireUser } from '@/lib/auth/current-user'
 import { listLibrary } from '@/lib/services/licences'
+import { GetBooklet } from './get-booklet'
 
 export const metadata: Metadata = { title: 'My library' }
 
@@ -42,6 +43,7 @@ export default async function LibraryPage() {
                   <Link href={`/library/${licence.id}/print`} className="text-thread-700 hover:underline">
                     Print
                   </Link>
+                  <GetBooklet licenceId={licence.id} patternName={licence.patternName} />
                 </td>
               </tr>
             ))}

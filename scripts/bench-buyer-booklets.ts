@@ -1,0 +1,151 @@
+/**
+ * Speed of buyers' booklets (issue 14): 20 buyers of the demo wreath (Hollyberry Wreath) ask for
+ * their booklets at once against the built app with the booklet worker beside it (both as the demo
+ * starts them), while /api/health is asked every 50 ms. Prints each build's times (waiting in the
+ * queue, writing, in all) and the health latencies (p50, p99, max) while they build; the goal is
+ * a p99 under 100 ms, the web process never blocking. A figure, not a test: it never fails on time.
+ * Everything on loopback, in a throwaway database and object store; bounded to 5 minutes.
+ *
+ * `tsx --conditions=react-server scripts/bench-buyer-booklets.ts` (part of `npm run bench`).
+ * BOOKLET_WORKER_CONCURRENCY (default 2) sets how many the worker builds at once.
+ */
+import fs from 'node:fs'
+import os from 'node:os'
+import path from 'node:path'
+import { percentile } from './bench-app'
+import { startObjectStore, type ObjectStore } from './object-store'
+import { startCluster, type Cluster } from './postgres'
+import { freePort, run, startProcess, stopProcess, waitForHttp } from './processes'
+
+const BUYERS = 20
+const HEALTH_EVERY_MS = 50
+const DEADLINE_MS = 5 * 60_000
+
+const work = fs.mkdtempSync(path.join(os.tmpdir(), 'wreathwright-bench-booklets-'))
+fs.chmodSync(work, 0o755)
+let cluster: Cluster | undefined
+let objectStore: ObjectStore | undefined
+let app: ReturnType<typeof startProcess> | undefined
+let worker: ReturnType<typeof startProcess> | undefined
+
+async function stopAll(): Promise<void> {
+  await stopProcess(worker)
+  await stopProcess(app)
+  await objectStore?.stop().catch(() => undefined)
+  try {
+    cluster?.stop()
+  } catch {
+    // Already stopped: nothing to do.
+  }
+  fs.rmSync(work, { recursive: true, force: true })
+}
+
+const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms))
+
+try {
+  cluster = startCluster(path.join(work, 'postgres'), await freePort(), { throwaway: true, passwordFile: path.join(work, 'postgres.password') })
+  cluster.createDatabase('wreathwright_bench')
+  objectStore = await startObjectStore(path.join(work, 'objects'), await freePort(), 'wreathwright-bench')
+  const port = await freePort()
+  const base = `http://127.0.0.1:${port}`
+  const env = {
+    ...process.env,
+    ...objectStore.env,
+    DATABASE_URL: cluster.url('wreathwright_bench'),
+    SESSION_COOKIE_SECURE: 'false',
+    NEXT_TELEMETRY_DISABLED: '1',
+    PUBLIC_URL: base,
+    MAIL_WORKER: 'off',
+  }
+  for (const args of [['tsx', 'scripts/migrate.ts', 'up'], ['tsx', 'scripts/seed-demo.ts'], ['next', 'build']]) {
+    if ((await run('npx', args, env)) !== 0) throw new Error(`${args.join(' ')} failed`)
+  }
+  app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(port)], env, { quiet: true })
+  worker = startProcess('npx', ['tsx', '--conditions=react-server', 'scripts/booklet-worker.ts'], { ...env, BOOKLET_POLL_SECONDS: '0.5' }, { quiet: true })
+  await waitForHttp(`${base}/api/health`)
+
+  // This process reads and writes the same database as the app, to make the buyers.
+  Object.assign(process.env, env)
+  const { database, closeDatabase } = await import('../lib/db')
+  const { Licence, Order, Pattern, BookletBuild } = await import('../models')
+  const { createUser, sessionCookieFor } = await import('../tests/support/factories')
+  database()
+  const pattern = await Pattern.findOne({ where: { name: 'Hollyberry Wreath' } })
+  if (!pattern) throw new Error('the demo data has no Hollyberry Wreath')
+  await pattern.update({ state: 'published' })
+  const buyers = []
+  for (let index = 0; index < BUYERS; index += 1) {
+    const buyer = await createUser({ displayName: `Bench Buyer ${index + 1}` })
+    const order = await Order.create({ id: crypto.randomUUID(), buyerId: buyer.id, patternId: pattern.id, amountCents: 1400, currency: 'USD', checkoutSessionId: `cs_bench_${crypto.randomUUID()}`, state: 'paid' })
+    const licence = await Licence.create({ userId: buyer.id, patternId: pattern.id, orderId: order.id })
+    buyers.push({ licenceId: licence.id, cookie: await sessionCookieFor(buyer) })
+  }
+  // Warm the routes once (the first request to a route loads its bundle), then measure.
+  await fetch(`${base}/api/booklets/00000000-0000-4000-8000-000000000000`, { headers: { cookie: buyers[0]!.cookie } })
+  await fetch(`${base}/api/licences/00000000-0000-4000-8000-000000000000/booklets`, { method: 'POST', headers: { cookie: buyers[0]!.cookie, origin: base, 'content-type': 'application/json' }, body: '{"paper":"letter"}' })
+
+  const deadline = Date.now() + DEADLINE_MS
+  const health: number[] = []
+  let building = true
+  const probe = (async () => {
+    while (building && Date.now() < deadline) {
+      const started = performance.now()
+      const answer = await fetch(`${base}/api/health`)
+      await answer.arrayBuffer()
+      health.push(performance.now() - started)
+      await sleep(HEALTH_EVERY_MS)
+    }
+  })()
+
+  const asked = performance.now()
+  const ids = await Promise.all(
+    buyers.map(async ({ licenceId, cookie }) => {
+      const answer = await fetch(`${base}/api/licences/${licenceId}/booklets`, {
+        method: 'POST',
+        headers: { cookie, origin: base, 'content-type': 'application/json' },
+        body: JSON.stringify({ paper: 'letter', orientation: 'portrait' }),
+      })
+      if (answer.status !== 202) throw new Error(`asking for a booklet: HTTP ${answer.status} ${await answer.text()}`)
+      return { id: ((await answer.json()) as { id: string }).id, cookie }
+    }),
+  )
+  const askMs = performance.now() - asked
+  // Each buyer's page polls its build as the library page does.
+  const seenReady = await Promise.all(
+    ids.map(async ({ id, cookie }) => {
+      while (Date.now() < deadline) {
+        const status = (await (await fetch(`${base}/api/booklets/${id}`, { headers: { cookie } })).json()) as { state: string }
+        if (status.state === 'ready' || status.state === 'failed') return { id, state: status.state, ms: performance.now() - asked }
+        await sleep(250)
+      }
+      return { id, state: 'timed out', ms: performance.now() - asked }
+    }),
+  )
+  building = false
+  await probe
+
+  const rows = await BookletBuild.findAll({ where: { id: ids.map(({ id }) => id) } })
+  const byId = new Map(rows.map((row) => [row.id, row]))
+  console.log(`\nbench-buyer-booklets: ${BUYERS} booklets of Hollyberry Wreath (letter, portrait) asked for at once; worker builds ${process.env.BOOKLET_WORKER_CONCURRENCY ?? 2} at a time`)
+  console.log(`  all ${BUYERS} requests answered in ${askMs.toFixed(0)} ms`)
+  console.log('  build  state  pages  queued ms  writing ms  seen ready ms')
+  seenReady
+    .sort((a, b) => a.ms - b.ms)
+    .forEach((seen, index) => {
+      const row = byId.get(seen.id)
+      const queued = row?.startedAt ? row.startedAt.getTime() - row.createdAt.getTime() : NaN
+      const writing = row?.startedAt && row.finishedAt ? row.finishedAt.getTime() - row.startedAt.getTime() : NaN
+      console.log(`  ${String(index + 1).padStart(5)}  ${seen.state.padEnd(5)}  ${String(row?.pageCount ?? '-').padStart(5)}  ${queued.toFixed(0).padStart(9)}  ${writing.toFixed(0).padStart(10)}  ${seen.ms.toFixed(0).padStart(13)}`)
+    })
+  const sorted = [...health].sort((a, b) => a - b)
+  const p99 = percentile(sorted, 99)
+  console.log(`  /api/health while building: ${sorted.length} answers, p50 ${percentile(sorted, 50).toFixed(1)} ms, p99 ${p99.toFixed(1)} ms, max ${sorted[sorted.length - 1]!.toFixed(1)} ms (goal: p99 under 100 ms: ${p99 < 100 ? 'met' : 'NOT met'})`)
+  const ready = seenReady.filter((seen) => seen.state === 'ready').length
+  console.log(`  ${ready} of ${BUYERS} ready; the last seen ready ${Math.max(...seenReady.map((seen) => seen.ms)).toFixed(0)} ms after asking`)
+  await closeDatabase()
+} catch (error) {
+  console.error(`bench-buyer-booklets: ${(error as Error).message}`)
+  process.exitCode = 1
+} finally {
+  await stopAll()
+}
