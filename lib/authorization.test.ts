@@ -102,6 +102,42 @@ describe('uploads', () => {
   })
 })
 
+describe('test reports', () => {
+  const testing = { ownerId: 'designer-1', state: 'testing' as const, testerIds: ['tester-1'] }
+  const designer = person(['designer', 'quilter'], 'designer-1')
+  const tester = person(['quilter'], 'tester-1')
+  const other = person(['quilter'], 'tester-2')
+  const admin = person(['admin'], 'admin-1')
+
+  it('lets only the testers of a pattern in testing file reports', () => {
+    expect(can(tester, 'file-report', testing)).toBe(true)
+    expect(can(designer, 'file-report', testing)).toBe(false)
+    expect(can(admin, 'file-report', testing)).toBe(false)
+    expect(can(other, 'file-report', testing)).toBe(false)
+    expect(can(tester, 'file-report', { ...testing, state: 'draft' })).toBe(false)
+  })
+
+  it('lets the designer, the testers and admins read and answer; only the designer or an admin resolves', () => {
+    for (const action of ['read-reports', 'answer-report'] as const) {
+      for (const reader of [designer, tester, admin]) expect(can(reader, action, testing)).toBe(true)
+      expect(can(other, action, testing)).toBe(false)
+    }
+    expect(can(designer, 'change-report-state', testing)).toBe(true)
+    expect(can(admin, 'change-report-state', testing)).toBe(true)
+    expect(can(tester, 'change-report-state', testing)).toBe(false)
+  })
+
+  it('lets anyone signed in upload a report photo, shown besides its owner to the designer and testers of the patterns whose reports show it', () => {
+    expect(can(person(['quilter']), 'upload-image', 'report-photo')).toBe(true)
+    expect(can(null, 'upload-image', 'report-photo')).toBe(false)
+    const photo = { ownerId: 'tester-1', reportPatterns: [testing] }
+    for (const reader of [tester, designer, admin]) expect(can(reader, 'read-upload', photo)).toBe(true)
+    expect(can(other, 'read-upload', photo)).toBe(false)
+    // Not yet on a report: its owner's alone (and admins').
+    expect(can(designer, 'read-upload', { ownerId: 'tester-1' })).toBe(false)
+  })
+})
+
 describe('the admin desk', () => {
   const deskActions = ['manage-users', 'decide-designer-requests', 'read-audit-log', 'read-mail-log'] as const
 
