@@ -12,6 +12,14 @@ export async function SiteHeader() {
         <Link href="/" className="text-lg font-semibold text-thread-800">
           Wreathwright
         </Link>
+        <Link href="/shop" className="text-sm text-stone-700 hover:text-thread-700">
+          Shop
+        </Link>
+        {can(user, 'read-own-library') && (
+          <Link href="/library" className="text-sm text-stone-700 hover:text-thread-700">
+            My library
+          </Link>
+        )}
         {can(user, 'list-own-patterns') && (
           <Link href="/patterns" className="text-sm text-stone-700 hover:text-thread-700">
             Pattern shelf

@@ -18,6 +18,10 @@ export function auditWords(action: string, details: Record<string, unknown>): st
       return 'approved the designer request of'
     case 'decline-designer-request':
       return 'declined the designer request of'
+    case 'hide-listing':
+      return 'hid from the shop the listing of'
+    case 'show-listing':
+      return 'put back in the shop the listing of'
     default:
       return action
   }

@@ -25,7 +25,7 @@ function resultUrls(orderId: string): { success: string; cancel: string } {
 
 /**
  * Starts buying a pattern; answers the provider's payment page. Refused: strangers (401), a pattern
- * not in the shop (404: a draft, one in testing, a retired or unpriced one), one's own pattern
+ * not in the shop (404: a draft, one in testing, a retired, hidden or unpriced one), one's own pattern
  * (403), a pattern one already holds a licence to (409), too many checkouts (429).
  *
  * @example await startCheckout(quilter, { patternId }) // { url: 'http://127.0.0.1:54333/pay/cs_test_…', orderId: '…' }
@@ -33,8 +33,9 @@ function resultUrls(orderId: string): { success: string; cancel: string } {
 export async function startCheckout(actor: Actor, input: CheckoutInput): Promise<{ url: string; orderId: string }> {
   authorize(actor, 'read-own-library')
   database()
-  const pattern = await Pattern.findByPk(input.patternId, { attributes: ['id', 'name', 'ownerId', 'state', 'priceCents', 'currency'] })
-  if (!pattern || pattern.state !== 'published' || pattern.priceCents === null || pattern.currency === null) {
+  const pattern = await Pattern.findByPk(input.patternId, { attributes: ['id', 'name', 'ownerId', 'state', 'priceCents', 'currency', 'hiddenAt'] })
+  // Only what the shop lists can be bought: a listing an admin hid is not for sale.
+  if (!pattern || pattern.state !== 'published' || pattern.hiddenAt !== null || pattern.priceCents === null || pattern.currency === null) {
     throw new NotFoundError('No such pattern in the shop.')
   }
   authorize(actor, 'buy-pattern', pattern)

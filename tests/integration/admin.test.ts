@@ -12,7 +12,7 @@ import type { Role } from '@/lib/roles'
 import { AdminAuditEntry, OutgoingMail, Session } from '@/models'
 import { emptyAdminLogs } from '../support/audit-log'
 import { closeDatabase, freshDatabase } from '../support/database'
-import { createUser, sessionCookieFor, TEST_PASSWORD } from '../support/factories'
+import { createPatternRow, createUser, sessionCookieFor, TEST_PASSWORD } from '../support/factories'
 import { call } from '../support/requests'
 
 beforeEach(async () => {
@@ -42,6 +42,8 @@ async function adminRoutes(): Promise<{ file: string; method: string; handler: H
 
 /** A body each route accepts, so that a refusal can only be about who is asking. */
 const VALID_BODY: Record<string, unknown> = { PATCH: { roles: ['quilter', 'tester'] }, POST: { decision: 'decline' } }
+/** Routes of the desk that act on something else than a person: their own body. */
+const VALID_BODY_OF: Record<string, unknown> = { 'listings/[id]/route.ts': { hidden: true } }
 
 describe('who gets into the admin API', () => {
   it('answers strangers 401 and designers, testers and quilters 404 on every admin route; admins get through', async () => {
@@ -61,8 +63,11 @@ describe('who gets into the admin API', () => {
     const people: [string, Role[]][] = [['designer', ['designer', 'quilter']], ['tester', ['tester', 'quilter']], ['quilter', ['quilter']]]
     const cookies = await Promise.all(people.map(async ([, roles]) => sessionCookieFor(await createUser({ roles }))))
     const adminCookie = await sessionCookieFor(await admin())
+    // The shop's listings are patterns: hiding one (listings/[id]) needs a pattern's id.
+    const listing = await createPatternRow(await createUser({ roles: ['designer'] }), { state: 'published' })
     for (const { file, method, handler } of routes) {
-      const options = { method, body: VALID_BODY[method], params: { id: target.id } }
+      const id = file.startsWith('listings/') ? listing.id : target.id
+      const options = { method, body: VALID_BODY_OF[file] ?? VALID_BODY[method], params: { id } }
       const label = `${method} ${file}`
       expect((await call(handler, options)).status, `${label} as a stranger`).toBe(401)
       for (const [index, cookie] of cookies.entries()) {
@@ -71,7 +76,7 @@ describe('who gets into the admin API', () => {
       expect((await call(handler, { ...options, cookie: adminCookie })).status, `${label} as an admin`).toBe(200)
     }
     // Nothing the others sent changed anything: only the admin's two changes are in the log.
-    expect((await AdminAuditEntry.findAll()).map((entry) => entry.action).sort()).toEqual(['decline-designer-request', 'grant-role'])
+    expect((await AdminAuditEntry.findAll()).map((entry) => entry.action).sort()).toEqual(['decline-designer-request', 'grant-role', 'hide-listing'])
   })
 })
 

@@ -86,12 +86,15 @@ describe('checkout', () => {
     expect(session.url).toBe(answer.json!.url)
   })
 
-  it('refuses a pattern that is not published, one’s own pattern, and strangers', async () => {
+  it('refuses a pattern that is not published or is hidden, one’s own pattern, and strangers', async () => {
     const { designer, pattern, cookie } = await shopScene({ state: 'testing' })
     expect((await startCheckout(cookie, { patternId: pattern.id })).status).toBe(404)
     await pattern.update({ state: 'retired' })
     expect((await startCheckout(cookie, { patternId: pattern.id })).status).toBe(404)
-    await pattern.update({ state: 'published' })
+    // A listing an admin hid is not for sale either.
+    await pattern.update({ state: 'published', hiddenAt: new Date() })
+    expect((await startCheckout(cookie, { patternId: pattern.id })).status).toBe(404)
+    await pattern.update({ hiddenAt: null })
     expect((await startCheckout(await sessionCookieFor(designer), { patternId: pattern.id })).status).toBe(403)
     expect((await call(checkout, { method: 'POST', body: { patternId: pattern.id } })).status).toBe(401)
     expect(await Order.count()).toBe(0)
