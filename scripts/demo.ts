@@ -108,6 +108,8 @@ const env = {
   PUBLIC_URL: `http://127.0.0.1:${appPort}`,
 }
 process.env.DATABASE_URL = env.DATABASE_URL
+// The seed runs in this process and stores the demo's report photos in the object store.
+Object.assign(process.env, objectStore.env)
 
 let app: ReturnType<typeof startProcess> | undefined
 let bookletWorker: ReturnType<typeof startProcess> | undefined

@@ -34,6 +34,11 @@ export default async function PatternToTestPage({ params }: { params: Promise<{ 
         You are testing this pattern: print the booklet, sew it, and note what could be clearer. Printing is free; each page
         of your booklet is marked as your test copy.
       </p>
+      <p>
+        <Link href={`/patterns/${pattern.id}/reports`} className="rounded bg-thread-700 px-4 py-2 text-white hover:bg-thread-800">
+          Report a problem
+        </Link>
+      </p>
       <dl className="grid max-w-xl grid-cols-2 gap-x-6 gap-y-2 text-sm">
         <dt className="text-stone-500">Finished diameter</dt>
         <dd>
