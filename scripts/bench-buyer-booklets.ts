@@ -20,6 +20,8 @@ import { freePort, run, startProcess, stopProcess, waitForHttp } from './process
 const BUYERS = 20
 const HEALTH_EVERY_MS = 50
 const DEADLINE_MS = 5 * 60_000
+/** As often as the library page asks (app/(shop)/library/get-booklet.tsx). */
+const STATUS_POLL_MS = 700
 
 const work = fs.mkdtempSync(path.join(os.tmpdir(), 'wreathwright-bench-booklets-'))
 fs.chmodSync(work, 0o755)
@@ -80,12 +82,21 @@ try {
     const licence = await Licence.create({ userId: buyer.id, patternId: pattern.id, orderId: order.id })
     buyers.push({ licenceId: licence.id, cookie: await sessionCookieFor(buyer) })
   }
-  // Warm the routes once (the first request to a route loads its bundle), then measure.
-  await fetch(`${base}/api/booklets/00000000-0000-4000-8000-000000000000`, { headers: { cookie: buyers[0]!.cookie } })
-  await fetch(`${base}/api/licences/00000000-0000-4000-8000-000000000000/booklets`, { method: 'POST', headers: { cookie: buyers[0]!.cookie, origin: base, 'content-type': 'application/json' }, body: '{"paper":"letter"}' })
+  // Warm up as a running app would be: one booklet asked for and built before measuring (the first
+  // request to a route loads its bundle; the first queued job starts the web process's queue client).
+  const warm = buyers[0]!
+  const warmAnswer = await fetch(`${base}/api/licences/${warm.licenceId}/booklets`, { method: 'POST', headers: { cookie: warm.cookie, origin: base, 'content-type': 'application/json' }, body: '{"paper":"a4"}' })
+  const warmId = ((await warmAnswer.json()) as { id: string }).id
+  const warmDeadline = Date.now() + 60_000
+  while (((await (await fetch(`${base}/api/booklets/${warmId}`, { headers: { cookie: warm.cookie } })).json()) as { state: string }).state !== 'ready') {
+    if (Date.now() > warmDeadline) throw new Error('the warm-up booklet was not built within a minute')
+    await sleep(250)
+  }
 
   const deadline = Date.now() + DEADLINE_MS
+  const asked = performance.now()
   const health: number[] = []
+  const slowest: { at: number; ms: number }[] = []
   let building = true
   const probe = (async () => {
     while (building && Date.now() < deadline) {
@@ -93,11 +104,11 @@ try {
       const answer = await fetch(`${base}/api/health`)
       await answer.arrayBuffer()
       health.push(performance.now() - started)
+      slowest.push({ at: started - asked, ms: performance.now() - started })
       await sleep(HEALTH_EVERY_MS)
     }
   })()
 
-  const asked = performance.now()
   const ids = await Promise.all(
     buyers.map(async ({ licenceId, cookie }) => {
       const answer = await fetch(`${base}/api/licences/${licenceId}/booklets`, {
@@ -116,7 +127,7 @@ try {
       while (Date.now() < deadline) {
         const status = (await (await fetch(`${base}/api/booklets/${id}`, { headers: { cookie } })).json()) as { state: string }
         if (status.state === 'ready' || status.state === 'failed') return { id, state: status.state, ms: performance.now() - asked }
-        await sleep(250)
+        await sleep(STATUS_POLL_MS)
       }
       return { id, state: 'timed out', ms: performance.now() - asked }
     }),
@@ -140,6 +151,8 @@ try {
   const sorted = [...health].sort((a, b) => a - b)
   const p99 = percentile(sorted, 99)
   console.log(`  /api/health while building: ${sorted.length} answers, p50 ${percentile(sorted, 50).toFixed(1)} ms, p99 ${p99.toFixed(1)} ms, max ${sorted[sorted.length - 1]!.toFixed(1)} ms (goal: p99 under 100 ms: ${p99 < 100 ? 'met' : 'NOT met'})`)
+  const worst = slowest.sort((a, b) => b.ms - a.ms).slice(0, 3)
+  console.log(`  slowest health answers: ${worst.map((sample) => `${sample.ms.toFixed(0)} ms at ${(sample.at / 1000).toFixed(1)} s`).join(', ')}`)
   const ready = seenReady.filter((seen) => seen.state === 'ready').length
   console.log(`  ${ready} of ${BUYERS} ready; the last seen ready ${Math.max(...seenReady.map((seen) => seen.ms)).toFixed(0)} ms after asking`)
   await closeDatabase()

@@ -123,8 +123,10 @@ export async function requestBooklet(actor: Actor, licensed: LicenceForBooklet, 
   const sequelize = database()
   const { licence, pattern } = licensed
   await countBookletBuild(actor.id)
-  const design = await designAt(pattern, pattern.revision)
-  if (request.colorway !== undefined && !design.colorways.some((colorway) => colorway.name === request.colorway)) {
+  // The names straight from the stored file: parsing the whole design is the worker's work, kept
+  // out of the web process (an unreadable design fails the build with a plain message).
+  const colorwayNames = ((pattern.design as { colorways?: { name?: unknown }[] } | null)?.colorways ?? []).map((colorway) => colorway.name)
+  if (request.colorway !== undefined && !colorwayNames.includes(request.colorway)) {
     throw new ValidationError([{ path: 'colorway', message: `This pattern has no colourway named “${request.colorway}”.` }])
   }
   const person = (await User.findByPk(actor.id, { attributes: ['displayName'] }))?.displayName ?? 'the licence holder'
