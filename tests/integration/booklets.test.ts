@@ -175,6 +175,19 @@ describe("a buyer's booklet", () => {
     expect(landscape.json!.id).not.toBe(first.json!.id)
   })
 
+  it('counts each request against the person’s booklet limit: 30 an hour, then 429 with Retry-After', async () => {
+    const { licence, cookies } = await scene()
+    // RATE_LIMITS.bookletBuildsPerUser: 30 an hour (lib/rate-limits.ts). Asking again for the same
+    // booklet is cheap but still counted, so a script cannot poll by asking.
+    for (let index = 0; index < 30; index += 1) expect((await ask(licence.id, cookies.buyer, { paper: 'letter' })).status).toBeLessThan(300)
+    const refused = await ask(licence.id, cookies.buyer, { paper: 'letter' })
+    expect(refused.status).toBe(429)
+    expect(Number(refused.headers.get('retry-after'))).toBeGreaterThan(0)
+    // Someone else's requests are theirs to count.
+    const { licence: theirs, cookies: theirCookies } = await scene()
+    expect((await ask(theirs.id, theirCookies.buyer, { paper: 'letter' })).status).toBe(202)
+  })
+
   it('downloads only through an unexpired link signed for this build and this person', async () => {
     const { buyer, other, licence, cookies } = await scene()
     const asked = await ask(licence.id, cookies.buyer, { paper: 'letter' })
