@@ -25,6 +25,11 @@ export async function SiteHeader() {
             Pattern shelf
           </Link>
         )}
+        {can(user, 'read-own-sales') && (
+          <Link href="/sales" className="text-sm text-stone-700 hover:text-thread-700">
+            Sales
+          </Link>
+        )}
         {can(user, 'list-patterns-to-test') && (
           <Link href="/testing" className="text-sm text-stone-700 hover:text-thread-700">
             Patterns to test

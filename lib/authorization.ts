@@ -90,6 +90,9 @@ type Rules = {
   'upload-image': (actor: NonNullable<Actor>, purpose: UploadPurpose) => boolean
   'read-upload': (actor: NonNullable<Actor>, upload: UploadFacts) => boolean
   'get-licensed-booklet': (actor: NonNullable<Actor>, booklet: BookletFacts) => boolean
+  'read-own-sales': (actor: NonNullable<Actor>) => boolean
+  'read-all-sales': (actor: NonNullable<Actor>) => boolean
+  'read-pattern-sales': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
 }
 
 export type Action = keyof Rules
@@ -170,6 +173,11 @@ const rules: Rules = {
   // pages carry the buyer's name. A refund (revoked licence) closes it.
   'get-licensed-booklet': (actor, booklet) =>
     booklet.requesterId === actor.id && booklet.licenceHolderId === actor.id && !booklet.licenceRevoked && isLicenceHolderOf(actor, booklet.pattern),
+  // The sales table (lib/services/sales.ts): a designer sees the sales of their own patterns (the
+  // buyers' display names, never their e-mail addresses); admins see every designer's.
+  'read-own-sales': (actor) => hasRole(actor, 'designer') || isAdmin(actor),
+  'read-all-sales': (actor) => isAdmin(actor),
+  'read-pattern-sales': (actor, pattern) => isOwningDesigner(actor, pattern) || isAdmin(actor),
 }
 
 type ResourceOf<A extends Action> = Parameters<Rules[A]> extends [unknown, infer R] ? [resource: R] : []
@@ -199,6 +207,7 @@ export function authorize<A extends Action>(actor: Actor, action: A, ...resource
   if (action === 'read-upload') throw new NotFoundError('No such upload.')
   if (action === 'read-order') throw new NotFoundError('No such order.')
   if (action === 'get-licensed-booklet') throw new NotFoundError('No such booklet.')
+  if (action === 'read-pattern-sales') throw new NotFoundError('No such pattern.')
   if (ADMIN_DESK_ACTIONS.has(action)) throw new NotFoundError()
   throw new ForbiddenError()
 }
