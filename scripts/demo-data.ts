@@ -25,6 +25,7 @@ import type { ReportAuthorRole } from '../models/report-message'
 import { storeDemoPhotos, type DemoPhoto } from './demo-photos'
 import type { AdminAction } from '../models/admin-audit-entry'
 import { hollyberryWreath } from './demo-wreath'
+import { DEMO_SEASON_PATTERNS, DEMO_WREATH_SKILL_NOTES, seedSeasonSales } from './demo-season'
 
 /** For the demo only: every demo account signs in with this password. */
 export const DEMO_PASSWORD = 'stitch-and-flip-26'
@@ -237,9 +238,12 @@ const winterStarSketch: DesignFile = {
   ],
 }
 
-/** A pattern that is or was for sale carries its price, in integer cents. */
-export const DEMO_PATTERNS: readonly { owner: string; state: PatternState; design: DesignFile; priceCents?: number; currency?: PatternCurrency }[] = [
-  { owner: 'marguerite@bramblelane.example', state: 'published', design: hollyberryWreath, priceCents: 1400, currency: 'USD' },
+/**
+ * A pattern that is or was for sale carries its price, in integer cents; the season's patterns on
+ * sale (scripts/demo-season.ts) come after the studios' own.
+ */
+export const DEMO_PATTERNS: readonly { owner: string; state: PatternState; design: DesignFile; priceCents?: number; currency?: PatternCurrency; skillNotes?: string }[] = [
+  { owner: 'marguerite@bramblelane.example', state: 'published', design: hollyberryWreath, priceCents: 1400, currency: 'USD', skillNotes: DEMO_WREATH_SKILL_NOTES },
   { owner: 'marguerite@bramblelane.example', state: 'testing', design: lanternMedallion },
   { owner: 'marguerite@bramblelane.example', state: 'draft', design: winterStarSketch },
   { owner: 'tomasz@juniperthread.example', state: 'draft', design: compassRing },
@@ -250,6 +254,7 @@ export const DEMO_PATTERNS: readonly { owner: string; state: PatternState; desig
     priceCents: 1150,
     currency: 'EUR',
   },
+  ...DEMO_SEASON_PATTERNS.map((pattern) => ({ ...pattern, state: 'published' as const })),
 ]
 
 /** Creates the generated crowd's missing members in one insert; returns how many were added. */
@@ -274,12 +279,13 @@ async function seedCrowd(passwordHash: string, transaction: Transaction): Promis
 }
 
 /** Loads the demo people and patterns into the database named by DATABASE_URL; safe to repeat. */
-export async function seedDemoData(): Promise<{ people: number; patterns: number; reports: number }> {
+export async function seedDemoData(): Promise<{ people: number; patterns: number; reports: number; sales: number }> {
   const sequelize = database()
   const passwordHash = await hashPassword(DEMO_PASSWORD)
   let people = 0
   let patterns = 0
   let reports = 0
+  let sales = 0
   await sequelize.transaction(async (transaction) => {
     const owners = new Map<string, User>()
     const created = new Set<string>()
@@ -337,7 +343,16 @@ export async function seedDemoData(): Promise<{ people: number; patterns: number
       const owner = owners.get(demo.owner)!
       const [pattern, isNew] = await Pattern.findOrCreate({
         where: { ownerId: owner.id, name: design.name },
-        defaults: { ownerId: owner.id, name: design.name, state: demo.state, design, revision: 1, priceCents: demo.priceCents ?? null, currency: demo.currency ?? null },
+        defaults: {
+          ownerId: owner.id,
+          name: design.name,
+          state: demo.state,
+          design,
+          revision: 1,
+          priceCents: demo.priceCents ?? null,
+          currency: demo.currency ?? null,
+          skillNotes: demo.skillNotes ?? null,
+        },
         transaction,
       })
       if (!isNew) continue
@@ -348,8 +363,9 @@ export async function seedDemoData(): Promise<{ people: number; patterns: number
       )
     }
     reports = await seedTestRound(owners, transaction)
+    sales = await seedSeasonSales(transaction)
   })
-  return { people, patterns, reports }
+  return { people, patterns, reports, sales }
 }
 
 /** The test round of the pattern in testing: who was invited, and what they reported. */

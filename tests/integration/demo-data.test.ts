@@ -2,14 +2,21 @@ import { afterAll, beforeEach, describe, expect, it } from 'vitest'
 import { parseDesign } from '@/lib/schemas/design'
 import { Op } from 'sequelize'
 import { testerIdsOf } from '@/lib/services/testers'
-import { AdminAuditEntry, Invitation, OutgoingMail, Pattern, PatternRevision, Report, ReportMessage, ReportPhoto, Upload, User } from '@/models'
+import { AdminAuditEntry, Invitation, Licence, Order, OutgoingMail, Pattern, PatternRevision, PaymentEvent, Report, ReportMessage, ReportPhoto, Upload, User } from '@/models'
 import { DEMO_CROWD_SIZE, DEMO_PATTERNS, DEMO_PEOPLE, DEMO_PEOPLE_IN_STATES, DEMO_REPORTS, DEMO_TEST_ROUND, demoCrowd, seedDemoData } from '@/scripts/demo-data'
+import { DEMO_SALES, DEMO_SEASON_PATTERNS } from '@/scripts/demo-season'
+import { listLibrary } from '@/lib/services/licences'
+import { listSales } from '@/lib/services/sales'
+import { listShopPatterns } from '@/lib/services/shop-listings'
+import { clearPayments } from '../support/payments'
 import { emptyAdminLogs } from '../support/audit-log'
 import { closeDatabase, freshDatabase } from '../support/database'
 import { emptyBucket, storedKeys } from '../support/object-store'
 
 beforeEach(async () => {
   await freshDatabase()
+  // The payment log has no tie to people or patterns, so emptying them leaves it: empty it too.
+  await clearPayments()
   await emptyAdminLogs()
   await emptyBucket()
 })
@@ -21,11 +28,12 @@ const EVERYONE = DEMO_PEOPLE.length + DEMO_PEOPLE_IN_STATES.length + DEMO_CROWD_
 describe('demo data', () => {
   it('loads every demo person and pattern, each pattern with its first revision', async () => {
     const loaded = await seedDemoData()
-    expect(loaded).toEqual({ people: EVERYONE, patterns: DEMO_PATTERNS.length, reports: DEMO_REPORTS.length })
+    expect(loaded).toEqual({ people: EVERYONE, patterns: DEMO_PATTERNS.length, reports: DEMO_REPORTS.length, sales: DEMO_SALES.length })
     expect(await User.count()).toBe(EVERYONE)
     expect(await PatternRevision.count()).toBe(DEMO_PATTERNS.length)
     const states = (await Pattern.findAll()).map((pattern) => pattern.state).sort()
-    expect(states).toEqual(['draft', 'draft', 'published', 'retired', 'testing'])
+    // The two studios' five, and the season's four more on sale.
+    expect(states).toEqual(['draft', 'draft', 'published', 'published', 'published', 'published', 'published', 'retired', 'testing'])
   })
 
   it('neither duplicates nor overwrites anything when loaded again', async () => {
@@ -35,7 +43,9 @@ describe('demo data', () => {
     const entries = await AdminAuditEntry.count()
     const mail = await OutgoingMail.count()
     const uploads = await Upload.count()
-    expect(await seedDemoData()).toEqual({ people: 0, patterns: 0, reports: 0 })
+    const payments = [await Order.count(), await Licence.count(), await PaymentEvent.count()]
+    expect(await seedDemoData()).toEqual({ people: 0, patterns: 0, reports: 0, sales: 0 })
+    expect([await Order.count(), await Licence.count(), await PaymentEvent.count()]).toEqual(payments)
     expect([await Report.count(), await Invitation.count(), await Upload.count()]).toEqual([DEMO_REPORTS.length, DEMO_TEST_ROUND.testers.length + DEMO_TEST_ROUND.pendingInvitations.length, uploads])
     expect(await User.count()).toBe(EVERYONE)
     expect([await AdminAuditEntry.count(), await OutgoingMail.count()]).toEqual([entries, mail])
@@ -130,5 +140,59 @@ describe('demo data', () => {
       expect(upload.ownerId).toBe(report.testerId)
     }
     expect((await storedKeys()).sort()).toEqual(uploads.map((upload) => upload.key).sort())
+  })
+
+  it('fills the shop for a season: patterns on sale in several colour families, repeats, prices and currencies, each with skill notes', async () => {
+    await seedDemoData()
+    const shop = await listShopPatterns({ sort: 'newest', page: 1 })
+    expect(shop.patterns.map((listing) => listing.name).sort()).toEqual(
+      ['Hollyberry Wreath', ...DEMO_SEASON_PATTERNS.map((pattern) => pattern.design.name)].sort(),
+    )
+    for (const listing of shop.patterns) expect(listing.skillNotes, listing.name).toBeTruthy()
+    expect(new Set(shop.patterns.map((listing) => listing.currency)).size).toBeGreaterThanOrEqual(4)
+    expect(new Set(shop.patterns.map((listing) => listing.repeats)).size).toBeGreaterThanOrEqual(4)
+    expect(new Set(shop.patterns.map((listing) => listing.priceCents)).size).toBe(shop.patterns.length)
+    expect(new Set(shop.patterns.flatMap((listing) => listing.colourFamilies)).size).toBeGreaterThanOrEqual(5)
+  })
+
+  it('sold the season over the three months before this one: licences in libraries, one refund revoked, a processed event for each', async () => {
+    await seedDemoData()
+    const orders = await Order.findAll()
+    expect(orders).toHaveLength(DEMO_SALES.length)
+    // Each order at its pattern's price, paid in one of the three whole months before this one.
+    const now = new Date()
+    const months = [1, 2, 3].map((back) => new Date(Date.UTC(now.getUTCFullYear(), now.getUTCMonth() - back, 1)).toISOString().slice(0, 7))
+    const prices = new Map((await Pattern.findAll()).map((pattern) => [pattern.id, [pattern.priceCents, pattern.currency]]))
+    for (const order of orders) {
+      expect([order.amountCents, order.currency]).toEqual(prices.get(order.patternId))
+      expect(months).toContain(order.paidAt!.toISOString().slice(0, 7))
+    }
+    const refunded = orders.filter((order) => order.state === 'refunded')
+    expect(refunded).toHaveLength(1)
+    expect(refunded[0]!.refundedAt!.getTime()).toBeGreaterThan(refunded[0]!.paidAt!.getTime())
+    const revoked = await Licence.findAll({ where: { revokedAt: { [Op.ne]: null } } })
+    expect(revoked.map((licence) => licence.orderId)).toEqual([refunded[0]!.id])
+
+    // The payment log: one processed payment per sale and one processed refund, naming the licence.
+    const events = await PaymentEvent.findAll()
+    expect(events.map((event) => event.state).every((state) => state === 'processed')).toBe(true)
+    expect(events.filter((event) => event.type === 'checkout.session.completed')).toHaveLength(DEMO_SALES.length)
+    const refundEvents = events.filter((event) => event.type === 'charge.refunded')
+    expect(refundEvents.map((event) => event.paymentIntentId)).toEqual([refunded[0]!.paymentIntentId])
+    expect(refundEvents[0]!.note).toBe(`refunded: licence ${(await Licence.findOne({ where: { orderId: refunded[0]!.id } }))!.number} revoked`)
+
+    // Elsie and Ruben have libraries; Ruben's refunded pattern is not in his.
+    const person = async (email: string) => (await User.findOne({ where: { email } }))!
+    const elsie = await listLibrary(await person('elsie@quilters.example'))
+    expect(elsie.map((entry) => entry.patternName).sort()).toEqual(['Hollyberry Wreath', 'Meadow Rue Circlet', 'Rosehip Garland'])
+    const ruben = await listLibrary(await person('ruben@quilters.example'))
+    expect(ruben.map((entry) => entry.patternName).sort()).toEqual(['Hollyberry Wreath', 'Sloe Berry Ring'])
+
+    // The designer's sales table has three months, the refund among them.
+    const marguerite = await person('marguerite@bramblelane.example')
+    const sales = await listSales(marguerite, {})
+    expect(sales.sales).toHaveLength(DEMO_SALES.length)
+    expect(new Set(sales.totals.map((total) => total.month))).toEqual(new Set(months))
+    expect(sales.totals.reduce((sum, total) => sum + total.refunds, 0)).toBe(1)
   })
 })
