@@ -112,6 +112,10 @@ describe('the designer’s sales', () => {
     const march = await get(designer, '?from=2026-03-01&to=2026-03-31')
     expect(march.json!.sales).toHaveLength(3)
     expect(march.json!.totals).toEqual([{ month: '2026-03', currency: 'USD', sales: 3, grossCents: 4350, refunds: 1, refundsCents: 1450, netCents: 2900 }])
+    // April alone: no sale paid in it, but February's refund made in it.
+    const april = await get(designer, '?from=2026-04-01&to=2026-04-30')
+    expect(april.json!.sales).toEqual([])
+    expect(april.json!.totals).toEqual([{ month: '2026-04', currency: 'USD', sales: 0, grossCents: 0, refunds: 1, refundsCents: 1450, netCents: -1450 }])
   })
 
   it('never adds different currencies together', async () => {

@@ -3,6 +3,7 @@ import { notFound } from 'next/navigation'
 import { MonthlyTotals, SalesRows } from '@/components/sales/sales-tables'
 import { SalesFilters } from '@/components/sales/sales-filters'
 import { requireUser } from '@/lib/auth/current-user'
+import { can } from '@/lib/authorization'
 import { NotFoundError } from '@/lib/errors'
 import { readSalesQuery, type SalesQuery } from '@/lib/schemas/sales'
 import { listSales, salesPatternChoices } from '@/lib/services/sales'
@@ -28,7 +29,7 @@ export default async function SalesPage({ searchParams }: { searchParams: Promis
     <article className="mx-auto max-w-5xl space-y-6">
       <h1 className="text-2xl font-semibold text-thread-800">Sales</h1>
       <p className="max-w-3xl text-stone-700">
-        Every paid sale of your patterns, and each refund in the month it was made. Buyers are shown by the name they chose; their
+        Every paid sale of {can(user, 'read-all-sales') ? 'every designer’s patterns' : 'your patterns'}, and each refund in the month it was made. Buyers are shown by the name they chose; their
         e-mail addresses stay private. Amounts in different currencies are totalled apart.
       </p>
       <SalesFilters query={query} patterns={patterns} />
