@@ -176,6 +176,7 @@ export async function seedSeasonSales(transaction: Transaction): Promise<number>
     (await PaymentEvent.findAll({ where: { providerEventId: { [Op.like]: 'evt_demo_%' } }, attributes: ['providerEventId'], transaction })).map((event) => event.providerEventId),
   )
   let added = 0
+  const firstSale = new Map<string, number>()
   for (const sale of missing) {
     const buyer = buyers.get(sale.buyer)
     const pattern = patterns.get(sale.pattern)
@@ -251,6 +252,12 @@ export async function seedSeasonSales(transaction: Transaction): Promise<number>
       )
     }
     added += 1
+    firstSale.set(pattern.id, Math.min(firstSale.get(pattern.id) ?? Infinity, paidAt.getTime()))
+  }
+  // A pattern sold months ago went on sale before its first sale (the shop's "newest" reads this),
+  // not when this script happened to create it: a fortnight before.
+  for (const [patternId, soldAt] of firstSale) {
+    await Pattern.update({ publishedAt: new Date(soldAt - 14 * DAY_MS) }, { where: { id: patternId, publishedAt: { [Op.gt]: new Date(soldAt) } }, transaction })
   }
   return added
 }

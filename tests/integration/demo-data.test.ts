@@ -167,6 +167,11 @@ describe('demo data', () => {
       expect([order.amountCents, order.currency]).toEqual(prices.get(order.patternId))
       expect(months).toContain(order.paidAt!.toISOString().slice(0, 7))
     }
+    // Each pattern went on sale before its first sale.
+    for (const pattern of await Pattern.findAll({ where: { id: orders.map((order) => order.patternId) } })) {
+      const first = Math.min(...orders.filter((order) => order.patternId === pattern.id).map((order) => order.paidAt!.getTime()))
+      expect(pattern.publishedAt!.getTime(), pattern.name).toBeLessThan(first)
+    }
     const refunded = orders.filter((order) => order.state === 'refunded')
     expect(refunded).toHaveLength(1)
     expect(refunded[0]!.refundedAt!.getTime()).toBeGreaterThan(refunded[0]!.paidAt!.getTime())
