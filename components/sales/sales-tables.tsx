@@ -64,7 +64,7 @@ export function SalesRows({ sales }: { sales: readonly SaleRow[] }) {
             <td className={`${cell} text-right whitespace-nowrap ${sale.refundedAt ? 'text-stone-500 line-through' : ''}`}>
               {formatPrice(sale.amountCents, sale.currency)}
             </td>
-            <td className={`${cell} whitespace-nowrap ${sale.refundedAt ? 'text-madder-700' : ''}`}>{sale.refundedAt ? sale.refundedAt.slice(0, 10) : '—'}</td>
+            <td className={`${cell} whitespace-nowrap ${sale.refundedAt ? 'text-madder-700' : ''}`} data-testid="sale-refunded">{sale.refundedAt ? sale.refundedAt.slice(0, 10) : '—'}</td>
           </tr>
         ))}
       </tbody>
