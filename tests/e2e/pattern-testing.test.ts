@@ -92,5 +92,8 @@ describe('a test round', () => {
     await signInThroughPage(other, 'elsie@quilters.example', DEMO_PASSWORD)
     const response = await other.goto(`${baseUrl()}/testing/${patternId}`)
     expect(response?.status()).toBe(404)
+    // The page itself, rendered in the browser (the not-found content comes in the streamed payload),
+    // so that anything the policy refuses on it is seen before the browser closes.
+    await other.getByTestId('not-found').waitFor()
   })
 })
