@@ -9,6 +9,9 @@
  * a design without limits was a way to stall the server (issue 10).
  */
 
+/** Repeats around the ring: at least 2, at most 36 (10° each). The board, the schema and the shop's filter read these. */
+export const MIN_REPEATS = 2
+export const MAX_REPEATS = 36
 /** Seams in repeat 0. */
 export const MAX_SEAMS = 400
 /** Leaf inserts (one or more per seam). */

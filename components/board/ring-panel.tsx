@@ -3,6 +3,7 @@
 import { useState } from 'react'
 import type { BoardRing } from '@/lib/board/commands'
 import { design as designOf, type BoardStore } from '@/lib/board/store'
+import { MAX_REPEATS, MIN_REPEATS } from '@/lib/limits'
 import { designFileSchema } from '@/lib/schemas/design'
 import { NumberField } from './number-field'
 import { useBoard } from './use-board'
@@ -31,7 +32,7 @@ export function RingPanel({ store }: { store: BoardStore }) {
       <div className="grid grid-cols-2 gap-2">
         <NumberField id="ring-inner" label="Inner radius" value={ring.innerRadius} min={0} suffix={units} onCommit={(v) => change('innerRadius', v)} error={errorFor('innerRadius')} />
         <NumberField id="ring-outer" label="Outer radius" value={ring.outerRadius} min={0} suffix={units} onCommit={(v) => change('outerRadius', v)} error={errorFor('outerRadius')} />
-        <NumberField id="ring-repeats" label="Repeats" value={ring.repeats} step={1} min={2} max={36} onCommit={(v) => change('repeats', v)} error={errorFor('repeats')} />
+        <NumberField id="ring-repeats" label="Repeats" value={ring.repeats} step={1} min={MIN_REPEATS} max={MAX_REPEATS} onCommit={(v) => change('repeats', v)} error={errorFor('repeats')} />
         <div className="flex flex-col gap-0.5">
           <label htmlFor="ring-mode" className="text-xs font-medium text-stone-600">
             Repeats are

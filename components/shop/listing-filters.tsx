@@ -1,4 +1,5 @@
 import Link from 'next/link'
+import { MAX_REPEATS, MIN_REPEATS } from '@/lib/limits'
 import { SHOP_SORTS, type ShopListingQuery, type ShopSort } from '@/lib/schemas/shop-listings'
 import { COLOUR_FAMILIES, COLOUR_FAMILY_NAMES } from '@/lib/shop/colour-families'
 
@@ -34,7 +35,7 @@ export function ListingFilters({ query }: { query: ShopListingQuery }) {
       </div>
       <div className={label}>
         <label htmlFor="shop-repeats">Repeats</label>
-        <input type="number" id="shop-repeats" name="repeats" min={2} max={36} step={1} defaultValue={query.repeats ?? ''} className={`${field} w-20`} />
+        <input type="number" id="shop-repeats" name="repeats" min={MIN_REPEATS} max={MAX_REPEATS} step={1} defaultValue={query.repeats ?? ''} className={`${field} w-20`} />
       </div>
       <div className={label}>
         <label htmlFor="shop-minPriceCents">Price from</label>

@@ -5,7 +5,7 @@ import { database } from '@/lib/db'
 import { originSettings } from '@/lib/env'
 import { queueMail } from '@/lib/mail/outbox'
 import { Licence, Order, Pattern, PaymentEvent, User } from '@/models'
-import { formatAmount } from './provider'
+import { formatPrice } from '@/lib/shop/price'
 
 /**
  * Applies one stored, verified payment event (queued by lib/payments/webhook.ts; run by the job
@@ -59,7 +59,7 @@ async function applyCheckoutCompleted(session: Stripe.Checkout.Session, transact
     return `licence ${licence.number} granted and revoked at once: the payment was already refunded`
   }
   const [buyer, pattern] = await Promise.all([User.findByPk(order.buyerId, { transaction }), Pattern.findByPk(order.patternId, { transaction, attributes: ['id', 'name', 'ownerId'] })])
-  const amount = formatAmount(order.amountCents, order.currency)
+  const amount = formatPrice(order.amountCents, order.currency)
   if (buyer && pattern) {
     await queueMail(
       { to: buyer.email, userId: buyer.id, kind: 'purchase-receipt', data: { displayName: buyer.displayName, patternName: pattern.name, amount, licenceNumber: licence.number, libraryUrl: `${appUrl()}/library` } },

@@ -26,12 +26,3 @@ export function paymentProvider(): Stripe {
   }
   return globalForProvider.wreathwrightPayments.client
 }
-
-/**
- * An amount of integer cents in words of its currency, as receipts and pages show it.
- *
- * @example formatAmount(1250, 'EUR') // '€12.50'
- */
-export function formatAmount(cents: number, currency: string): string {
-  return new Intl.NumberFormat('en', { style: 'currency', currency: currency.toUpperCase() }).format(cents / 100)
-}

@@ -17,6 +17,7 @@ import type { Design, HandSetOrder, JoinTree, Point } from '@/geometry/types'
 import {
   MAX_AREAS, MAX_BERRIES, MAX_COLORWAYS, MAX_CURLS, MAX_FABRICS_PER_COLORWAY, MAX_ID_LENGTH, MAX_LAYERS_PER_LEAF, MAX_LEAVES,
   MAX_NAME_LENGTH, MAX_POINTS_PER_CURL, MAX_ROLE_LENGTH, MAX_SEAMS, MAX_SECTIONS, MAX_STEMS, MAX_UPLOAD_KEY_LENGTH,
+  MAX_REPEATS, MIN_REPEATS,
 } from '@/lib/limits'
 import { CENTIMETRES_PER_INCH } from '@/lib/units'
 import { text } from './text'
@@ -157,7 +158,7 @@ const ring = z
   .strictObject({
     innerRadius: finite.min(0).max(MAXIMUM_RADIUS),
     outerRadius: positive.max(MAXIMUM_RADIUS),
-    repeats: z.number().int().min(2).max(36),
+    repeats: z.number().int().min(MIN_REPEATS).max(MAX_REPEATS),
     repeatMode: z.enum(['rotate', 'mirror']),
   })
   .superRefine((value, context) => {

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import type { FieldIssue } from '@/lib/errors'
+import { MAX_REPEATS, MIN_REPEATS } from '@/lib/limits'
 import { COLOUR_FAMILIES } from '@/lib/shop/colour-families'
 import { MAX_PRICE_CENTS, PATTERN_CURRENCIES } from './pattern'
 import { text } from './text'
@@ -18,8 +19,6 @@ export const SHOP_SORTS = ['newest', 'name', 'price', '-price'] as const
 export type ShopSort = (typeof SHOP_SORTS)[number]
 
 /** The fewest and most repeats a ring may have (the design schema's rule, geometry's Ring). */
-const MIN_REPEATS = 2
-const MAX_REPEATS = 36
 
 /** An empty field of the page's form (`?colour=`) means "any", as if it were not sent. */
 const blankAsAbsent = (value: unknown) => (typeof value === 'string' && value.trim() === '' ? undefined : value)
