@@ -1,8 +1,7 @@
 import 'server-only'
 import type PgBoss from 'pg-boss'
-import type { ClientBase } from 'pg'
 import type { Transaction } from 'sequelize'
-import { senderBoss } from '@/lib/mail/queue'
+import { senderBoss, sendInTransaction } from '@/lib/mail/queue'
 
 /**
  * The app's background jobs beside mail, on the same durable queue (pg-boss in the app's
@@ -75,9 +74,5 @@ function jobSender(): Promise<PgBoss> {
 export function queueJob(queue: typeof PAYMENT_EVENTS_QUEUE, data: PaymentEventJob, transaction: Transaction): Promise<void>
 export function queueJob(queue: typeof BOOKLETS_QUEUE, data: BookletBuildJob, transaction: Transaction): Promise<void>
 export async function queueJob(queue: string, data: object, transaction: Transaction): Promise<void> {
-  const boss = await jobSender()
-  const connection = (transaction as unknown as { connection: ClientBase }).connection
-  const db = { executeSql: (text: string, values: unknown[]) => connection.query(text, values) }
-  const jobId = await boss.send(queue, data, { db })
-  if (!jobId) throw new Error(`queueJob: the ${queue} queue refused the job`)
+  await sendInTransaction(await jobSender(), queue, data, transaction)
 }

@@ -1,10 +1,9 @@
 import 'server-only'
-import type { ClientBase } from 'pg'
 import type { Transaction } from 'sequelize'
 import { database } from '@/lib/db'
 import { OutgoingMail } from '@/models'
 import { MAIL_KINDS, MAIL_QUEUE, type MailData, type MailJob, type MailKind } from './kinds'
-import { senderBoss } from './queue'
+import { senderBoss, sendInTransaction } from './queue'
 
 /**
  * Queues a message: a row in the mail log (`outgoing_mails`) and a job on the durable queue, both
@@ -26,12 +25,7 @@ export async function queueMail<K extends MailKind>(
   const write = async (transaction: Transaction) => {
     const row = await OutgoingMail.create({ toAddress: message.to, kind: message.kind, userId: message.userId ?? null }, { transaction })
     const job: MailJob<K> = { mailId: row.id, to: message.to, kind: message.kind, data: message.data }
-    // pg-boss inserts the job through this `db`: the transaction's own connection (Sequelize keeps
-    // it on the transaction), so the job commits or rolls back with the row.
-    const connection = (transaction as unknown as { connection: ClientBase }).connection
-    const db = { executeSql: (text: string, values: unknown[]) => connection.query(text, values) }
-    const jobId = await boss.send(MAIL_QUEUE, job, { db })
-    if (!jobId) throw new Error('queueMail: the mail queue refused the job')
+    await sendInTransaction(boss, MAIL_QUEUE, job, transaction)
   }
   if (options?.transaction) await write(options.transaction)
   else await sequelize.transaction(write)

@@ -1,5 +1,7 @@
 import 'server-only'
+import type { ClientBase } from 'pg'
 import PgBoss from 'pg-boss'
+import type { Transaction } from 'sequelize'
 import { mailSettings, serverEnv, type MailSettings } from '@/lib/env'
 import { MAIL_QUEUE } from './kinds'
 
@@ -64,6 +66,17 @@ export function senderBoss(): Promise<PgBoss> {
     globalForQueue.wreathwrightMailSender = starting
   }
   return globalForQueue.wreathwrightMailSender
+}
+
+/**
+ * Inserts a job through the caller's transaction: pg-boss runs its insert on the transaction's own
+ * connection (Sequelize keeps it on the transaction), so the job commits or rolls back with the
+ * caller's rows. queueMail and the other jobs (lib/jobs/queue.ts) all queue this way.
+ */
+export async function sendInTransaction(boss: PgBoss, queue: string, data: object, transaction: Transaction): Promise<void> {
+  const connection = (transaction as unknown as { connection: ClientBase }).connection
+  const jobId = await boss.send(queue, data, { db: { executeSql: (text: string, values: unknown[]) => connection.query(text, values) } })
+  if (!jobId) throw new Error(`the ${queue} queue refused the job`)
 }
 
 /** Stops the sending instance and closes its pool (tests and scripts, before they exit). */
