@@ -10,6 +10,7 @@ export { fewestSections, cutsOf, type SectionTree, type FewestSectionsResult } f
 export { checkJoinTree, findJoinTree } from './join-tree'
 export { ringAssembly, type RingAssembly } from './ring-assembly'
 export { planDesign, sectionLetter, type Plan, type PlanArea, type PlanSection, type PlanOptions } from './plan'
+export { suggestRepairs, type Suggestion, type RepairOptions, type RepairResult } from './repairs'
 export { interiorPoint, signedArea, polygonCentroid, isPointInPolygon } from './polygon-measure'
 // The allowance and symmetry modules (written alongside).
 export * from './offset'

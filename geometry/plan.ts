@@ -16,6 +16,7 @@ import { checkSectionOrder, createPeelSearch, type InsertConstraint } from './se
 import { noPlanProblem, setInSeamProblems } from './sewing-problems'
 import { leafMention, leafNames, listInWords, nameLeavesIn } from './leaf-names'
 import { MAX_PLAN_AREAS, OUTPUT_DECIMALS } from './tolerances'
+import type { Suggestion } from './repairs'
 import type { Design, JoinTree, Point, Polygon, Problem, Segment } from './types'
 
 export interface PlanArea {
@@ -45,6 +46,14 @@ export interface Plan {
   readonly assembly: JoinTree | readonly []
   readonly ringAssembly: RingAssembly
   readonly problems: readonly Problem[]
+  /**
+   * Repairs (`repairs.ts`), ranked: present (possibly empty) whenever `sewable` is false, and
+   * when a design sewable in two or more sections could sew in fewer. Absent otherwise, and
+   * when the caller asked for none (`suggestions: false`).
+   */
+  readonly suggestions?: readonly Suggestion[]
+  /** True when the repair search stopped at its budget (the list may miss better changes). */
+  readonly suggestionsStopped?: boolean
 }
 
 export interface PlanOptions {
@@ -52,6 +61,8 @@ export interface PlanOptions {
   readonly seamAllowanceInches?: number
   /** Extra fabric around each rough cut; default 1/4 in. */
   readonly marginInches?: number
+  /** Search for repairs (default true); callers that only print (booklet, cutting) skip it. */
+  readonly suggestions?: boolean
 }
 
 /** One section as the plan numbers it: its label and its areas (arrangement indices) in order. */
