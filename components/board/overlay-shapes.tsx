@@ -9,6 +9,7 @@ import { formatSize } from '@/lib/units'
 import type { BoardStore, View } from '@/lib/board/store'
 import { toScreen } from '@/lib/board/view'
 import { leafShapes, type Point } from './board-geometry'
+import { RepairGhostShapes } from './repair-ghost-shapes'
 import { screenPoints } from './ring-shapes'
 import { useBoard } from './use-board'
 
@@ -85,6 +86,7 @@ export function OverlayShapes({ store, design, plan, view, width }: { store: Boa
             return <Rect key={`${seam.id}-${end}`} x={x - 4} y={y - 4} width={8} height={8} fill="#ffffff" stroke={HIGHLIGHT} strokeWidth={1.5} />
           }),
         )}
+      <RepairGhostShapes store={store} design={design} view={view} />
       {draft.seam && <Line points={pixels(draft.seam)} stroke={HIGHLIGHT} strokeWidth={2} dash={[8, 4]} />}
       {draft.snap && draft.snap.kind !== 'none' && (() => {
         const [x, y] = toScreen(draft.snap.point, view, repeats)

@@ -5,6 +5,7 @@ import { boardPlan } from '@/lib/board/board-plan'
 import { formatSize } from '@/lib/units'
 import { design as designOf, type BoardStore } from '@/lib/board/store'
 import { fabricDisplayName, sectionLetter, type JoinTree } from '@/geometry'
+import { RepairSuggestions } from './repair-suggestions'
 import { useBoard } from './use-board'
 
 const small = 'rounded border border-stone-300 bg-white px-2 py-1 text-xs hover:bg-linen-100 disabled:opacity-40'
@@ -17,9 +18,9 @@ function describeJoins(tree: JoinTree | readonly []): string {
 }
 
 /**
- * The sewing plan beside the board: whether it can be sewn, the problems in plain words, every
- * step with its rough-cut piece and the leaves to baste first, a step-through, and the controls
- * for setting the order by hand.
+ * The sewing plan beside the board: whether it can be sewn, the problems in plain words, the
+ * changes suggested to mend them (or to save a section), every step with its rough-cut piece and
+ * the leaves to baste first, a step-through, and the controls for setting the order by hand.
  */
 export function PlanPanel({ store }: { store: BoardStore }) {
   const design = useBoard(store, designOf)
@@ -100,6 +101,7 @@ export function PlanPanel({ store }: { store: BoardStore }) {
             })}
         </ul>
       )}
+      {plan && <RepairSuggestions store={store} design={plannedDesign} plan={plan} />}
       {plan && plan.ringAssembly.message && <p className="text-xs text-stone-600">Repeats: {plan.ringAssembly.message}</p>}
       {plan && plan.sections.length > 1 && <p className="text-xs text-stone-600">Join the sections: {describeJoins(plan.assembly)}</p>}
 

@@ -4,7 +4,10 @@
  * outlines) to the design's own units once, here, so no component converts on its own. Computed
  * from the design; it is never a state of its own and never undone.
  */
-import { fabricsOfAreas, isPointInPolygon, leafNames, planDesign, roughCutBeforeFlip, sectionOutline, type Design, type Plan, type PlanArea, type Point, type Problem } from '@/geometry'
+import {
+  fabricsOfAreas, isPointInPolygon, leafNames, planDesign, roughCutBeforeFlip, sectionOutline, suggestRepairs,
+  type Design, type Plan, type PlanArea, type Point, type Problem, type Seam, type Suggestion,
+} from '@/geometry'
 import { parseDesign, type DesignIssue } from '@/lib/schemas/design'
 import { unitsPerInch } from '@/lib/units'
 import type { BoardDesign } from './commands'
@@ -53,7 +56,8 @@ export function boardPlan(design: BoardDesign): BoardPlan {
   const factor = unitsPerInch(design.units)
   const parsed = parseDesign(design)
   const result: BoardPlan = parsed.ok
-    ? inDesignUnits(planDesign(parsed.design), parsed.design, factor)
+    ? // The repair search runs apart (boardSuggestions), after the designer pauses: this plan follows every drag.
+      inDesignUnits(planDesign(parsed.design, { suggestions: false }), parsed.design, factor)
     : { plan: null, issues: parsed.issues, areas: [], steps: [], problems: [], unitsPerInch: factor, leafNames: new Map() }
   planCache.set(design, result)
   return result
@@ -113,4 +117,92 @@ export function sectionOutlines(result: BoardPlan): readonly SectionOutline[] {
   })
   outlineCache.set(result, outlines)
   return outlines
+}
+
+/** A seam as the board keeps it: the design file's seam, in the design's units. */
+export type BoardSeam = BoardDesign['seams'][number]
+
+/** Rounds like every board command does (to 1/10 000 of a unit), so a seam end is stored the same way. */
+const roundUnit = (value: number) => Math.round(value * 10_000) / 10_000
+
+/**
+ * A suggestion's seams (core inches) in the design's units: the one conversion of a repair.
+ * An end the suggestion left where it was (equal at the board's precision) keeps the design's own
+ * value, so applying a suggestion changes only what it changes, even in centimetres; every other
+ * end is converted with the exact factor and rounded as the board's commands round.
+ *
+ * @example suggestedSeamsInDesignUnits({ units: 'cm', seams: [] }, [{ id: 's1', from: [1, 0], to: [0, 1] }]) // [{ id: 's1', from: [2.54, 0], to: [0, 2.54] }]
+ */
+export function suggestedSeamsInDesignUnits(design: Pick<BoardDesign, 'units' | 'seams'>, seams: readonly Seam[]): BoardSeam[] {
+  const factor = unitsPerInch(design.units)
+  const before = new Map(design.seams.map((seam) => [seam.id, seam]))
+  const end = (point: Point, old: readonly [number, number] | undefined): [number, number] => {
+    const converted = toDesignUnits(point, factor).map(roundUnit) as [number, number]
+    return old && roundUnit(old[0]) === converted[0] && roundUnit(old[1]) === converted[1] ? [old[0], old[1]] : converted
+  }
+  return seams.map((seam) => {
+    const old = before.get(seam.id)
+    const next = { id: seam.id, from: end(seam.from, old?.from), to: end(seam.to, old?.to) }
+    // An untouched seam stays the very object it was (nothing to redraw, nothing to save).
+    return old && next.from[0] === old.from[0] && next.from[1] === old.from[1] && next.to[0] === old.to[0] && next.to[1] === old.to[1] ? old : next
+  })
+}
+
+/** A repair suggested for the design on the board. */
+export interface BoardSuggestion {
+  /** The core's suggestion: message, sections, added length and moved distance (inches). */
+  readonly suggestion: Suggestion
+  /** Its seams in the design's units, as applying it would leave them. */
+  readonly seams: readonly BoardSeam[]
+}
+
+export interface BoardSuggestions {
+  readonly suggestions: readonly BoardSuggestion[]
+  /** The search stopped at its budget: better changes may exist. */
+  readonly stopped: boolean
+  /** How long the search took, milliseconds (for the speed benchmark; not shown). */
+  readonly elapsedMs: number
+}
+
+/**
+ * The repair search runs on the main thread, so it gets a wall-clock budget well under the
+ * half second after which a pause feels like a freeze (common practice for interfaces); it starts
+ * only once the designer has paused (components/board/use-repair-suggestions.ts).
+ */
+export const BOARD_REPAIR_BUDGET_MS = 150
+
+const NO_SUGGESTIONS: BoardSuggestions = { suggestions: [], stopped: false, elapsedMs: 0 }
+const suggestionsCache = new WeakMap<BoardDesign, BoardSuggestions>()
+
+/** Whether the design gets suggestions: it cannot be sewn, or it sews in two sections or more. */
+export function wantsSuggestions(design: BoardDesign): boolean {
+  const plan = boardPlan(design).plan
+  return plan !== null && (!plan.sewable || plan.sections.length >= 2)
+}
+
+/** The repairs already found for this design value, without searching. */
+export function cachedBoardSuggestions(design: BoardDesign): BoardSuggestions | undefined {
+  return suggestionsCache.get(design)
+}
+
+/**
+ * The repairs suggested for a design, computed once per design value, within the board's budget.
+ * Nothing for a design that is not valid, or sews in one section.
+ */
+export function boardSuggestions(design: BoardDesign): BoardSuggestions {
+  const cached = suggestionsCache.get(design)
+  if (cached) return cached
+  const parsed = wantsSuggestions(design) ? parseDesign(design) : null
+  let result = NO_SUGGESTIONS
+  if (parsed?.ok) {
+    const started = performance.now()
+    const found = suggestRepairs(parsed.design, { budgetMs: BOARD_REPAIR_BUDGET_MS })
+    result = {
+      suggestions: found.suggestions.map((suggestion) => ({ suggestion, seams: suggestedSeamsInDesignUnits(design, suggestion.seams) })),
+      stopped: found.stopped,
+      elapsedMs: performance.now() - started,
+    }
+  }
+  suggestionsCache.set(design, result)
+  return result
 }

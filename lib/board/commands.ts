@@ -6,13 +6,14 @@
 import { scaleDesignLengths } from '@/geometry/design-lengths'
 import { LAYER_SCALE_RANGE, LAYER_TURN_LIMIT_DEGREES } from '@/geometry/leaf-template'
 import { spreadLeafFabrics } from '@/geometry/spread-leaf-fabrics'
-import type { Point } from '@/geometry'
+import type { Point, Seam as CoreSeam } from '@/geometry'
 import { fabricRoleInWords } from '@/geometry/fabric-requirements'
 import { MAX_COLORWAYS, MAX_NAME_LENGTH } from '@/lib/limits'
 import {
   colorwayNameSchema, fabricNameSchema, fabricRoleSchema, hexColourSchema, uploadIdSchema, type ColorwayFabric, type DesignFile,
 } from '@/lib/schemas/design'
 import { unitsPerInch } from '@/lib/units'
+import { suggestedSeamsInDesignUnits } from './board-plan'
 
 type Seam = DesignFile['seams'][number]
 type Leaf = NonNullable<DesignFile['leaves']>[number]
@@ -119,6 +120,25 @@ export const deleteSeam = defineCommand({
       seams: design.seams.filter((seam) => seam.id !== seamId),
       leaves: design.leaves.filter((leaf) => leaf.seam !== seamId),
     }),
+})
+
+/**
+ * Applies a repair the plan suggested: the design's seams become the suggestion's (core inches,
+ * converted once by `suggestedSeamsInDesignUnits`), ids kept, so every leaf stays on its seam
+ * as it was. Only the designer runs it (the panel's button); undo gives the seams back exactly.
+ * An order set by hand is dropped: the suggestion's section count is that of the order the plan
+ * proposes, and an extended or added seam splits areas the hand order named.
+ */
+export const applyRepair = defineCommand({
+  name: 'apply-repair',
+  run: (design, { seams }: { seams: readonly CoreSeam[] }) => {
+    const next = suggestedSeamsInDesignUnits(design, seams)
+    const unchanged = next.length === design.seams.length && next.every((seam, i) => {
+      const old = design.seams[i]!
+      return seam.id === old.id && samePoint(seam.from, old.from) && samePoint(seam.to, old.to)
+    })
+    return unchanged ? design : withoutHandOrder({ ...design, seams: next })
+  },
 })
 
 /**
@@ -480,6 +500,7 @@ export const commands = {
   moveSeamEnd,
   moveSeam,
   deleteSeam,
+  applyRepair,
   fillArea,
   clearFill,
   setFabricColour,

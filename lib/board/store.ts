@@ -7,6 +7,7 @@
  */
 import type { DesignFile } from '@/lib/schemas/design'
 import { commands, normalizeDesign, type BoardDesign, type CommandArgs, type CommandName } from './commands'
+import type { RepairPreview } from './repair-ghost'
 import { fitView, panBy, zoomAt } from './view'
 import {
   bailToMark,
@@ -75,6 +76,8 @@ export interface BoardState {
   readonly draft: BoardDraft
   /** The plan problem under the pointer (or picked in the panel), shown with its message. */
   readonly shownProblem: number | null
+  /** The suggested repair pointed at in the plan panel, drawn as a ghost on the ring (never recorded). */
+  readonly shownRepair: RepairPreview | null
 }
 
 export interface BoardStore {
@@ -113,6 +116,8 @@ export interface BoardStore {
   previousStep(): void
   /** Shows a plan problem's message (null: none). */
   showProblem(index: number | null): void
+  /** Draws a suggested repair as a ghost on the ring while it is pointed at (null: none). */
+  showRepair(preview: RepairPreview | null): void
   /** What the pointer is drawing, shown on the board. */
   setDraft(change: Partial<BoardDraft>): void
   /** Escape: drops what is being drawn (a hand-set order starts again from its first section). */
@@ -147,6 +152,7 @@ export function initialBoardState(file: DesignFile, overrides: Partial<Omit<Boar
     handOrderDraft: null,
     draft: EMPTY_DRAFT,
     shownProblem: null,
+    shownRepair: null,
     ...overrides,
   }
 }
@@ -163,8 +169,10 @@ export function createBoardStore(file: DesignFile, overrides: Partial<Omit<Board
   const setHistory = (history: History<BoardDesign>) => {
     if (history === state.history) return
     // A selection that points at something undone away is dropped; the active colourway follows
-    // a rename and moves to a neighbour when it is deleted (or undone away).
-    set(keepActiveColorway(state.history.present, keepValidSelection({ ...state, history })))
+    // a rename and moves to a neighbour when it is deleted (or undone away). A repair's ghost
+    // belongs to the design it was suggested for, so any change of the design takes it away.
+    const shownRepair = history.present === state.history.present ? state.shownRepair : null
+    set(keepActiveColorway(state.history.present, keepValidSelection({ ...state, history, shownRepair })))
   }
 
   /** Private: every caller goes through a named operation below. */
@@ -202,6 +210,7 @@ export function createBoardStore(file: DesignFile, overrides: Partial<Omit<Board
     nextStep: () => update({ step: state.step === null ? 0 : state.step + 1 }),
     previousStep: () => update({ step: Math.max(0, (state.step ?? 0) - 1) }),
     showProblem: (shownProblem) => update({ shownProblem }),
+    showRepair: (shownRepair) => update({ shownRepair }),
     setDraft: (change) => update({ draft: { ...state.draft, ...change } }),
     cancelDraft: () => update({ draft: EMPTY_DRAFT, ...(state.tool === 'order' ? { handOrderDraft: [[]] } : {}) }),
     addHandOrderArea(at) {
