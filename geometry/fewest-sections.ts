@@ -324,12 +324,15 @@ function solve(state: SearchState, unit: AreaSet, limit: number, key = areaSetKe
 
 /**
  * The plan with the fewest sections that honours every insert, deterministic for a design.
+ * `below` (default: no limit) looks only for plans of fewer sections than that, so a caller
+ * that only wants small plans (the repair search) does not pay for proving large ones; none
+ * below it gives a null tree without `gaveUp`.
  *
  * @example fewestSections(topology, []).sectionCount // 2 for an X crossing
  */
-export function fewestSections(topology: Topology, constraints: readonly InsertConstraint[]): FewestSectionsResult {
+export function fewestSections(topology: Topology, constraints: readonly InsertConstraint[], below = Infinity): FewestSectionsResult {
   const all = areaSetOf(topology.areaCount, Array.from({ length: topology.areaCount }, (_, index) => index))
   const state: SearchState = { topology, peel: createPeelSearch(topology, constraints), exact: new Map(), atLeast: new Map(), cuts: new Map(), floor: new Map(), units: 0, gaveUp: false }
-  const solved = topology.areaCount === 0 ? null : solve(state, all, Infinity)
+  const solved = topology.areaCount === 0 ? null : solve(state, all, below)
   return { tree: solved?.tree ?? null, sectionCount: solved?.count ?? 0, gaveUp: state.gaveUp || state.peel.gaveUp }
 }

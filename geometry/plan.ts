@@ -16,7 +16,8 @@ import { checkSectionOrder, createPeelSearch, type InsertConstraint } from './se
 import { noPlanProblem, setInSeamProblems } from './sewing-problems'
 import { leafMention, leafNames, listInWords, nameLeavesIn } from './leaf-names'
 import { MAX_PLAN_AREAS, OUTPUT_DECIMALS } from './tolerances'
-import type { Suggestion } from './repairs'
+import { searchRepairs, type Suggestion } from './repairs'
+import type { Judgement } from './repairs-evaluate'
 import type { Design, JoinTree, Point, Polygon, Problem, Segment } from './types'
 
 export interface PlanArea {
@@ -213,10 +214,11 @@ function tooManyAreasPlan(design: Design, what: string): Plan {
  * plan.sewable // false when a problem of severity 'error' stands
  */
 export function planDesign(design: Design, options: PlanOptions = {}): Plan {
+  const noRepairs = options.suggestions === false ? {} : { suggestions: [], suggestionsStopped: false }
   const tooMany = tooManyAreas(design)
-  if (tooMany) return tooMany
+  if (tooMany) return { ...tooMany, ...noRepairs }
   const arrangement = buildArrangement(design.ring, design.seams)
-  if (arrangement.areas.length > MAX_PLAN_AREAS) return tooManyAreasPlan(design, `This repeat has ${arrangement.areas.length} areas`)
+  if (arrangement.areas.length > MAX_PLAN_AREAS) return { ...tooManyAreasPlan(design, `This repeat has ${arrangement.areas.length} areas`), ...noRepairs }
   const topology = buildTopology(arrangement)
   const problems: Problem[] = [...arrangement.problems]
   const ring = ringAssembly(design.ring)
@@ -271,6 +273,30 @@ export function planDesign(design: Design, options: PlanOptions = {}): Plan {
       roughCut: { widthIn: round(cut.widthIn), heightIn: round(cut.heightIn), corners: cut.corners.map(roundPoint) },
     }
   })
+  // Repairs: whenever the design cannot be sewn, and when it sews in two or more sections.
+  let repairs: { suggestions?: readonly Suggestion[]; suggestionsStopped?: boolean } = {}
+  if (options.suggestions !== false && (!sewable || sections.length >= 2)) {
+    const judged: Judgement = {
+      sewable,
+      sections: sections.length,
+      errors: problems.filter((problem) => problem.severity === 'error'),
+      arrangement,
+      topology,
+      stuck: [],
+      searchLimit: problems.some((problem) => problem.code === 'search-limit' || problem.code === 'search-gave-up'),
+      overLimit: false,
+    }
+    const found = searchRepairs(design, judged)
+    repairs = { suggestions: found.suggestions, suggestionsStopped: found.stopped }
+    if (found.stopped) {
+      problems.push({
+        code: 'search-limit',
+        severity: 'warning',
+        message: `The search for changes that ${sewable ? 'save a section' : 'make this design sewable'} stopped at its limit; the suggestions shown may not be the best there are.`,
+        at: problems.find((problem) => problem.severity === 'error')?.at ?? arrangement.areas[0]?.point ?? [0, 0],
+      })
+    }
+  }
   // Leaves are named from the labelled areas they lie over, so only now can messages name them.
   const names = leafNames(design, { areas })
   const sortedProblems = problems
@@ -283,5 +309,6 @@ export function planDesign(design: Design, options: PlanOptions = {}): Plan {
     assembly: assembly ?? [],
     ringAssembly: ring.assembly,
     problems: sortedProblems,
+    ...repairs,
   }
 }

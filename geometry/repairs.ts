@@ -2,12 +2,20 @@
  * Repairs: for a design that cannot be sewn (or sews in several sections), small changes to its
  * seams that make it sewable, or sewable in fewer sections. Pure: the design is never changed;
  * each suggestion carries the whole seams list after its change, and only the designer applies it.
+ *
+ * The search tries one edit, then a second edit on top of each one that still does not sew, at
+ * the places that stop the design (`repairs-candidates.ts`); every candidate is planned by the
+ * planner's own steps (`repairs-evaluate.ts`). It is bounded by a count of candidates planned
+ * (deterministic) and by a time as a safety net; `stopped` says when either ran out.
  */
-import type { Design, Seam } from './types'
+import { applyEdit, candidateEdits, describeEdit, editKey, newSeamId, visibleChange, type Edit } from './repairs-candidates'
+import { judgeSeams, stuckAreas, type Judgement } from './repairs-evaluate'
+import { MAX_REPAIR_STATES, OUTPUT_DECIMALS, REPAIR_BUDGET_MS } from './tolerances'
+import type { Design, ProblemCode, Seam } from './types'
 
 /** One proposed change, ranked with the others by `suggestRepairs`. */
 export interface Suggestion {
-  /** Plain words for the designer: "Extend seam s3 to the outline: sews in 1 section". */
+  /** Plain words for the designer: "Extend seam s3 1.90 in to the outline: sews in 1 section". */
   readonly message: string
   /** The design's whole seams list after the change (ids kept; a new seam has a new id). */
   readonly seams: readonly Seam[]
@@ -15,7 +23,7 @@ export interface Suggestion {
   readonly sections: number
   /** Seam length added by the change, inches, rounded like other plan outputs. */
   readonly addedLengthIn: number
-  /** How far seam ends moved, inches, rounded like other plan outputs. */
+  /** How far seam ends moved, inches (summed over the ends), rounded like other plan outputs. */
   readonly movedIn: number
 }
 
@@ -32,17 +40,168 @@ export interface RepairResult {
   readonly stopped: boolean
 }
 
+/** At most this many suggestions for a design that cannot be sewn (issue 16). */
+const MOST_REPAIRS = 5
+/** At most this many for a sewable design that could sew in fewer sections. */
+const MOST_SAVINGS = 3
+
+/** Errors a change of seams can clear; any other error stands whatever the seams do. */
+const REPAIRABLE: ReadonlySet<ProblemCode> = new Set<ProblemCode>(['dangling-seam-end', 'set-in-seam', 'bent-seam', 'seam-cycle', 'insert-not-caught'])
+
+interface Found {
+  readonly edits: readonly Edit[]
+  readonly seams: readonly Seam[]
+  readonly sections: number
+  readonly addedIn: number
+  readonly movedIn: number
+  readonly change: number
+  readonly key: string
+  readonly message: string
+}
+
+const round = (value: number): number => {
+  const scale = 10 ** OUTPUT_DECIMALS
+  const rounded = Math.round(value * scale) / scale
+  return rounded === 0 ? 0 : rounded
+}
+
+/** Ranks found changes: fewest sections, least visible change, fewer edits, then the key of the change. */
+function compareFound(p: Found, q: Found): number {
+  return p.sections - q.sections || p.change - q.change || p.edits.length - q.edits.length || (p.key < q.key ? -1 : p.key > q.key ? 1 : 0)
+}
+
+/** The resulting seams in an order-free form: two routes to the same design count once. */
+function seamsKey(seams: readonly Seam[]): string {
+  return seams
+    .map((seam) => `${seam.id}:${seam.from.map((v) => v.toFixed(6)).join(',')}:${seam.to.map((v) => v.toFixed(6)).join(',')}`)
+    .sort()
+    .join(' ')
+}
+
+function sectionsInWords(count: number): string {
+  return `${count} ${count === 1 ? 'section' : 'sections'}`
+}
+
 /**
  * Suggests at most five repairs for an unsewable design, or at most three that save sections
- * for a design that sews in two or more.
+ * for a design that sews in two or more. A design with a hand-set order gets none: its order
+ * names areas that a change of seams would move.
  *
  * @example
  * const { suggestions } = suggestRepairs(design)
- * suggestions[0]?.message // "Extend seam s3 to the outline: sews in 1 section"
+ * suggestions[0]?.message // "Extend seam s3 1.90 in to the outline: sews in 1 section"
  */
 export function suggestRepairs(design: Design, options: RepairOptions = {}): RepairResult {
-  // The search itself is the next commit's work; until then no suggestions, never stopped.
-  void design
-  void options
-  return { suggestions: [], stopped: false }
+  if (design.order) return { suggestions: [], stopped: false }
+  return searchRepairs(design, judgeSeams(design.ring, design.seams, design.leaves), options)
+}
+
+/**
+ * The search of `suggestRepairs` from a design already judged (the planner passes what it has
+ * computed, so the design is not planned twice).
+ *
+ * @example searchRepairs(design, judgeSeams(design.ring, design.seams, design.leaves)).suggestions
+ */
+export function searchRepairs(design: Design, judged: Judgement, options: RepairOptions = {}): RepairResult {
+  const maxStates = options.maxStates ?? MAX_REPAIR_STATES
+  const budgetMs = options.budgetMs ?? REPAIR_BUDGET_MS
+  const started = performance.now()
+  if (design.order) return { suggestions: [], stopped: false }
+  // The planner reports a cycle of seams as an error; the search wants the areas of that cycle.
+  const cycle = !judged.sewable && judged.errors.every((problem) => problem.code === 'seam-cycle') && judged.stuck.length === 0 && !judged.searchLimit
+  const base = cycle ? { ...judged, stuck: stuckAreas(judged.topology) } : judged
+  if (base.sewable && base.sections < 2) return { suggestions: [], stopped: false }
+  // A design too large for the sections search to finish is too large to search for changes.
+  if (base.searchLimit || base.errors.some((problem) => !REPAIRABLE.has(problem.code))) return { suggestions: [], stopped: false }
+  const mode = base.sewable ? 'fewer' : 'repair'
+  const limit = mode === 'fewer' ? MOST_SAVINGS : MOST_REPAIRS
+  const found: Found[] = []
+  const foundDesigns = new Set<string>()
+  const tried = new Set<string>([seamsKey(design.seams)])
+  let states = 0
+  let stopped = false
+  /** Whether a change this visible can still enter the list (nothing needs fewer than 1 section). */
+  const canEnter = (change: number): boolean => {
+    if (found.length < limit) return true
+    const last = found[found.length - 1] as Found
+    return last.sections > 1 || change < last.change
+  }
+  /**
+   * Plans worth finding have fewer sections than this: fewer than the design has (saving mode);
+   * no more than the last of a full list; at most one more than the best found (a change that
+   * needs two sections more than another is never shown). It keeps bad candidates cheap: the
+   * sections search need not prove how many a poor change needs.
+   */
+  const sectionsBelow = (): number => {
+    let below = mode === 'fewer' ? base.sections : Infinity
+    if (found.length > 0) below = Math.min(below, (found[0] as Found).sections + 2)
+    if (found.length >= limit) below = Math.min(below, (found[found.length - 1] as Found).sections + 1)
+    return below
+  }
+  const outOfBudget = (): boolean => {
+    if (states >= maxStates || performance.now() - started > budgetMs) stopped = true
+    return stopped
+  }
+  const attempt = (seams: readonly Seam[], edits: readonly Edit[], names: readonly string[]): Judgement | null => {
+    const change = edits.reduce((sum, edit) => sum + visibleChange(edit), 0)
+    if (!canEnter(change)) return null
+    const key = seamsKey(seams)
+    if (tried.has(key)) return null
+    if (outOfBudget()) return null
+    tried.add(key)
+    states += 1
+    const judgement = judgeSeams(design.ring, seams, design.leaves, sectionsBelow())
+    const better = judgement.sewable && (mode === 'repair' || judgement.sections < base.sections)
+    if (better && !foundDesigns.has(key)) {
+      foundDesigns.add(key)
+      const words = edits.map((edit, index) => describeEdit(edit, names[index] as string))
+      const joined = words.length === 1 ? words[0] : `${words[0]}, then ${(words[1] as string).charAt(0).toLowerCase()}${(words[1] as string).slice(1)}`
+      const saving = mode === 'fewer' ? ` instead of ${base.sections}` : ''
+      found.push({
+        edits,
+        seams,
+        sections: judgement.sections,
+        addedIn: round(edits.reduce((sum, edit) => sum + edit.addedIn, 0)),
+        movedIn: round(edits.reduce((sum, edit) => sum + (edit.kind === 'straighten' ? edit.movedIn : 0), 0)),
+        change: round(change),
+        key: edits.map(editKey).join(' + '),
+        message: `${joined}: sews in ${sectionsInWords(judgement.sections)}${saving}`,
+      })
+      found.sort(compareFound)
+      if (found.length > limit) found.length = limit
+    }
+    return judgement
+  }
+  // Straightenings first (they tend to keep a design in one section, which bounds the rest of
+  // the search early), then by visible change, then by the change's key.
+  const byChange = (edits: Edit[]): Edit[] =>
+    edits
+      .map((edit) => ({ edit, first: edit.kind === 'straighten' ? 0 : 1, change: visibleChange(edit), key: editKey(edit) }))
+      .sort((p, q) => p.first - q.first || p.change - q.change || (p.key < q.key ? -1 : p.key > q.key ? 1 : 0))
+      .map(({ edit }) => edit)
+  // One edit.
+  const unsewable: { edit: Edit; seams: Seam[]; judgement: Judgement; name: string }[] = []
+  for (const edit of byChange(candidateEdits(design.ring, base, mode))) {
+    const seams = applyEdit(design.seams, edit)
+    const name = newSeamId(design.seams)
+    const judgement = attempt(seams, [edit], [name])
+    if (judgement && !judgement.sewable && !judgement.searchLimit && !judgement.overLimit && judgement.errors.every((problem) => REPAIRABLE.has(problem.code))) unsewable.push({ edit, seams, judgement, name })
+    if (stopped) break
+  }
+  // Two edits: a second change where the first left the design unsewable, closest to sewing first;
+  // not when one edit already sews in one section (a second edit cannot beat that by sections).
+  if (mode === 'repair' && !stopped && !(found.length > 0 && (found[0] as Found).sections === 1)) {
+    unsewable.sort((p, q) => p.judgement.errors.length - q.judgement.errors.length || visibleChange(p.edit) - visibleChange(q.edit) || (editKey(p.edit) < editKey(q.edit) ? -1 : 1))
+    for (const first of unsewable) {
+      for (const edit of byChange(candidateEdits(design.ring, first.judgement, 'repair'))) {
+        attempt(applyEdit(first.seams, edit), [first.edit, edit], [first.name, newSeamId(first.seams)])
+        if (stopped) break
+      }
+      if (stopped) break
+    }
+  }
+  return {
+    suggestions: found.map((f) => ({ message: f.message, seams: f.seams, sections: f.sections, addedLengthIn: f.addedIn, movedIn: f.movedIn })),
+    stopped,
+  }
 }

@@ -209,3 +209,30 @@ export const SHEET_AREA_TIE_SQ_IN = 1e-6
  * a piece exactly the width of fabric into one too wide. Inches; far below any rotary cut.
  */
 export const CUT_FIT_SLACK_INCHES = 1e-9
+
+/**
+ * Repairs (`repairs.ts`): a junction is moved onto the line of two of its seams only when it
+ * moves at most this fraction of the outer radius (0.45 in on an 18 in ring): a designer reads a
+ * larger move as a different design, not a repair. Unitless (a ratio, so the same design at
+ * another size gets the same suggestions).
+ */
+export const SHORT_MOVE_FRACTION = 0.05
+
+/**
+ * Repairs: candidate designs planned before the search stops, one- and two-edit changes
+ * together. A count, not a time, so the same design always gets the same list; about 100 ms for
+ * a 40-area design on the 2-core development machine (`npm run bench`).
+ */
+export const MAX_REPAIR_STATES = 40
+
+/**
+ * Repairs: a wall-clock safety net on top of the state budget, so a slow machine never freezes
+ * the board while it waits. Milliseconds.
+ */
+export const REPAIR_BUDGET_MS = 400
+
+/**
+ * Repairs: a new seam through a junction within this angle of one of the junction's seams would
+ * run along that seam (overlapping it), so it is not tried. Radians (about 0.06°).
+ */
+export const ALONG_SEAM_RADIANS = 1e-3

@@ -55,7 +55,8 @@ export function bookletModel(original: Design, options: BookletOptions): Booklet
   // Printing at another size draws the ring larger, but binding strips stay as wide as the
   // designer set them (2 1/4 in is right for any ring), so the binding is kept as it was.
   const design = original.binding ? { ...resized, binding: original.binding } : resized
-  const plan = planDesign(design)
+  // The booklet prints the plan; repair suggestions are for the board, so skip their search.
+  const plan = planDesign(design, { suggestions: false })
   const colorway = (options.colorway ? design.colorways.find((c) => c.name === options.colorway) : design.colorways[0]) ?? null
   const filled = fabricsOfAreas(design.fills, plan.areas)
   const fabricOf = new Map(plan.areas.map((area) => [area.id, filled.get(area.id) ?? UNASSIGNED_FABRIC]))

@@ -1,0 +1,61 @@
+/**
+ * Judging one candidate of the repair search: the planner's own steps (arrangement, topology,
+ * inserts, set-in points, fewest sections), without rough cuts or labels, so a candidate costs
+ * little more than the arrangement of its seams.
+ */
+import { buildArrangement, type Arrangement } from './arrangement'
+import { areaSetOf } from './area-set'
+import { buildTopology, type Topology } from './area-topology'
+import { fewestSections } from './fewest-sections'
+import { insertConstraints } from './inserts'
+import { createPeelSearch, stuckCore } from './sewing-order'
+import { setInSeamProblems } from './sewing-problems'
+import { MAX_PLAN_AREAS } from './tolerances'
+import type { Leaf, Problem, Ring, Seam } from './types'
+
+export interface Judgement {
+  readonly sewable: boolean
+  /** Sections of the proposed plan (0 when not sewable). */
+  readonly sections: number
+  /** The errors that stand (empty when sewable). */
+  readonly errors: readonly Problem[]
+  readonly arrangement: Arrangement
+  readonly topology: Topology
+  /** When the seams are clean but no plan exists: the areas left when nothing more peels. */
+  readonly stuck: readonly number[]
+  /** A limit of the sections search stopped it (a plan found is valid, maybe not the fewest). */
+  readonly searchLimit: boolean
+  /** The seams are clean but no plan of fewer than `below` sections exists (one with more may). */
+  readonly overLimit: boolean
+}
+
+/**
+ * Plans a ring with these seams and leaves far enough to say whether it sews, and in how many
+ * sections (every insert honoured). `below` limits the sections looked for: a plan needing that
+ * many or more is not searched for (`overLimit`).
+ *
+ * @example judgeSeams(ring, seams, []).sections // 1 for a design of cut-off areas
+ */
+export function judgeSeams(ring: Ring, seams: readonly Seam[], leaves: readonly Leaf[], below = Infinity): Judgement {
+  const arrangement = buildArrangement(ring, seams)
+  const topology = buildTopology(arrangement)
+  const fail = (errors: readonly Problem[], stuck: readonly number[] = [], searchLimit = false, overLimit = false): Judgement => ({ sewable: false, sections: 0, errors, arrangement, topology, stuck, searchLimit, overLimit })
+  if (arrangement.areas.length === 0 || arrangement.areas.length > MAX_PLAN_AREAS) return fail([])
+  const inserts = insertConstraints(arrangement, topology, leaves)
+  const errors = [...arrangement.problems, ...inserts.problems, ...setInSeamProblems(topology)].filter((problem) => problem.severity === 'error')
+  if (errors.length > 0) return fail(errors)
+  const result = fewestSections(topology, inserts.constraints, below)
+  if (!result.tree && !result.gaveUp && below !== Infinity) return fail([], [], false, true)
+  if (!result.tree) return fail([], result.gaveUp ? [] : stuckAreas(topology), result.gaveUp)
+  return { sewable: true, sections: result.sectionCount, errors: [], arrangement, topology, stuck: [], searchLimit: result.gaveUp, overLimit: false }
+}
+
+/**
+ * The areas left when nothing more peels (greedy, no inserts): the core of a cycle of seams.
+ *
+ * @example stuckAreas(topology) // the five areas of a pinwheel around its centre square
+ */
+export function stuckAreas(topology: Topology): number[] {
+  const all = areaSetOf(topology.areaCount, Array.from({ length: topology.areaCount }, (_, index) => index))
+  return stuckCore(createPeelSearch(topology, []), all)
+}
