@@ -63,6 +63,16 @@ export interface BookletFacts {
   readonly pattern: PatternFacts
 }
 
+/**
+ * A sewing project (models/sewing-project.ts), as far as permissions care: whose it is, and its
+ * pattern with the holder of the project's own licence (live) or invitation (accepted, live) filled
+ * in by the sewing-room service (lib/services/sewing-room.ts) — only that one grant counts.
+ */
+export interface SewingProjectFacts {
+  readonly ownerId: string
+  readonly pattern: PatternFacts
+}
+
 type Rules = {
   'create-pattern': (actor: NonNullable<Actor>) => boolean
   'list-own-patterns': (actor: NonNullable<Actor>) => boolean
@@ -93,6 +103,11 @@ type Rules = {
   'read-own-sales': (actor: NonNullable<Actor>) => boolean
   'read-all-sales': (actor: NonNullable<Actor>) => boolean
   'read-pattern-sales': (actor: NonNullable<Actor>, pattern: PatternFacts) => boolean
+  'sewing-room:list': (actor: NonNullable<Actor>) => boolean
+  'sewing-room:start': (actor: NonNullable<Actor>, project: SewingProjectFacts) => boolean
+  'sewing-room:read': (actor: NonNullable<Actor>, project: SewingProjectFacts) => boolean
+  'sewing-room:update': (actor: NonNullable<Actor>, project: SewingProjectFacts) => boolean
+  'sewing-room:delete': (actor: NonNullable<Actor>, project: SewingProjectFacts) => boolean
 }
 
 export type Action = keyof Rules
@@ -178,6 +193,21 @@ const rules: Rules = {
   'read-own-sales': (actor) => hasRole(actor, 'designer') || isAdmin(actor),
   'read-all-sales': (actor) => isAdmin(actor),
   'read-pattern-sales': (actor, pattern) => isOwningDesigner(actor, pattern) || isAdmin(actor),
+  // The sewing room (lib/services/sewing-room.ts): everyone signed in has a (maybe empty) list of
+  // projects. A project is started, read and ticked only by its owner while they hold its grant:
+  // the live licence it was made under (published or retired pattern), or the accepted invitation
+  // (pattern in testing) — not even an admin, since it is someone's own work. A refund or a
+  // withdrawn invitation closes it; its owner may still delete it.
+  'sewing-room:list': () => true,
+  'sewing-room:start': (actor, project) => holdsSewingGrant(actor, project),
+  'sewing-room:read': (actor, project) => holdsSewingGrant(actor, project),
+  'sewing-room:update': (actor, project) => holdsSewingGrant(actor, project),
+  'sewing-room:delete': (actor, project) => project.ownerId === actor.id,
+}
+
+/** The owner of a sewing project who still holds the licence or invitation it is made under. */
+function holdsSewingGrant(actor: NonNullable<Actor>, project: SewingProjectFacts): boolean {
+  return project.ownerId === actor.id && (isLicenceHolderOf(actor, project.pattern) || isTesterOf(actor, project.pattern))
 }
 
 type ResourceOf<A extends Action> = Parameters<Rules[A]> extends [unknown, infer R] ? [resource: R] : []
@@ -208,6 +238,9 @@ export function authorize<A extends Action>(actor: Actor, action: A, ...resource
   if (action === 'read-order') throw new NotFoundError('No such order.')
   if (action === 'get-licensed-booklet') throw new NotFoundError('No such booklet.')
   if (action === 'read-pattern-sales') throw new NotFoundError('No such pattern.')
+  // Someone else's project (or one whose grant is gone) is not found, exactly like a missing one.
+  if (action === 'sewing-room:start') throw new NotFoundError('No such licence or invitation of yours.')
+  if (action.startsWith('sewing-room:')) throw new NotFoundError('No such project.')
   if (ADMIN_DESK_ACTIONS.has(action)) throw new NotFoundError()
   throw new ForbiddenError()
 }

@@ -107,3 +107,10 @@ export const MAX_DESIGN_BYTES = (() => {
  * A larger file is refused before its JSON is parsed.
  */
 export const MAX_DESIGN_FILE_BYTES = 2 * MAX_DESIGN_BYTES
+
+/** A sewing-room note on one step ("used the darker green here"): characters. Room for a few lines, our choice. */
+export const MAX_SEWING_NOTE_LENGTH = 1000
+/** A sewing-room step id (`r3:area:A4`, `leaves:<fabric role>`): characters; the longest the checklist makes is a role (64) and a prefix. */
+export const MAX_SEWING_STEP_ID_LENGTH = 200
+/** Sewing projects one person may keep (several per licence are allowed): our choice, far above a lifetime of quilts, so rows cannot be piled up without end. */
+export const MAX_SEWING_PROJECTS_PER_PERSON = 200

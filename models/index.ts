@@ -14,6 +14,8 @@ import { initReportPhoto, ReportPhoto } from './report-photo'
 import { initPatternStateChange, PatternStateChange } from './pattern-state-change'
 import { initInvitation, Invitation } from './invitation'
 import { initSession, Session } from './session'
+import { initSewingProject, SewingProject } from './sewing-project'
+import { initSewingStep, SewingStep } from './sewing-step'
 import { initUpload, Upload } from './upload'
 import { initUser, User } from './user'
 
@@ -22,6 +24,7 @@ export { Invitation, PatternStateChange }
 export { Licence, Order, PaymentEvent }
 export { Report, ReportMessage, ReportPhoto }
 export { BookletBuild }
+export { SewingProject, SewingStep }
 
 /** Binds every model to one Sequelize instance and declares how they relate. */
 export function initModels(sequelize: Sequelize): void {
@@ -42,6 +45,8 @@ export function initModels(sequelize: Sequelize): void {
   initReportMessage(sequelize)
   initReportPhoto(sequelize)
   initBookletBuild(sequelize)
+  initSewingProject(sequelize)
+  initSewingStep(sequelize)
 
   User.hasMany(Session, { foreignKey: 'userId', onDelete: 'CASCADE' })
   Session.belongsTo(User, { foreignKey: 'userId' })

@@ -1,0 +1,22 @@
+import { BODY_LIMITS, route } from '@/lib/http'
+import { deleteProject, loadProject, projectDetail } from '@/lib/services/sewing-room'
+
+/**
+ * `GET /api/sewing-room/projects/:id` → `{ project, groups: [ { id, label, done, total } ], steps: [ {
+ * id, group, label, instruction?, roughCut?, repeat, areas, leaves?, done, note, updatedAt } ],
+ * nextStepId, picture: { viewBox, areas, finishing } }`: for the project's owner while they hold its
+ * licence or invitation; anyone else: 404.
+ */
+export const GET = route(
+  { params: ['id'], bodyLimit: BODY_LIMITS.none, session: 'required', permit: ({ user, params }) => loadProject(user, params.id, 'sewing-room:read') },
+  async ({ resource }) => Response.json(await projectDetail(resource)),
+)
+
+/** `DELETE /api/sewing-room/projects/:id` → `{ deleted: true }`: the owner deletes the project and its progress. */
+export const DELETE = route(
+  { params: ['id'], bodyLimit: BODY_LIMITS.none, session: 'required', permit: ({ user, params }) => loadProject(user, params.id, 'sewing-room:delete') },
+  async ({ resource }) => {
+    await deleteProject(resource)
+    return Response.json({ deleted: true })
+  },
+)
