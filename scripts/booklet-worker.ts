@@ -6,27 +6,19 @@
  * S3_*, BOOKLET_WORKER_CONCURRENCY, BOOKLET_POLL_SECONDS); `npm run demo` and `npm test` start it.
  * SIGTERM or SIGINT stops it after the builds in hand (an unfinished one is tried again later).
  */
-import os from 'node:os'
+import { lowerEveryThread, WORKER_NICENESS } from '../lib/booklets/priority'
 import { startBookletWorker } from '../lib/booklets/worker'
 import { closeDatabase } from '../lib/db'
 import { bookletSettings } from '../lib/env'
 
-/**
- * Writing booklets is all CPU; on a machine shared with the web app, the worker yields to it
- * (nice 10; its writing threads, started after this, inherit it on Linux), so pages keep answering
- * fast while booklets build. Where lowering the priority is not allowed, it runs as it is.
- */
-const WORKER_NICENESS = 10
-
 try {
-  try {
-    os.setPriority(WORKER_NICENESS)
-  } catch {
-    // Not allowed here (some containers): build at the normal priority.
-  }
+  // Writing booklets is all CPU; on a machine shared with the web app, every thread of the worker
+  // (not only the main one: lib/booklets/priority.ts) yields to it, so pages keep answering fast
+  // while booklets build. Where lowering the priority is not allowed, it runs as it is.
+  const lowered = lowerEveryThread(WORKER_NICENESS)
   const settings = bookletSettings()
-  const worker = await startBookletWorker({ concurrency: settings.workerConcurrency, pollSeconds: settings.pollSeconds })
-  console.log(`booklet-worker: ready (pid ${process.pid}, ${settings.workerConcurrency} at a time)`)
+  const worker = await startBookletWorker({ concurrency: settings.workerConcurrency, pollSeconds: settings.pollSeconds, niceness: WORKER_NICENESS })
+  console.log(`booklet-worker: ready (pid ${process.pid}, ${settings.workerConcurrency} at a time, ${lowered.lowered} of ${lowered.threads} threads at niceness ${WORKER_NICENESS})`)
   let stopping = false
   const stop = () => {
     if (stopping) return

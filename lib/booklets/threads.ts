@@ -1,5 +1,6 @@
 import { Worker } from 'node:worker_threads'
-import type { ThreadMessage, ThreadRequest } from './build-thread'
+import type { ThreadMessage, ThreadRequest, ThreadSettings } from './build-thread'
+import { lowerEveryThread } from './priority'
 
 /**
  * The booklet worker's writing threads: one per build it takes at a time, each kept for the next
@@ -23,16 +24,27 @@ export interface WritingThread {
 
 const THREAD_FILE = new URL('./build-thread.ts', import.meta.url).href
 
-function startThread(): Worker {
+function startThread(settings: ThreadSettings): Worker {
   const source = `import('tsx/esm/api').then(({ register }) => { register(); return import(${JSON.stringify(THREAD_FILE)}) })`
-  return new Worker(source, { eval: true })
+  const thread = new Worker(source, { eval: true, workerData: settings })
+  // A new thread may have made Node start helper threads of its own (its libuv pool on first use):
+  // lower those too once it is up (lib/booklets/priority.ts).
+  if (settings.niceness !== null) {
+    const niceness = settings.niceness
+    thread.once('online', () => lowerEveryThread(niceness))
+  }
+  return thread
 }
 
-export function writingThread(): WritingThread {
+/**
+ * A writing thread, started at its first build. `niceness` (null: leave it) is the CPU priority
+ * the thread gives itself (lib/booklets/priority.ts).
+ */
+export function writingThread(settings: ThreadSettings = { niceness: null }): WritingThread {
   let thread: Worker | undefined
   return {
     write(request, onPage) {
-      const current = (thread ??= startThread())
+      const current = (thread ??= startThread(settings))
       return new Promise<BuiltPdf>((resolve, reject) => {
         const finish = () => {
           current.off('message', onMessage)

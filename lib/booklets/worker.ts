@@ -18,7 +18,7 @@ export interface BookletWorker {
   stop(timeoutMs?: number): Promise<void>
 }
 
-export async function startBookletWorker(settings: { concurrency: number; pollSeconds: number }): Promise<BookletWorker> {
+export async function startBookletWorker(settings: { concurrency: number; pollSeconds: number; niceness?: number | null }): Promise<BookletWorker> {
   database()
   // A pool of its own: one connection per poller, and one for pg-boss's upkeep.
   const boss = new PgBoss({ ...bossOptions({ supervise: true }), application_name: 'wreathwright-booklets', max: settings.concurrency + 2 })
@@ -27,7 +27,7 @@ export async function startBookletWorker(settings: { concurrency: number; pollSe
   await ensureBookletQueue(boss)
   const threads: WritingThread[] = []
   for (let index = 0; index < settings.concurrency; index += 1) {
-    const thread = writingThread()
+    const thread = writingThread({ niceness: settings.niceness ?? null })
     threads.push(thread)
     // pg-boss 10 takes one job per poller at a time: several pollers are how it builds several at once.
     await boss.work<BookletBuildJob>(BOOKLETS_QUEUE, { batchSize: 1, includeMetadata: true, pollingIntervalSeconds: settings.pollSeconds }, async ([job]) => {
