@@ -1,0 +1,264 @@
+/**
+ * npm run load — how the built app holds under many connections (issue 17, item 5). A figure, not
+ * a test: it prints, and exits 0 whether the goals are met or not (a missed goal says MISSED).
+ *
+ * On loopback, in a throwaway PostgreSQL cluster and object store (as `npm run bench` does): the
+ * database is migrated and seeded with the demo data, the app is built (`next build`; set
+ * LOAD_SKIP_BUILD=1 to reuse a build of this checkout) and started with `next start`, one process.
+ * Then autocannon, in this process, asks each target at 50 and then 200 connections for 20 s
+ * (LOAD_SECONDS), each run also capped at MAX_REQUESTS_PER_RUN requests, the whole script at
+ * DEADLINE_MS. The targets:
+ *   - bare          GET /api/health/bare, a constant: the framework's own cost per request;
+ *   - shop list     GET /api/shop/patterns, the shop's first page, no session;
+ *   - shop page     GET /shop, the same page as HTML;
+ *   - pattern read  GET /api/patterns/:id as its designer (the demo's Hollyberry Wreath);
+ *   - plan          GET /shop/:id, a listed pattern's page: its covers are drawn from the plan
+ *                   (the app has no route that only plans; the board plans in the browser);
+ *   - sign-in       POST /api/auth/sign-in, the right password, through argon2.
+ * For each it prints requests/s, p50 and p99 latency and errors (connection errors, time-outs and
+ * any answer that is not 2xx), beside the bare handler's figures at the same connections, as a
+ * ratio. Goals (issue 17): no errors anywhere; for reads at 50 connections a p99 under 100 ms and
+ * at least 40 % of the bare handler's requests/s.
+ *
+ * Sign-in's limits (lib/rate-limits.ts) count every attempt from its start and give a successful
+ * one back, so many sign-ins in flight for one account or from one address would be refused with
+ * 429 — the limits doing their job, not a failure of the load. So the sign-ins rotate over
+ * SIGN_IN_ACCOUNTS accounts, each from an address of its own (198.18.0.0/15, the range RFC 2544
+ * sets aside for benchmarks), as people behind a load balancer would: the app runs with
+ * TRUST_PROXY=true and each request carries X-Forwarded-For. A 429 here would count as an error.
+ *
+ * autocannon shares the machine's cores with the app and PostgreSQL: the figures are this
+ * machine's, for comparing runs on it, not a capacity promise.
+ */
+import fs from 'node:fs'
+import os from 'node:os'
+import path from 'node:path'
+import autocannon from 'autocannon'
+import { startObjectStore, type ObjectStore } from './object-store'
+import { startCluster, type Cluster } from './postgres'
+import { freePort, run, startProcess, stopProcess, waitForHttp } from './processes'
+
+const CONNECTIONS = [50, 200] as const
+const SECONDS = Number(process.env.LOAD_SECONDS ?? 20)
+/** A cap on each run besides its time (the bare handler answers a few thousand a second here). */
+const MAX_REQUESTS_PER_RUN = 200_000
+/** The whole script, build included: past this everything is stopped and the script fails. */
+const DEADLINE_MS = 30 * 60_000
+/** An answer slower than this counts as a time-out (an error). */
+const TIMEOUT_SECONDS = 30
+const WARM_UP_SECONDS = 3
+const SIGN_IN_ACCOUNTS = 1000
+/** Goals (issue 17). */
+const READ_P99_GOAL_MS = 100
+const READ_SHARE_GOAL = 0.4
+
+type Kind = 'bare' | 'read' | 'write'
+interface Target {
+  readonly name: string
+  readonly kind: Kind
+  readonly label: string
+  readonly options: Partial<autocannon.Options>
+}
+interface Figures {
+  readonly target: Target
+  readonly connections: number
+  readonly requestsPerSecond: number
+  readonly p50: number
+  readonly p99: number
+  readonly errors: number
+  /** Status codes other than 2xx, and connection errors, with their counts. */
+  readonly errorKinds: string
+  readonly total: number
+}
+
+const work = fs.mkdtempSync(path.join(os.tmpdir(), 'wreathwright-load-'))
+fs.chmodSync(work, 0o755)
+let cluster: Cluster | undefined
+let objectStore: ObjectStore | undefined
+let app: ReturnType<typeof startProcess> | undefined
+
+async function stopAll(): Promise<void> {
+  await stopProcess(app)
+  await objectStore?.stop().catch(() => undefined)
+  try {
+    cluster?.stop()
+  } catch {
+    // Already stopped: nothing to do.
+  }
+  fs.rmSync(work, { recursive: true, force: true })
+}
+
+const watchdog = setTimeout(() => {
+  console.error(`load: still running after ${DEADLINE_MS / 60_000} minutes; stopping`)
+  void stopAll().finally(() => process.exit(1))
+}, DEADLINE_MS)
+
+/** Runs autocannon once; resolves to its result. */
+function cannon(options: autocannon.Options): Promise<autocannon.Result> {
+  return new Promise((resolve, reject) => {
+    autocannon(options, (error, result) => (error ? reject(error) : resolve(result)))
+  })
+}
+
+async function measure(base: string, target: Target, connections: number, seconds: number): Promise<Figures> {
+  const result = await cannon({
+    url: base,
+    connections,
+    duration: seconds,
+    maxOverallRequests: MAX_REQUESTS_PER_RUN,
+    timeout: TIMEOUT_SECONDS,
+    ...target.options,
+  })
+  const kinds = Object.entries(result.statusCodeStats ?? {})
+    .filter(([status]) => !status.startsWith('2'))
+    .map(([status, stats]) => `${status}×${stats.count ?? 0}`)
+  if (result.errors > 0) kinds.push(`connection errors×${result.errors} (time-outs ${result.timeouts})`)
+  return {
+    target,
+    connections,
+    requestsPerSecond: result.requests.average,
+    p50: result.latency.p50,
+    p99: result.latency.p99,
+    errors: result.errors + result.non2xx,
+    errorKinds: kinds.join(', '),
+    total: result.requests.total,
+  }
+}
+
+/** Verdicts on the goals, e.g. ['p99 143 ms ≥ 100 ms']; empty when every goal is met. */
+function misses(figures: Figures, bare: Figures | undefined): string[] {
+  const missed: string[] = []
+  if (figures.errors > 0) missed.push(`${figures.errors} errors (${figures.errorKinds})`)
+  if (figures.target.kind === 'read' && figures.connections === 50) {
+    if (figures.p99 >= READ_P99_GOAL_MS) missed.push(`p99 ${figures.p99} ms ≥ ${READ_P99_GOAL_MS} ms`)
+    const share = bare ? figures.requestsPerSecond / bare.requestsPerSecond : 0
+    if (share < READ_SHARE_GOAL) missed.push(`${(share * 100).toFixed(0)} % of bare < ${READ_SHARE_GOAL * 100} %`)
+  }
+  return missed
+}
+
+function printTable(all: readonly Figures[]): boolean {
+  const header = ['target', 'conns', 'req/s', 'p50 ms', 'p99 ms', 'errors', 'of bare', 'goals']
+  const rows = all.map((figures) => {
+    const bare = all.find((other) => other.target.kind === 'bare' && other.connections === figures.connections)
+    const missed = misses(figures, bare)
+    const share = bare && figures.target.kind !== 'bare' ? `${((figures.requestsPerSecond / bare.requestsPerSecond) * 100).toFixed(0)} %` : '-'
+    return [
+      figures.target.name,
+      String(figures.connections),
+      figures.requestsPerSecond.toFixed(0),
+      String(figures.p50),
+      String(figures.p99),
+      String(figures.errors),
+      share,
+      missed.length > 0 ? `MISSED: ${missed.join('; ')}` : 'met',
+    ]
+  })
+  const widths = header.map((title, column) => Math.max(title.length, ...rows.map((row) => row[column]!.length)))
+  const line = (cells: string[]) => '  ' + cells.map((cell, column) => (column < 2 || column === 7 ? cell.padEnd(widths[column]!) : cell.padStart(widths[column]!))).join('  ').trimEnd()
+  console.log(line(header))
+  for (const row of rows) console.log(line(row))
+  return rows.every((row) => row[7] === 'met')
+}
+
+try {
+  cluster = startCluster(path.join(work, 'postgres'), await freePort(), { throwaway: true, passwordFile: path.join(work, 'postgres.password') })
+  cluster.createDatabase('wreathwright_load')
+  objectStore = await startObjectStore(path.join(work, 'objects'), await freePort(), 'wreathwright-load')
+  const port = await freePort()
+  const base = `http://127.0.0.1:${port}`
+  const env = {
+    ...process.env,
+    ...objectStore.env,
+    DATABASE_URL: cluster.url('wreathwright_load'),
+    SESSION_COOKIE_SECURE: 'false',
+    NEXT_TELEMETRY_DISABLED: '1',
+    PUBLIC_URL: base,
+    MAIL_WORKER: 'off',
+    // The sign-ins come from many addresses, as through a load balancer (see the top of this file).
+    TRUST_PROXY: 'true',
+  }
+  const build = process.env.LOAD_SKIP_BUILD === '1' && fs.existsSync('.next/BUILD_ID') ? [] : [['next', 'build']]
+  for (const args of [['tsx', 'scripts/migrate.ts', 'up'], ['tsx', 'scripts/seed-demo.ts'], ...build]) {
+    if ((await run('npx', args, env)) !== 0) throw new Error(`${args.join(' ')} failed`)
+  }
+  app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(port)], env, { quiet: true })
+  await waitForHttp(`${base}/api/health`)
+
+  // This process reads and writes the same database as the app, to find the demo's pattern and
+  // make the accounts that sign in.
+  Object.assign(process.env, env)
+  const { database, closeDatabase } = await import('../lib/db')
+  const { Pattern, User } = await import('../models')
+  const { hashPassword } = await import('../lib/auth/password')
+  const { sessionCookieFor, TEST_PASSWORD } = await import('../tests/support/factories')
+  database()
+  const pattern = await Pattern.findOne({ where: { name: 'Hollyberry Wreath' } })
+  if (!pattern?.ownerId) throw new Error('the demo data has no Hollyberry Wreath')
+  const listed = await Pattern.findOne({ where: { state: 'published' }, order: [['name', 'ASC']] })
+  if (!listed) throw new Error('the demo data lists no pattern in the shop')
+  const designerCookie = await sessionCookieFor({ id: pattern.ownerId })
+  const passwordHash = await hashPassword(TEST_PASSWORD)
+  const emails = Array.from({ length: SIGN_IN_ACCOUNTS }, (_, index) => `load-${index}@load.example`)
+  await User.bulkCreate(
+    emails.map((email, index) => ({ email, displayName: `Load Person ${index}`, passwordHash, roles: ['quilter' as const], emailVerifiedAt: new Date(), designerRequestedAt: null })),
+  )
+  await closeDatabase()
+
+  let signIns = 0
+  const targets: Target[] = [
+    { name: 'bare', kind: 'bare', label: 'GET /api/health/bare', options: { url: `${base}/api/health/bare` } },
+    { name: 'shop list', kind: 'read', label: 'GET /api/shop/patterns', options: { url: `${base}/api/shop/patterns` } },
+    { name: 'shop page', kind: 'read', label: 'GET /shop', options: { url: `${base}/shop` } },
+    { name: 'pattern read', kind: 'read', label: `GET /api/patterns/:id (Hollyberry Wreath, as its designer)`, options: { url: `${base}/api/patterns/${pattern.id}`, headers: { cookie: designerCookie } } },
+    { name: 'plan', kind: 'read', label: `GET /shop/:id (${listed.name}: covers drawn from its plan)`, options: { url: `${base}/shop/${listed.id}` } },
+    {
+      name: 'sign-in',
+      kind: 'write',
+      label: `POST /api/auth/sign-in (${SIGN_IN_ACCOUNTS} accounts, each from its own address)`,
+      options: {
+        requests: [
+          {
+            method: 'POST',
+            path: '/api/auth/sign-in',
+            setupRequest: (request) => {
+              const index = signIns++ % SIGN_IN_ACCOUNTS
+              const address = `198.${18 + (index >> 16)}.${(index >> 8) & 255}.${index & 255}`
+              return {
+                ...request,
+                headers: { ...request.headers, origin: base, 'content-type': 'application/json', 'x-forwarded-for': address },
+                body: JSON.stringify({ email: emails[index], password: TEST_PASSWORD }),
+              }
+            },
+          },
+        ],
+      },
+    },
+  ]
+
+  console.log(`\nload: ${base}, next start (one process), ${os.cpus().length} cores; each run ${SECONDS} s, at most ${MAX_REQUESTS_PER_RUN} requests`)
+  for (const target of targets) console.log(`  ${target.name.padEnd(12)} ${target.label}`)
+  // Warm up: the first requests to a route load its bundle, and V8 compiles what runs hot.
+  for (const target of targets) {
+    const warm = await measure(base, target, 10, WARM_UP_SECONDS)
+    if (warm.errors > 0) console.log(`  warm-up of ${target.name}: ${warm.errors} errors (${warm.errorKinds})`)
+  }
+
+  const all: Figures[] = []
+  for (const connections of CONNECTIONS) {
+    for (const target of targets) {
+      const figures = await measure(base, target, connections, SECONDS)
+      all.push(figures)
+      console.log(`  ${target.name} at ${connections}: ${figures.requestsPerSecond.toFixed(0)} req/s, p50 ${figures.p50} ms, p99 ${figures.p99} ms, ${figures.errors} errors${figures.errorKinds ? ` (${figures.errorKinds})` : ''}`)
+    }
+  }
+  console.log(`\nload: summary (goals: 0 errors; reads at 50 connections p99 < ${READ_P99_GOAL_MS} ms and ≥ ${READ_SHARE_GOAL * 100} % of bare req/s)`)
+  const met = printTable(all)
+  console.log(met ? '\nload: every goal met' : '\nload: some goals MISSED (see the goals column)')
+} catch (error) {
+  console.error(`load: ${(error as Error).message}`)
+  process.exitCode = 1
+} finally {
+  clearTimeout(watchdog)
+  await stopAll()
+}
