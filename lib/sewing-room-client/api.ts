@@ -1,0 +1,38 @@
+/**
+ * The sewing room's requests, from the browser. Inputs go through the server's own schemas
+ * (lib/schemas/sewing-room.ts) before they leave, so the page and the route refuse the same things.
+ */
+import { apiFetch } from '@/lib/api-client'
+import {
+  newProjectSchema,
+  stepUpdateSchema,
+  type NewProjectInput,
+  type ProjectDetail,
+  type ProjectSummary,
+  type StepProgress,
+  type StepUpdateInput,
+} from '@/lib/schemas/sewing-room'
+
+const PROJECTS = '/api/sewing-room/projects'
+
+/** The quilter's projects, most recently worked on first. */
+export async function fetchProjects(): Promise<ProjectSummary[]> {
+  return (await apiFetch<{ projects: ProjectSummary[] }>(PROJECTS, { cache: 'no-store' })).projects
+}
+
+/** One project with its checklist, progress and picture. */
+export function fetchProject(projectId: string): Promise<ProjectDetail> {
+  return apiFetch<ProjectDetail>(`${PROJECTS}/${encodeURIComponent(projectId)}`, { cache: 'no-store' })
+}
+
+/** Starts a project (throws the schema's ZodError before sending anything it would refuse). */
+export async function startProject(input: NewProjectInput): Promise<ProjectSummary> {
+  const body = newProjectSchema.parse(input)
+  return (await apiFetch<{ project: ProjectSummary }>(PROJECTS, { method: 'POST', json: body })).project
+}
+
+/** One step's change: its own request, so it never touches another step. */
+export async function patchStep(projectId: string, update: StepUpdateInput): Promise<StepProgress> {
+  const body = stepUpdateSchema.parse(update)
+  return (await apiFetch<{ step: StepProgress }>(`${PROJECTS}/${encodeURIComponent(projectId)}/steps`, { method: 'PATCH', json: body })).step
+}
