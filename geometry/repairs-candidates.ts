@@ -66,7 +66,7 @@ export function describeEdit(edit: Edit, newSeamId: string): string {
  * The smallest id of the form s1, s2, … that no seam uses: a function of the set of ids, never
  * of their order, so the same design always names its new seam alike.
  *
- * @example newSeamId([{ id: 's1', … }, { id: 's3', … }]) // 's2'
+ * @example newSeamId([{ id: 's1', from: [0, 0], to: [1, 1] }, { id: 's3', from: [0, 1], to: [1, 0] }]) // 's2'
  */
 export function newSeamId(seams: readonly Seam[]): string {
   const used = new Set(seams.map((seam) => seam.id))

@@ -1,0 +1,303 @@
+import { readdirSync, readFileSync, existsSync } from 'node:fs'
+import { join } from 'node:path'
+import fc from 'fast-check'
+import { describe, expect, it } from 'vitest'
+import { parseDesign } from '../lib/schemas/design'
+import { hollyberryWreath } from '../scripts/demo-wreath'
+import { DEMO_SEASON_PATTERNS } from '../scripts/demo-season'
+import { design, yJunctionDesign } from './fixtures/generators'
+import { planDesign } from './plan'
+import { suggestRepairs, type Suggestion } from './repairs'
+import { repeatSpan } from './ring'
+import { SHORT_MOVE_FRACTION } from './tolerances'
+import type { Design, Point, Seam } from './types'
+
+/** Time is a safety net only; tests judge the deterministic state budget. */
+const UNHURRIED = { budgetMs: 60_000 }
+
+function fixture(name: string): Design {
+  const parsed = parseDesign(JSON.parse(readFileSync(join(import.meta.dirname, 'fixtures', name, 'design.json'), 'utf8')))
+  if (!parsed.ok) throw new Error(`fixture ${name} does not parse`)
+  return parsed.design
+}
+
+function parsed(file: unknown): Design {
+  const result = parseDesign(file)
+  if (!result.ok) throw new Error('demo design does not parse')
+  return result.design
+}
+
+/** Applies a suggestion as the board does (the seams list replaced) and plans the result again. */
+function expectSuggestionHolds(original: Design, suggestion: Suggestion): void {
+  const changed: Design = { ...original, seams: suggestion.seams }
+  const plan = planDesign(changed, { suggestions: false })
+  expect(plan.problems.filter((problem) => problem.severity === 'error'), suggestion.message).toEqual([])
+  expect(plan.sewable, suggestion.message).toBe(true)
+  expect(plan.sections.length, suggestion.message).toBe(suggestion.sections)
+  // Every insert honoured and every leaf still on a seam between two areas: no leaf goes uncaught,
+  // every leaf's seam is still there, and the plan found no order that breaks an insert.
+  const ids = new Set(suggestion.seams.map((seam) => seam.id))
+  for (const leaf of original.leaves) expect(ids.has(leaf.seam), `${suggestion.message}: leaf ${leaf.id}`).toBe(true)
+  expect(plan.problems.some((problem) => problem.code === 'insert-not-caught' || problem.code === 'insert-order')).toBe(false)
+  // Seam ids kept: every original seam is still there under its id.
+  for (const seam of original.seams) expect(ids.has(seam.id)).toBe(true)
+  expect(suggestion.seams.length - original.seams.length).toBeLessThanOrEqual(2)
+}
+
+/** A seam end lying on another seam's middle (a T-junction), pulled back 0.2 in along its own seam. */
+function pullOneEndOffLine(original: Design): Design | null {
+  const onMiddle = (p: Point, seam: Seam): boolean => {
+    const [a, b] = [seam.from, seam.to]
+    const length = Math.hypot(b[0] - a[0], b[1] - a[1])
+    const t = ((p[0] - a[0]) * (b[0] - a[0]) + (p[1] - a[1]) * (b[1] - a[1])) / (length * length)
+    const across = Math.abs((b[0] - a[0]) * (p[1] - a[1]) - (b[1] - a[1]) * (p[0] - a[0])) / length
+    return t > 0.01 && t < 0.99 && across < 1e-3
+  }
+  const sorted = [...original.seams].sort((p, q) => (p.id < q.id ? -1 : 1))
+  for (const seam of sorted) {
+    for (const end of ['to', 'from'] as const) {
+      const point = seam[end]
+      const other = end === 'to' ? seam.from : seam.to
+      if (!original.seams.some((s) => s.id !== seam.id && onMiddle(point, s))) continue
+      const length = Math.hypot(point[0] - other[0], point[1] - other[1])
+      if (length < 1) continue
+      const pulled: Point = [point[0] - (0.2 * (point[0] - other[0])) / length, point[1] - (0.2 * (point[1] - other[1])) / length]
+      return { ...original, seams: original.seams.map((s) => (s.id === seam.id ? { ...s, [end]: pulled } : s)) }
+    }
+  }
+  return null
+}
+
+describe('suggestRepairs: worked examples', () => {
+  const examples: [string, Design][] = [
+    ['a Y junction', fixture('y-junction-set-in')],
+    ['a pinwheel of four seams around a centre square', fixture('pinwheel-no-plan')],
+    ['a junction of three seams with two nearly in line', fixture('three-seams-two-nearly-in-line')],
+    ['a seam end that touches nothing', fixture('dangling-seam-end')],
+  ]
+  for (const [name, example] of examples) {
+    it(`repairs ${name}, and every suggestion sews as it claims`, () => {
+      const { suggestions, stopped } = suggestRepairs(example, UNHURRIED)
+      expect(stopped).toBe(false)
+      expect(suggestions.length).toBeGreaterThanOrEqual(1)
+      expect(suggestions.length).toBeLessThanOrEqual(5)
+      for (const suggestion of suggestions) expectSuggestionHolds(example, suggestion)
+    })
+  }
+
+  it('straightens two nearly-in-line seams first: 0.15 in moved at three ends, one section', () => {
+    const [first] = suggestRepairs(fixture('three-seams-two-nearly-in-line'), UNHURRIED).suggestions
+    // The junction (4, 4.15) moves onto y = 4, the line between the far ends of left and right:
+    // 0.15 in for each of the three seam ends there.
+    expect(first?.sections).toBe(1)
+    expect(first?.movedIn).toBeCloseTo(3 * 0.15, 6)
+    expect(first?.message).toMatch(/^Move the point where seams down, left and right meet 0\.15 in.*: sews in 1 section$/)
+  })
+
+  it('extends a loose end to the arc: 8.062 − 6 = 2.06 in added, one section', () => {
+    const [first] = suggestRepairs(fixture('dangling-seam-end'), UNHURRIED).suggestions
+    expect(first?.message).toBe('Extend seam s2 2.06 in to the outline: sews in 1 section')
+    expect(first?.addedLengthIn).toBeCloseTo(Math.sqrt(81 - 16) - 6, 6)
+  })
+
+  const demos: [string, Design][] = [
+    ['Hollyberry Wreath', parsed(hollyberryWreath)],
+    ...DEMO_SEASON_PATTERNS.map((pattern): [string, Design] => [pattern.design.name, parsed(pattern.design)]),
+    ...readdirSync(join(import.meta.dirname, 'fixtures'))
+      .filter((name) => existsSync(join(import.meta.dirname, 'fixtures', name, 'design.json')))
+      .map((name): [string, Design] => [name, fixture(name)]),
+  ]
+  for (const [name, demo] of demos) {
+    const pulled = pullOneEndOffLine(demo)
+    if (!pulled) continue
+    it(`repairs ${name} with one seam end pulled off its line`, () => {
+      const plan = planDesign(pulled, { suggestions: false })
+      expect(plan.sewable).toBe(false)
+      const { suggestions } = suggestRepairs(pulled, UNHURRIED)
+      expect(suggestions.length).toBeGreaterThanOrEqual(1)
+      for (const suggestion of suggestions) expectSuggestionHolds(pulled, suggestion)
+    })
+  }
+
+  it('offers nothing for a design that sews in one section', () => {
+    expect(suggestRepairs(fixture('straight-seam-two-rays-one-section')).suggestions).toEqual([])
+    expect(planDesign(fixture('straight-seam-two-rays-one-section')).suggestions).toBeUndefined()
+  })
+
+  it('puts suggestions in the plan when it cannot be sewn, and none when asked not to', () => {
+    const y = fixture('y-junction-set-in')
+    const plan = planDesign(y)
+    expect(plan.suggestions?.length).toBeGreaterThanOrEqual(1)
+    expect(plan.suggestionsStopped).toBe(false)
+    const quiet = planDesign(y, { suggestions: false })
+    expect(quiet.suggestions).toBeUndefined()
+    expect(quiet.suggestionsStopped).toBeUndefined()
+  })
+
+  it('says so when the budget stops the search', () => {
+    const result = suggestRepairs(fixture('y-junction-set-in'), { maxStates: 1 })
+    expect(result.stopped).toBe(true)
+    expect(result.suggestions.length).toBeLessThanOrEqual(1)
+  })
+
+  it('offers nothing for a design with a hand-set order (the order names areas a change would move)', () => {
+    const y = fixture('y-junction-set-in')
+    expect(suggestRepairs({ ...y, order: { sections: [], assembly: null } }).suggestions).toEqual([])
+  })
+})
+
+// ——— The slow exhaustive search: every single edit of the three kinds anywhere in the design. ———
+
+interface Exhaustive {
+  readonly sections: number
+  readonly change: number
+}
+
+/** Where the ray p + t·d (|d| = 1, t > 0.01 in) first meets a seam (or only the outline) of a wedge ring. */
+function rayHits(ring: Design['ring'], seams: readonly Seam[], p: Point, d: Point): { seam: number; outline: number } {
+  let seam = Infinity
+  for (const s of seams) {
+    const sx = s.to[0] - s.from[0]
+    const sy = s.to[1] - s.from[1]
+    const den = d[0] * sy - d[1] * sx
+    if (den === 0) continue
+    const qx = s.from[0] - p[0]
+    const qy = s.from[1] - p[1]
+    const t = (qx * sy - qy * sx) / den
+    const u = (qx * d[1] - qy * d[0]) / den
+    if (u >= -1e-9 && u <= 1 + 1e-9 && t > 0.01) seam = Math.min(seam, t)
+  }
+  // Outline of a wedge (inner radius 0): the two radial rays and the outer circle.
+  let outline = Infinity
+  const span = repeatSpan(ring)
+  for (const angle of [0, span]) {
+    const e: Point = [Math.cos(angle), Math.sin(angle)]
+    const den = d[0] * e[1] - d[1] * e[0]
+    if (den === 0) continue
+    const t = (-p[0] * e[1] + p[1] * e[0]) / den
+    const u = (-p[0] * d[1] + p[1] * d[0]) / den
+    if (u >= 0 && u <= ring.outerRadius && t > 0.01) outline = Math.min(outline, t)
+  }
+  const b = p[0] * d[0] + p[1] * d[1]
+  const c = p[0] ** 2 + p[1] ** 2 - ring.outerRadius ** 2
+  if (b * b - c >= 0) {
+    const t = -b + Math.sqrt(b * b - c)
+    if (t > 0.01) outline = Math.min(outline, t)
+  }
+  return { seam: Math.min(seam, outline), outline }
+}
+
+function bestSingleEdit(original: Design): Exhaustive | null {
+  const seams = original.seams
+  let best: Exhaustive | null = null
+  const consider = (changed: Seam[], change: number): void => {
+    const plan = planDesign({ ...original, seams: changed }, { suggestions: false })
+    if (!plan.sewable) return
+    const found = { sections: plan.sections.length, change }
+    if (!best || found.sections < best.sections || (found.sections === best.sections && found.change < best.change)) best = found
+  }
+  const at = (p: Point, q: Point): boolean => Math.hypot(p[0] - q[0], p[1] - q[1]) < 1e-7
+  const ends = seams.flatMap((seam) => (['from', 'to'] as const).map((end) => ({ seam, end, point: seam[end], other: seam[end === 'from' ? 'to' : 'from'] })))
+  // Extend every end, to the next seam and through to the outline.
+  for (const { seam, end, point, other } of ends) {
+    const length = Math.hypot(point[0] - other[0], point[1] - other[1])
+    const d: Point = [(point[0] - other[0]) / length, (point[1] - other[1]) / length]
+    const hits = rayHits(original.ring, seams, point, d)
+    for (const t of new Set([hits.seam, hits.outline])) {
+      if (!Number.isFinite(t)) continue
+      const to: Point = [point[0] + t * d[0], point[1] + t * d[1]]
+      consider(seams.map((s) => (s === seam ? { ...s, [end]: to } : s)), t)
+    }
+  }
+  // Every point where two or more seam ends meet: straighten any two (a short move), or add a seam through it.
+  const junctions = ends.map((e) => e.point).filter((p, i, all) => all.findIndex((q) => at(p, q)) === i)
+  for (const junction of junctions) {
+    const here = ends.filter((e) => at(e.point, junction))
+    if (here.length < 2) continue
+    for (const a of here) {
+      for (const b of here) {
+        if (a.seam.id >= b.seam.id) continue
+        const dx = b.other[0] - a.other[0]
+        const dy = b.other[1] - a.other[1]
+        const t = ((junction[0] - a.other[0]) * dx + (junction[1] - a.other[1]) * dy) / (dx * dx + dy * dy)
+        if (t <= 0 || t >= 1) continue
+        const to: Point = [a.other[0] + t * dx, a.other[1] + t * dy]
+        const move = Math.hypot(to[0] - junction[0], to[1] - junction[1])
+        if (move > SHORT_MOVE_FRACTION * original.ring.outerRadius) continue
+        const changed = seams.map((s) => {
+          let next = s
+          for (const e of here) if (e.seam.id === s.id) next = { ...next, [e.end]: to }
+          return next
+        })
+        const added = here.reduce((sum, e) => sum + Math.hypot(e.other[0] - to[0], e.other[1] - to[1]) - Math.hypot(e.other[0] - junction[0], e.other[1] - junction[1]), 0)
+        consider(changed, move * here.length + Math.max(0, added))
+      }
+    }
+    const arms = here.map((e) => Math.atan2(e.other[1] - junction[1], e.other[0] - junction[0])).sort((p, q) => p - q)
+    const directions = [...arms.map((a, i) => (a + (i + 1 < arms.length ? arms[i + 1]! : arms[0]! + 2 * Math.PI)) / 2), ...arms.map((a) => a + Math.PI / 2)]
+    for (const angle of directions) {
+      if (arms.some((arm) => Math.abs(Math.sin(angle - arm)) <= 1e-3)) continue
+      const d: Point = [Math.cos(angle), Math.sin(angle)]
+      const forward = rayHits(original.ring, seams, junction, d).seam
+      const back = rayHits(original.ring, seams, junction, [-d[0], -d[1]]).seam
+      if (!Number.isFinite(forward) || !Number.isFinite(back)) continue
+      const from: Point = [junction[0] - back * d[0], junction[1] - back * d[1]]
+      const to: Point = [junction[0] + forward * d[0], junction[1] + forward * d[1]]
+      consider([...seams, { id: 'added-by-test', from, to }], forward + back)
+    }
+  }
+  return best
+}
+
+const change = (s: Suggestion): number => s.addedLengthIn + s.movedIn
+
+describe('suggestRepairs: properties', () => {
+  it('finds a repair at least as good as the best single edit, for peel designs made unsewable by a Y', () => {
+    fc.assert(
+      fc.property(fc.integer({ min: 1, max: 1_000_000 }), fc.integer({ min: 3, max: 9 }), (seed, count) => {
+        const broken = yJunctionDesign(count, seed)
+        fc.pre(!planDesign(broken, { suggestions: false }).sewable)
+        const best = bestSingleEdit(broken)
+        const { suggestions, stopped } = suggestRepairs(broken, UNHURRIED)
+        if (!best) return
+        expect(stopped).toBe(false)
+        const first = suggestions[0]
+        expect(first).toBeDefined()
+        if (!first) return
+        expect(first.sections).toBeLessThanOrEqual(best.sections)
+        if (first.sections === best.sections) expect(change(first)).toBeLessThanOrEqual(best.change + 1e-5)
+        expectSuggestionHolds(broken, first)
+      }),
+      { numRuns: 12 },
+    )
+  })
+
+  it('gives the same list on every run and for any order of seams, fills and leaves', () => {
+    const normal = (list: readonly Suggestion[]) => list.map((s) => ({ ...s, seams: [...s.seams].sort((p, q) => (p.id < q.id ? -1 : 1)) }))
+    const subjects = fc.oneof(
+      fc.record({ seed: fc.integer({ min: 1, max: 1_000_000 }), count: fc.integer({ min: 3, max: 10 }) }).map(({ seed, count }) => yJunctionDesign(count, seed)),
+      fc.constantFrom(fixture('pinwheel-no-plan'), fixture('y-junction-set-in'), fixture('three-seams-two-nearly-in-line'), pullOneEndOffLine(parsed(hollyberryWreath)) ?? design()),
+    )
+    fc.assert(
+      fc.property(subjects, fc.integer(), (subject, shuffleSeed) => {
+        const shuffle = <T>(list: readonly T[]): T[] => {
+          const copy = [...list]
+          let state = shuffleSeed >>> 0
+          for (let i = copy.length - 1; i > 0; i -= 1) {
+            state = (Math.imul(state, 1_664_525) + 1_013_904_223) >>> 0
+            const j = state % (i + 1)
+            ;[copy[i], copy[j]] = [copy[j]!, copy[i]!]
+          }
+          return copy
+        }
+        const once = suggestRepairs(subject, UNHURRIED)
+        const again = suggestRepairs(subject, UNHURRIED)
+        expect(again).toEqual(once)
+        const shuffled = suggestRepairs({ ...subject, seams: shuffle(subject.seams), fills: shuffle(subject.fills), leaves: shuffle(subject.leaves) }, UNHURRIED)
+        expect(normal(shuffled.suggestions)).toEqual(normal(once.suggestions))
+        expect(shuffled.stopped).toBe(once.stopped)
+      }),
+      { numRuns: 10 },
+    )
+  })
+})
