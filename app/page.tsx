@@ -19,7 +19,17 @@ export default async function HomePage() {
             Go to your pattern shelf
           </Link>
         ) : (
-          <p className="text-stone-700">Welcome back, {user.displayName}. The shop and your sewing room open soon.</p>
+          <div className="space-y-3">
+            <p className="text-stone-700">Welcome back, {user.displayName}. Pick up where you left off, or find your next ring in the shop.</p>
+            <div className="flex flex-wrap gap-3">
+              <Link href="/sewing-room" className="rounded bg-thread-700 px-4 py-2 text-white hover:bg-thread-800">
+                Go to your sewing room
+              </Link>
+              <Link href="/shop" className="rounded border border-stone-300 px-4 py-2 hover:bg-linen-100">
+                Browse the shop
+              </Link>
+            </div>
+          </div>
         )
       ) : (
         <div className="flex gap-4">

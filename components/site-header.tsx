@@ -8,7 +8,7 @@ export async function SiteHeader() {
   const user = await getCurrentUser()
   return (
     <header className="border-b border-linen-200 bg-white/70">
-      <nav aria-label="Main" className="mx-auto flex max-w-6xl items-center gap-6 px-4 py-3">
+      <nav aria-label="Main" className="mx-auto flex max-w-6xl flex-wrap items-center gap-x-6 gap-y-2 px-4 py-3">
         <Link href="/" className="text-lg font-semibold text-thread-800">
           Wreathwright
         </Link>
@@ -18,6 +18,11 @@ export async function SiteHeader() {
         {can(user, 'read-own-library') && (
           <Link href="/library" className="text-sm text-stone-700 hover:text-thread-700">
             My library
+          </Link>
+        )}
+        {user && (
+          <Link href="/sewing-room" className="text-sm text-stone-700 hover:text-thread-700">
+            Sewing room
           </Link>
         )}
         {can(user, 'list-own-patterns') && (

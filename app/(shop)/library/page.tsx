@@ -43,6 +43,9 @@ export default async function LibraryPage() {
                   <Link href={`/library/${licence.id}/print`} className="text-thread-700 hover:underline">
                     Print
                   </Link>
+                  <Link href={`/sewing-room/new?licence=${licence.id}`} className="ml-3 text-thread-700 hover:underline">
+                    Sewing room
+                  </Link>
                   <GetBooklet licenceId={licence.id} patternName={licence.patternName} />
                 </td>
               </tr>

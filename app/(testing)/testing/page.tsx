@@ -33,6 +33,13 @@ export default async function PatternsToTestPage() {
                 {pattern.open ? 'Open for testing' : 'Back with its designer for changes; it opens again when testing resumes'}
                 {', '}your invitation stands until <time dateTime={pattern.expiresAt}>{new Date(pattern.expiresAt).toLocaleDateString()}</time>.
               </p>
+              {pattern.open && (
+                <p className="mt-2 text-sm">
+                  <Link href={`/sewing-room/new?testing=${pattern.patternId}`} className="text-thread-700 hover:underline">
+                    Sewing room<span className="sr-only">: start a project of {pattern.name}</span>
+                  </Link>
+                </p>
+              )}
             </li>
           ))}
         </ul>

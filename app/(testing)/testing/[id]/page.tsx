@@ -38,6 +38,9 @@ export default async function PatternToTestPage({ params }: { params: Promise<{ 
         <Link href={`/patterns/${pattern.id}/reports`} className="rounded bg-thread-700 px-4 py-2 text-white hover:bg-thread-800">
           Report a problem
         </Link>
+        <Link href={`/sewing-room/new?testing=${pattern.id}`} className="ml-3 rounded border border-thread-700 px-4 py-2 text-thread-700 hover:bg-linen-100">
+          Sew it in the sewing room
+        </Link>
       </p>
       <dl className="grid max-w-xl grid-cols-2 gap-x-6 gap-y-2 text-sm">
         <dt className="text-stone-500">Finished diameter</dt>
