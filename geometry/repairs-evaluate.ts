@@ -8,7 +8,7 @@ import { areaSetOf } from './area-set'
 import { buildTopology, type Topology } from './area-topology'
 import { fewestSections } from './fewest-sections'
 import { insertConstraints } from './inserts'
-import { createPeelSearch, stuckCore } from './sewing-order'
+import { createPeelSearch, stuckCore, type InsertConstraint } from './sewing-order'
 import { setInSeamProblems } from './sewing-problems'
 import { MAX_PLAN_AREAS } from './tolerances'
 import type { Leaf, Problem, Ring, Seam } from './types'
@@ -29,25 +29,54 @@ export interface Judgement {
   readonly overLimit: boolean
 }
 
+/** A candidate's arrangement, topology, inserts and errors: everything but the sections search. */
+export interface Prepared {
+  readonly arrangement: Arrangement
+  readonly topology: Topology
+  readonly constraints: readonly InsertConstraint[]
+  readonly errors: readonly Problem[]
+  /** No areas to plan, or more than the planner plans. */
+  readonly unplannable: boolean
+}
+
 /**
- * Plans a ring with these seams and leaves far enough to say whether it sews, and in how many
- * sections (every insert honoured). `below` limits the sections looked for: a plan needing that
- * many or more is not searched for (`overLimit`).
+ * The arrangement of a ring with these seams and the errors that stand before any search.
+ *
+ * @example prepareSeams(ring, seams, []).errors // [] when nothing dangles, sets in or bends
+ */
+export function prepareSeams(ring: Ring, seams: readonly Seam[], leaves: readonly Leaf[]): Prepared {
+  const arrangement = buildArrangement(ring, seams)
+  const topology = buildTopology(arrangement)
+  if (arrangement.areas.length === 0 || arrangement.areas.length > MAX_PLAN_AREAS) return { arrangement, topology, constraints: [], errors: [], unplannable: true }
+  const inserts = insertConstraints(arrangement, topology, leaves)
+  const errors = [...arrangement.problems, ...inserts.problems, ...setInSeamProblems(topology)].filter((problem) => problem.severity === 'error')
+  return { arrangement, topology, constraints: inserts.constraints, errors, unplannable: false }
+}
+
+/**
+ * Says whether a prepared candidate sews, and in how many sections (every insert honoured).
+ * `below` limits the sections looked for: a plan needing that many or more is not searched for
+ * (`overLimit`), which keeps poor candidates cheap.
+ *
+ * @example judgePrepared(prepareSeams(ring, seams, []), 2).sewable // true only for one section
+ */
+export function judgePrepared(prepared: Prepared, below = Infinity): Judgement {
+  const { arrangement, topology, errors } = prepared
+  const fail = (stuck: readonly number[] = [], searchLimit = false, overLimit = false): Judgement => ({ sewable: false, sections: 0, errors, arrangement, topology, stuck, searchLimit, overLimit })
+  if (prepared.unplannable || errors.length > 0) return fail()
+  const result = fewestSections(topology, prepared.constraints, below)
+  if (!result.tree && !result.gaveUp && below !== Infinity) return fail([], false, true)
+  if (!result.tree) return fail(result.gaveUp ? [] : stuckAreas(topology), result.gaveUp)
+  return { sewable: true, sections: result.sectionCount, errors: [], arrangement, topology, stuck: [], searchLimit: result.gaveUp, overLimit: false }
+}
+
+/**
+ * Both steps at once: plans a ring with these seams and leaves far enough to say whether it sews.
  *
  * @example judgeSeams(ring, seams, []).sections // 1 for a design of cut-off areas
  */
 export function judgeSeams(ring: Ring, seams: readonly Seam[], leaves: readonly Leaf[], below = Infinity): Judgement {
-  const arrangement = buildArrangement(ring, seams)
-  const topology = buildTopology(arrangement)
-  const fail = (errors: readonly Problem[], stuck: readonly number[] = [], searchLimit = false, overLimit = false): Judgement => ({ sewable: false, sections: 0, errors, arrangement, topology, stuck, searchLimit, overLimit })
-  if (arrangement.areas.length === 0 || arrangement.areas.length > MAX_PLAN_AREAS) return fail([])
-  const inserts = insertConstraints(arrangement, topology, leaves)
-  const errors = [...arrangement.problems, ...inserts.problems, ...setInSeamProblems(topology)].filter((problem) => problem.severity === 'error')
-  if (errors.length > 0) return fail(errors)
-  const result = fewestSections(topology, inserts.constraints, below)
-  if (!result.tree && !result.gaveUp && below !== Infinity) return fail([], [], false, true)
-  if (!result.tree) return fail([], result.gaveUp ? [] : stuckAreas(topology), result.gaveUp)
-  return { sewable: true, sections: result.sectionCount, errors: [], arrangement, topology, stuck: [], searchLimit: result.gaveUp, overLimit: false }
+  return judgePrepared(prepareSeams(ring, seams, leaves), below)
 }
 
 /**

@@ -9,7 +9,7 @@
  * (deterministic) and by a time as a safety net; `stopped` says when either ran out.
  */
 import { applyEdit, candidateEdits, describeEdit, editKey, newSeamId, visibleChange, type Edit } from './repairs-candidates'
-import { judgeSeams, stuckAreas, type Judgement } from './repairs-evaluate'
+import { judgePrepared, judgeSeams, prepareSeams, stuckAreas, type Judgement, type Prepared } from './repairs-evaluate'
 import { MAX_REPAIR_STATES, OUTPUT_DECIMALS, REPAIR_BUDGET_MS } from './tolerances'
 import type { Design, ProblemCode, Seam } from './types'
 
@@ -47,6 +47,22 @@ const MOST_SAVINGS = 3
 
 /** Errors a change of seams can clear; any other error stands whatever the seams do. */
 const REPAIRABLE: ReadonlySet<ProblemCode> = new Set<ProblemCode>(['dangling-seam-end', 'set-in-seam', 'bent-seam', 'seam-cycle', 'insert-not-caught'])
+
+/**
+ * The section limits of the passes over clean candidates: first only one-section plans, then up
+ * to two, four, and any number (each pass only where no plan was found below the last).
+ */
+const SECTION_PASSES = [2, 3, 5, Infinity] as const
+
+interface Candidate {
+  readonly seams: Seam[]
+  readonly edits: Edit[]
+  /** The id a new seam of each edit gets. */
+  readonly names: string[]
+  readonly change: number
+  readonly key: string
+  readonly designKey: string
+}
 
 interface Found {
   readonly edits: readonly Edit[]
@@ -142,36 +158,77 @@ export function searchRepairs(design: Design, judged: Judgement, options: Repair
     if (states >= maxStates || performance.now() - started > budgetMs) stopped = true
     return stopped
   }
-  const attempt = (seams: readonly Seam[], edits: readonly Edit[], names: readonly string[]): Judgement | null => {
-    const change = edits.reduce((sum, edit) => sum + visibleChange(edit), 0)
-    if (!canEnter(change)) return null
-    const key = seamsKey(seams)
-    if (tried.has(key)) return null
-    if (outOfBudget()) return null
-    tried.add(key)
-    states += 1
-    const judgement = judgeSeams(design.ring, seams, design.leaves, sectionsBelow())
-    const better = judgement.sewable && (mode === 'repair' || judgement.sections < base.sections)
-    if (better && !foundDesigns.has(key)) {
-      foundDesigns.add(key)
-      const words = edits.map((edit, index) => describeEdit(edit, names[index] as string))
-      const joined = words.length === 1 ? words[0] : `${words[0]}, then ${(words[1] as string).charAt(0).toLowerCase()}${(words[1] as string).slice(1)}`
-      const saving = mode === 'fewer' ? ` instead of ${base.sections}` : ''
-      found.push({
-        edits,
-        seams,
-        sections: judgement.sections,
-        addedIn: round(edits.reduce((sum, edit) => sum + edit.addedIn, 0)),
-        movedIn: round(edits.reduce((sum, edit) => sum + (edit.kind === 'straighten' ? edit.movedIn : 0), 0)),
-        change: round(change),
-        key: edits.map(editKey).join(' + '),
-        message: `${joined}: sews in ${sectionsInWords(judgement.sections)}${saving}`,
-      })
-      found.sort(compareFound)
-      if (found.length > limit) found.length = limit
-    }
-    return judgement
+  const record = (candidate: Candidate, judgement: Judgement): void => {
+    if (foundDesigns.has(candidate.designKey)) return
+    foundDesigns.add(candidate.designKey)
+    const { edits, names } = candidate
+    const words = edits.map((edit, index) => describeEdit(edit, names[index] as string))
+    const joined = words.length === 1 ? words[0] : `${words[0]}, then ${(words[1] as string).charAt(0).toLowerCase()}${(words[1] as string).slice(1)}`
+    const saving = mode === 'fewer' ? ` instead of ${base.sections}` : ''
+    found.push({
+      edits,
+      seams: candidate.seams,
+      sections: judgement.sections,
+      addedIn: round(edits.reduce((sum, edit) => sum + edit.addedIn, 0)),
+      movedIn: round(edits.reduce((sum, edit) => sum + (edit.kind === 'straighten' ? edit.movedIn : 0), 0)),
+      change: candidate.change,
+      key: candidate.key,
+      message: `${joined}: sews in ${sectionsInWords(judgement.sections)}${saving}`,
+    })
+    found.sort(compareFound)
+    if (found.length > limit) found.length = limit
   }
+  /**
+   * Plans a batch of candidates: each is arranged once (one state), then the clean ones are
+   * searched for sections in passes of growing limits, so a change that sews in one section is
+   * found before any candidate pays for proving that it needs many. Returns the candidates that
+   * still do not sew, with what stops them, for a second edit.
+   */
+  const evaluate = (candidates: readonly Candidate[]): { candidate: Candidate; judgement: Judgement }[] => {
+    const stuck: { candidate: Candidate; judgement: Judgement }[] = []
+    const clean: { candidate: Candidate; prepared: Prepared; done: boolean }[] = []
+    for (const candidate of candidates) {
+      if (!canEnter(candidate.change) || tried.has(candidate.designKey)) continue
+      if (outOfBudget()) break
+      tried.add(candidate.designKey)
+      states += 1
+      const prepared = prepareSeams(design.ring, candidate.seams, design.leaves)
+      if (prepared.unplannable) continue
+      if (prepared.errors.length > 0) stuck.push({ candidate, judgement: judgePrepared(prepared) })
+      else clean.push({ candidate, prepared, done: false })
+    }
+    let searched = 1
+    for (const pass of SECTION_PASSES) {
+      for (const entry of clean) {
+        if (entry.done) continue
+        if (performance.now() - started > budgetMs) {
+          stopped = true
+          return stuck
+        }
+        const below = Math.min(pass, sectionsBelow())
+        // Plans of fewer than `searched` sections were looked for already; none above `below` count.
+        if (!canEnter(entry.candidate.change) || below <= searched) {
+          entry.done = true
+          continue
+        }
+        const judgement = judgePrepared(entry.prepared, below)
+        if (judgement.overLimit) continue
+        entry.done = true
+        if (judgement.sewable && (mode === 'repair' || judgement.sections < base.sections)) record(entry.candidate, judgement)
+        else if (!judgement.sewable && !judgement.searchLimit) stuck.push({ candidate: entry.candidate, judgement })
+      }
+      searched = pass
+    }
+    return stuck
+  }
+  const candidate = (seams: Seam[], edits: Edit[], names: string[]): Candidate => ({
+    seams,
+    edits,
+    names,
+    change: round(edits.reduce((sum, edit) => sum + visibleChange(edit), 0)),
+    key: edits.map(editKey).join(' + '),
+    designKey: seamsKey(seams),
+  })
   // Straightenings first (they tend to keep a design in one section, which bounds the rest of
   // the search early), then by visible change, then by the change's key.
   const byChange = (edits: Edit[]): Edit[] =>
@@ -180,25 +237,19 @@ export function searchRepairs(design: Design, judged: Judgement, options: Repair
       .sort((p, q) => p.first - q.first || p.change - q.change || (p.key < q.key ? -1 : p.key > q.key ? 1 : 0))
       .map(({ edit }) => edit)
   // One edit.
-  const unsewable: { edit: Edit; seams: Seam[]; judgement: Judgement; name: string }[] = []
-  for (const edit of byChange(candidateEdits(design.ring, base, mode))) {
-    const seams = applyEdit(design.seams, edit)
-    const name = newSeamId(design.seams)
-    const judgement = attempt(seams, [edit], [name])
-    if (judgement && !judgement.sewable && !judgement.searchLimit && !judgement.overLimit && judgement.errors.every((problem) => REPAIRABLE.has(problem.code))) unsewable.push({ edit, seams, judgement, name })
-    if (stopped) break
-  }
+  const name = newSeamId(design.seams)
+  const unsewable = evaluate(byChange(candidateEdits(design.ring, base, mode)).map((edit) => candidate(applyEdit(design.seams, edit), [edit], [name])))
   // Two edits: a second change where the first left the design unsewable, closest to sewing first;
   // not when one edit already sews in one section (a second edit cannot beat that by sections).
   if (mode === 'repair' && !stopped && !(found.length > 0 && (found[0] as Found).sections === 1)) {
-    unsewable.sort((p, q) => p.judgement.errors.length - q.judgement.errors.length || visibleChange(p.edit) - visibleChange(q.edit) || (editKey(p.edit) < editKey(q.edit) ? -1 : 1))
-    for (const first of unsewable) {
-      for (const edit of byChange(candidateEdits(design.ring, first.judgement, 'repair'))) {
-        attempt(applyEdit(first.seams, edit), [first.edit, edit], [first.name, newSeamId(first.seams)])
-        if (stopped) break
-      }
-      if (stopped) break
-    }
+    const firsts = unsewable
+      .filter(({ judgement }) => judgement.errors.every((problem) => REPAIRABLE.has(problem.code)))
+      .sort((p, q) => p.judgement.errors.length - q.judgement.errors.length || p.candidate.change - q.candidate.change || (p.candidate.key < q.candidate.key ? -1 : 1))
+    const seconds = firsts.flatMap(({ candidate: first, judgement }) => {
+      const next = newSeamId(first.seams)
+      return byChange(candidateEdits(design.ring, judgement, 'repair')).map((edit) => candidate(applyEdit(first.seams, edit), [...first.edits, edit], [...first.names, next]))
+    })
+    evaluate(seconds)
   }
   return {
     suggestions: found.map((f) => ({ message: f.message, seams: f.seams, sections: f.sections, addedLengthIn: f.addedIn, movedIn: f.movedIn })),
