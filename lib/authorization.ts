@@ -1,6 +1,7 @@
 import type { Role } from '@/lib/roles'
 import type { PatternState } from '@/lib/schemas/pattern'
 import { ForbiddenError, NotFoundError, UnauthenticatedError } from '@/lib/errors'
+import type { UploadKind } from '@/models/upload'
 
 /**
  * Every permission rule of Wreathwright, in one place. Pages, route handlers, server actions and
@@ -24,10 +25,17 @@ export interface UploadFacts {
    * nobody else sees it.
    */
   readonly designPatterns?: readonly PatternFacts[]
+  /** What the upload is for. Left out, it counts as no cover (so it is never public). */
+  readonly kind?: UploadKind
+  /**
+   * For a cover: the patterns that show it as their cover, each with whether an admin hid its
+   * listing (lib/services/uploads.ts looks them up). Left out, it is shown to nobody else.
+   */
+  readonly coverOf?: readonly (PatternFacts & { readonly hidden: boolean })[]
 }
 
-/** What an upload is for: a designer's theme-fabric photos and swatches (covers and report photos later). */
-export type UploadPurpose = 'fabric-photo' | 'swatch' | 'report-photo'
+/** What an upload is for: a designer's theme-fabric photos, swatches and shop covers; testers' report photos. */
+export type UploadPurpose = 'fabric-photo' | 'swatch' | 'report-photo' | 'cover'
 
 /** An order of the shop, as far as permissions care (models/order.ts). */
 export interface OrderFacts {
@@ -171,13 +179,14 @@ const rules: Rules = {
   // Taking a published pattern's listing out of the shop (and back): admins only, recorded in the
   // audit log. Looking at the shop needs no rule: it is open to everyone, signed in or not.
   'hide-listing': (actor) => isAdmin(actor),
-  // Theme-fabric photos and swatches serve pattern design.
+  // Theme-fabric photos and swatches serve pattern design; covers, a pattern's listing in the shop.
   // A report photo may come from anyone signed in (testers need no role); it stays private to
   // them until a report of a pattern they test shows it.
   'upload-image': (actor, purpose) => purpose === 'report-photo' || hasRole(actor, 'designer') || isAdmin(actor),
   // Uploads are private to their owner; admins may look at any (e.g. to review what was reported).
   // A report's photos are also shown to the pattern's designer and its testers.
   'read-upload': (actor, upload) =>
+    isPublicUpload(upload) ||
     upload.ownerId === actor.id ||
     isAdmin(actor) ||
     (upload.reportPatterns ?? []).some((pattern) => pattern.ownerId === actor.id || isTesterOf(actor, pattern)) ||
@@ -208,6 +217,18 @@ const rules: Rules = {
 /** The owner of a sewing project who still holds the licence or invitation it is made under. */
 function holdsSewingGrant(actor: NonNullable<Actor>, project: SewingProjectFacts): boolean {
   return project.ownerId === actor.id && (isLicenceHolderOf(actor, project.pattern) || isTesterOf(actor, project.pattern))
+}
+
+/**
+ * Whether everyone, signed in or not, may read an upload: only a cover, and only while a pattern
+ * that shows it is listed in the shop (published, not hidden by an admin) — the shop shows it to
+ * visitors. No other kind of upload is ever public. The uploads service asks this before it asks
+ * `authorize(actor, 'read-upload', …)`, which needs someone signed in.
+ *
+ * @example isPublicUpload({ ownerId: 'u1', kind: 'cover', coverOf: [{ ownerId: 'u1', state: 'published', hidden: false }] }) // true
+ */
+export function isPublicUpload(upload: UploadFacts): boolean {
+  return upload.kind === 'cover' && (upload.coverOf ?? []).some((pattern) => pattern.state === 'published' && !pattern.hidden)
 }
 
 type ResourceOf<A extends Action> = Parameters<Rules[A]> extends [unknown, infer R] ? [resource: R] : []

@@ -18,6 +18,13 @@ export const MAX_UPLOAD_BYTES = 10 * 1024 * 1024
 /** The longest side of a stored image, in pixels: sharp enough to judge a print, small to serve. */
 export const MAX_IMAGE_SIDE = 1600
 /**
+ * The longest side of a stored shop cover, in pixels: the shop's cards show a cover at most about
+ * 320 CSS pixels wide and a pattern's page about 480, so 960 is sharp at twice the density of the
+ * screen (common practice for "retina" screens) while a page of twelve cards stays light. Stored at
+ * this size when uploaded, so no page resizes an image per request.
+ */
+export const MAX_COVER_SIDE = 960
+/**
  * The most pixels decoded, checked from the header before decoding: a small file can announce a
  * huge image (a "decompression bomb"). 50 megapixels is well above any phone camera's photo.
  */
@@ -53,8 +60,8 @@ export interface PreparedImage {
   readonly height: number
 }
 
-/** The image decoded, upright, fitted in MAX_IMAGE_SIDE and re-encoded without metadata; 422 if it does not decode. */
-export async function prepareImage(bytes: Uint8Array, contentType: ImageType): Promise<PreparedImage> {
+/** The image decoded, upright, fitted in `maxSide` (MAX_IMAGE_SIDE unless told) and re-encoded without metadata; 422 if it does not decode. */
+export async function prepareImage(bytes: Uint8Array, contentType: ImageType, maxSide: number = MAX_IMAGE_SIDE): Promise<PreparedImage> {
   const name = TYPE_NAMES[contentType]
   // failOn 'error': a truncated or corrupt image is refused, a harmless warning is not.
   const input = () => sharp(bytes, { failOn: 'error', limitInputPixels: MAX_INPUT_PIXELS })
@@ -71,7 +78,7 @@ export async function prepareImage(bytes: Uint8Array, contentType: ImageType): P
   }
   const pipeline = input()
     .rotate()
-    .resize({ width: MAX_IMAGE_SIDE, height: MAX_IMAGE_SIDE, fit: 'inside', withoutEnlargement: true })
+    .resize({ width: maxSide, height: maxSide, fit: 'inside', withoutEnlargement: true })
   const encoded =
     contentType === 'image/jpeg'
       ? pipeline.jpeg({ quality: 85, mozjpeg: true })

@@ -60,6 +60,13 @@ export const MAX_UPLOAD_KEY_LENGTH = 200
  */
 export const MAX_STORED_UPLOAD_BYTES_PER_USER = 200_000_000
 
+/**
+ * A pattern's skill notes in the shop (what it asks of a quilter): characters, a paragraph or two,
+ * not the booklet. Our choice; the table's check (migrations/20261202-0130-shop-listings.ts) holds
+ * the same number.
+ */
+export const MAX_SKILL_NOTES_LENGTH = 2000
+
 /** The longest number JSON.stringify writes: `-1.2345678901234567e-308`, 24 characters. */
 const LONGEST_NUMBER = 24
 /**

@@ -36,6 +36,8 @@ export class Pattern extends Model<InferAttributes<Pattern>, InferCreationAttrib
   declare publishedAt: CreationOptional<Date | null>
   /** When an admin hid the listing from the shop (lib/services/shop-listings.ts); NULL when listed. */
   declare hiddenAt: CreationOptional<Date | null>
+  /** The designer's uploaded cover (an upload of kind `cover`, migration 20261202-0170); NULL: the shop draws the ring. */
+  declare coverUploadId: CreationOptional<string | null>
   /** Goes up by one on every save; a save names the revision it started from. */
   declare revision: CreationOptional<number>
   declare createdAt: CreationOptional<Date>
@@ -60,6 +62,7 @@ export function initPattern(sequelize: Sequelize): void {
       skillNotes: { type: DataTypes.TEXT, allowNull: true },
       publishedAt: { type: DataTypes.DATE, allowNull: true },
       hiddenAt: { type: DataTypes.DATE, allowNull: true },
+      coverUploadId: { type: DataTypes.UUID, allowNull: true },
       revision: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 1 },
       createdAt: DataTypes.DATE,
       updatedAt: DataTypes.DATE,

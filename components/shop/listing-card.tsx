@@ -3,14 +3,14 @@ import type { ShopListing } from '@/lib/schemas/shop-listings'
 import { formatPrice } from '@/lib/shop/price'
 import { ColorwaySwatches } from './colorway-swatches'
 import { finishedSize } from './finished-size'
-import { RingCover } from './ring-cover'
+import { ListingCover } from './listing-cover'
 
-/** One pattern in the shop's list: its cover in the first colourway, name, designer, size, repeats, colourways and price. */
+/** One pattern in the shop's list: its cover (uploaded, or the ring in the first colourway), name, designer, size, repeats, colourways and price. */
 export function ListingCard({ listing, cover }: { listing: ShopListing; cover: string | null }) {
   return (
     <li className="flex flex-col gap-2 rounded-lg border border-linen-200 bg-white p-4 shadow-sm" data-testid="listing-card">
       <Link href={`/shop/${listing.id}`} className="group space-y-3">
-        <RingCover svg={cover} label={`${listing.name}, ${listing.colorways[0]?.name ?? 'no colourway'}`} className="mx-auto w-full max-w-64" />
+        <ListingCover listing={listing} svg={cover} label={listing.coverUrl ? `${listing.name}, cover` : `${listing.name}, ${listing.colorways[0]?.name ?? 'no colourway'}`} className="mx-auto w-full max-w-64" />
         <h2 className="text-lg font-semibold text-thread-800 group-hover:underline">{listing.name}</h2>
       </Link>
       <p className="text-sm text-stone-700">by {listing.designer ?? 'a former designer'}</p>

@@ -1,6 +1,6 @@
 import { z } from 'zod'
 import type { FieldIssue } from '@/lib/errors'
-import { MAX_REPEATS, MIN_REPEATS } from '@/lib/limits'
+import { MAX_REPEATS, MAX_SKILL_NOTES_LENGTH, MIN_REPEATS } from '@/lib/limits'
 import { COLOUR_FAMILIES } from '@/lib/shop/colour-families'
 import { MAX_PRICE_CENTS, PATTERN_CURRENCIES } from './pattern'
 import { text } from './text'
@@ -87,13 +87,10 @@ export function readShopQuery(
 /** `PATCH /api/admin/listings/:id { hidden }`: take a listing out of the shop, or put it back. */
 export const listingVisibilitySchema = z.object({ hidden: z.boolean({ error: 'Say true or false.' }) }).strict()
 
-/** Longest skill notes, characters (the table's check, migrations/20261202-0130-…, says the same). */
-const MAX_SKILL_NOTES = 2000
-
 /** A pattern's skill notes: a paragraph or two, line breaks kept; empty or null clears them. */
 export const skillNotesSchema = z.preprocess(
   blankAsAbsent,
-  text({ max: MAX_SKILL_NOTES, multiline: true, messages: { tooLong: `Keep the skill notes to ${MAX_SKILL_NOTES} characters.` } }).nullable().optional(),
+  text({ max: MAX_SKILL_NOTES_LENGTH, multiline: true, messages: { tooLong: `Keep the skill notes to ${MAX_SKILL_NOTES_LENGTH} characters.` } }).nullable().optional(),
 ).transform((notes) => notes ?? null)
 
 /** A colourway on a card: its name and its fabrics' colours. */
@@ -113,6 +110,8 @@ export const shopListingSchema = z.object({
   colorways: z.array(colorwaySwatchesSchema),
   colourFamilies: z.array(z.enum(COLOUR_FAMILIES)),
   skillNotes: z.string().nullable(),
+  /** The designer's uploaded cover (`GET /api/shop/covers/:id`, open to everyone); null: the ring drawn from the design is the cover. */
+  coverUrl: z.string().nullable(),
   /** The design's revision: covers are drawn (and cached) per revision and colourway. */
   revision: z.number().int(),
   publishedAt: z.string().nullable(),

@@ -1,8 +1,8 @@
 import { z } from 'zod'
 
-/** What an upload is for, as the upload address names it (`?kind=`): covers and report photos come later. */
-export const uploadPurposeSchema = z.enum(['fabric-photo', 'swatch', 'report-photo'], {
-  error: 'Say what the image is for: kind=fabric-photo, kind=swatch or kind=report-photo.',
+/** What an upload is for, as the upload address names it (`?kind=`). */
+export const uploadPurposeSchema = z.enum(['fabric-photo', 'swatch', 'report-photo', 'cover'], {
+  error: 'Say what the image is for: kind=fabric-photo, kind=swatch, kind=report-photo or kind=cover.',
 })
 
 /** An upload as the API answers it; `url` serves the image to its owner. */

@@ -5,11 +5,13 @@ import { database } from '@/lib/db'
 import { NotFoundError, ValidationError } from '@/lib/errors'
 import { fieldIssues } from '@/lib/http'
 import { parseDesign } from '@/lib/schemas/design'
+import { coverUrl, type ListingSettings, type ListingSettingsInput } from '@/lib/schemas/listing-settings'
 import { patternIdSchema } from '@/lib/schemas/pattern'
 import { SHOP_PAGE_SIZE, skillNotesSchema, type ShopListing, type ShopListingPage, type ShopListingQuery, type ShopSort } from '@/lib/schemas/shop-listings'
 import { ringCoverSvg } from '@/lib/shop/cover-svg'
-import { AdminAuditEntry, Pattern, User } from '@/models'
+import { AdminAuditEntry, Pattern, Upload, User } from '@/models'
 import { readablePattern } from './patterns'
+import { forgetUnusedCover, removeStoredObject } from './uploads'
 
 /**
  * The shop's listings: published patterns that no admin hid, open to everyone (no sign-in), read
@@ -20,7 +22,7 @@ import { readablePattern } from './patterns'
 
 /** What a listing reads of a pattern: no design. */
 const LISTING_COLUMNS = [
-  'id', 'name', 'ownerId', 'priceCents', 'currency', 'repeats', 'outerDiameterInches', 'colorwaySwatches', 'colourFamilies', 'skillNotes', 'revision', 'publishedAt',
+  'id', 'name', 'ownerId', 'priceCents', 'currency', 'repeats', 'outerDiameterInches', 'colorwaySwatches', 'colourFamilies', 'skillNotes', 'coverUploadId', 'revision', 'publishedAt',
 ] satisfies (keyof Pattern)[]
 
 /** Listed: on sale, priced, and not taken out of the shop by an admin. */
@@ -40,6 +42,7 @@ function toListing(pattern: PatternWithOwner): ShopListing {
     colorways: pattern.colorwaySwatches.map(({ name, colours }) => ({ name, colours: [...colours] })),
     colourFamilies: pattern.colourFamilies,
     skillNotes: pattern.skillNotes ?? null,
+    coverUrl: pattern.coverUploadId ? coverUrl(pattern.coverUploadId) : null,
     revision: pattern.revision,
     publishedAt: pattern.publishedAt?.toISOString() ?? null,
   }
@@ -212,6 +215,66 @@ export async function setListingHidden(actor: Actor, id: string, hidden: boolean
   })
 }
 
+// The designer's listing settings: skill notes and the uploaded cover.
+
+/** The settings as the designer's form shows them; the cover's size read from its upload. */
+async function listingSettingsOf(pattern: Pattern, transaction?: Transaction): Promise<ListingSettings> {
+  const upload = pattern.coverUploadId ? await Upload.findByPk(pattern.coverUploadId, { attributes: ['id', 'width', 'height'], transaction }) : null
+  return {
+    skillNotes: pattern.skillNotes ?? null,
+    cover: upload ? { uploadId: upload.id, url: coverUrl(upload.id), width: upload.width, height: upload.height } : null,
+  }
+}
+
+/**
+ * A pattern's listing settings (skill notes, uploaded cover), for its designer or an admin: 404 to
+ * those who may not see the pattern, 403 to those who see it but may not change it.
+ *
+ * @example await getListingSettings(designer, patternId) // { skillNotes: 'Curved seams.', cover: null }
+ */
+export async function getListingSettings(actor: Actor, id: string): Promise<ListingSettings> {
+  const { pattern, facts } = await readablePattern(actor, id)
+  authorize(actor, 'update-pattern', facts)
+  return listingSettingsOf(pattern)
+}
+
+/**
+ * Changes a pattern's listing settings, its designer or an admin (as for any change of the
+ * pattern): the skill notes (null clears them) and the cover (an upload of kind `cover` by the
+ * person setting it or by the pattern's designer; null takes it off, and the shop draws the ring
+ * again). A field left out stays. A cover no pattern shows any more is removed from the store, so
+ * that replaced covers do not use up the designer's storage quota.
+ *
+ * @example await setListingSettings(designer, patternId, { skillNotes: 'Curved seams.', coverUploadId: upload.id })
+ */
+export async function setListingSettings(actor: Actor, id: string, input: ListingSettingsInput): Promise<ListingSettings> {
+  const removed: string[] = []
+  const settings = await database().transaction(async (transaction) => {
+    const { pattern, facts } = await readablePattern(actor, id, transaction)
+    authorize(actor, 'update-pattern', facts)
+    const changes: Partial<Pick<Pattern, 'skillNotes' | 'coverUploadId'>> = {}
+    if (input.skillNotes !== undefined) changes.skillNotes = input.skillNotes
+    if (input.coverUploadId !== undefined && input.coverUploadId !== pattern.coverUploadId) {
+      if (input.coverUploadId !== null) {
+        const upload = await Upload.findByPk(input.coverUploadId, { attributes: ['id', 'ownerId', 'kind'], transaction })
+        const usable = upload && upload.kind === 'cover' && (upload.ownerId === actor.id || upload.ownerId === pattern.ownerId)
+        if (!usable) throw new ValidationError([{ path: 'coverUploadId', message: 'No cover image of yours has this id: upload the image as a cover first.' }])
+      }
+      changes.coverUploadId = input.coverUploadId
+    }
+    const previousCover = pattern.coverUploadId
+    if (Object.keys(changes).length > 0) await pattern.update(changes, { transaction, hooks: false })
+    if (changes.coverUploadId !== undefined && previousCover) {
+      const key = await forgetUnusedCover(previousCover, transaction)
+      if (key) removed.push(key)
+    }
+    return listingSettingsOf(pattern, transaction)
+  })
+  // Only once the rows are gone for good: a rolled-back change keeps its image.
+  await Promise.all(removed.map(removeStoredObject))
+  return settings
+}
+
 /**
  * Sets the pattern's skill notes (what it asks of a quilter, shown in the shop), or clears them
  * with null: its designer or an admin, as for any change of the pattern.
@@ -221,9 +284,5 @@ export async function setListingHidden(actor: Actor, id: string, hidden: boolean
 export async function setSkillNotes(actor: Actor, id: string, notes: string | null): Promise<void> {
   const parsed = skillNotesSchema.safeParse(notes)
   if (!parsed.success) throw new ValidationError(fieldIssues(parsed.error).map((issue) => ({ ...issue, path: 'skillNotes' })))
-  await database().transaction(async (transaction) => {
-    const { pattern, facts } = await readablePattern(actor, id, transaction)
-    authorize(actor, 'update-pattern', facts)
-    await Pattern.update({ skillNotes: parsed.data }, { where: { id: pattern.id }, transaction })
-  })
+  await setListingSettings(actor, id, { skillNotes: parsed.data })
 }

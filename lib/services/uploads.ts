@@ -1,17 +1,17 @@
 import 'server-only'
 import { randomUUID } from 'node:crypto'
 import type { Transaction } from 'sequelize'
-import { authorize, type Actor, type UploadPurpose } from '@/lib/authorization'
+import { authorize, isPublicUpload, type Actor, type UploadFacts, type UploadPurpose } from '@/lib/authorization'
 import { database } from '@/lib/db'
 import { NotFoundError, ServiceError } from '@/lib/errors'
-import { prepareImage, proposePalette, sniffImageType } from '@/lib/images'
+import { MAX_COVER_SIDE, MAX_IMAGE_SIDE, prepareImage, proposePalette, sniffImageType } from '@/lib/images'
 import { MAX_STORED_UPLOAD_BYTES_PER_USER } from '@/lib/limits'
 import { deleteObject, getObject, objectKey, putObject } from '@/lib/object-store'
 import { countUpload } from '@/lib/rate-limits'
 import { reportPatternsOfPhoto } from '@/lib/services/reports'
 import { testedPatternsShowing } from '@/lib/services/testers'
 import type { UploadView } from '@/lib/schemas/upload'
-import { Upload } from '@/models'
+import { Pattern, Upload } from '@/models'
 
 /**
  * Uploaded images: checked, remade (lib/images.ts) and stored in the object store, with a row in
@@ -70,7 +70,8 @@ async function lockUploadsOf(userId: string, transaction: Transaction): Promise<
 export async function createUpload(actor: Actor, purpose: UploadPurpose, bytes: Uint8Array, declaredType: string | null): Promise<UploadView> {
   authorize(actor, 'upload-image', purpose)
   const contentType = await sniffImageType(bytes, declaredType)
-  const image = await prepareImage(bytes, contentType)
+  // A cover is stored at the size the shop shows it, so no page resizes it per request.
+  const image = await prepareImage(bytes, contentType, purpose === 'cover' ? MAX_COVER_SIDE : MAX_IMAGE_SIDE)
   const palette = purpose === 'fabric-photo' ? await proposePalette(image) : null
   const id = randomUUID()
   const key = objectKey(`uploads/${actor.id}/${purpose}/${id}.${EXTENSIONS[contentType]}`)
@@ -136,6 +137,49 @@ export async function authorizeUploadRead(actor: Actor, id: string): Promise<Upl
   return upload
 }
 
+/** The patterns that show an upload as their cover, as the permission rules need them (lib/authorization.ts `isPublicUpload`). */
+async function patternsShowingCover(uploadId: string): Promise<NonNullable<UploadFacts['coverOf']>> {
+  const patterns = await Pattern.findAll({ where: { coverUploadId: uploadId }, attributes: ['ownerId', 'state', 'hiddenAt'] })
+  return patterns.map((pattern) => ({ ownerId: pattern.ownerId, state: pattern.state, hidden: pattern.hiddenAt !== null }))
+}
+
+/**
+ * A cover image, if the actor may read it: everyone (signed in or not) while a pattern showing it
+ * is listed in the shop; otherwise as any upload (its owner, admins). Anything else, another kind
+ * of upload included, is 404 alike: this address serves covers only.
+ *
+ * @example const upload = await authorizeCoverRead(null, listing.coverUploadId)
+ */
+export async function authorizeCoverRead(actor: Actor, id: string): Promise<{ upload: Upload; isPublic: boolean }> {
+  database()
+  const upload = UUID.test(id) ? await Upload.findByPk(id) : null
+  if (!upload || upload.kind !== 'cover') throw new NotFoundError('No such cover.')
+  const facts: UploadFacts = { ownerId: upload.ownerId, kind: upload.kind, coverOf: await patternsShowingCover(upload.id) }
+  if (isPublicUpload(facts)) return { upload, isPublic: true }
+  if (!actor) throw new NotFoundError('No such cover.')
+  authorize(actor, 'read-upload', facts)
+  return { upload, isPublic: false }
+}
+
+/**
+ * Removes a cover upload no pattern shows any more (replaced or taken off), so that old covers do
+ * not use up the designer's storage quota: its row in the caller's transaction; the caller removes
+ * the object, whose key this returns, once that transaction has committed. Null when it stays
+ * (another pattern still shows it, or it is not a cover).
+ */
+export async function forgetUnusedCover(uploadId: string, transaction: Transaction): Promise<string | null> {
+  const upload = await Upload.findByPk(uploadId, { attributes: ['id', 'kind', 'key'], transaction })
+  if (!upload || upload.kind !== 'cover') return null
+  if ((await Pattern.count({ where: { coverUploadId: uploadId }, transaction })) > 0) return null
+  await Upload.destroy({ where: { id: uploadId }, transaction })
+  return upload.key
+}
+
+/** Removes an object whose row is gone; a failure is logged (the object is then only a stray file in the store). */
+export async function removeStoredObject(key: string): Promise<void> {
+  await deleteObject(key).catch((error: Error) => console.error(`uploads: could not remove ${key}: ${error.message}`))
+}
+
 /** The actor's own uploads of one kind, newest first. */
 export async function listOwnUploads(actor: Actor, purpose: UploadPurpose): Promise<UploadView[]> {
   authorize(actor, 'upload-image', purpose)
@@ -144,14 +188,19 @@ export async function listOwnUploads(actor: Actor, purpose: UploadPurpose): Prom
   return uploads.map(toView)
 }
 
-/** The stored image as an answer: its type, no sniffing, never cached by others. */
-export async function uploadResponse(upload: Upload): Promise<Response> {
+/**
+ * The stored image as an answer: its type, no sniffing, never cached by others — but a cover the
+ * shop shows to everyone (`isPublic`) may be kept by any cache for five minutes: its address names
+ * the upload, whose bytes never change, and five minutes bounds how long it still shows after the
+ * pattern leaves the shop (our choice).
+ */
+export async function uploadResponse(upload: Upload, options: { isPublic?: boolean } = {}): Promise<Response> {
   const object = await getObject(upload.key)
   if (!object) throw new NotFoundError('The image of this upload is missing from the store.')
   const headers = new Headers({
     'content-type': upload.contentType,
     'x-content-type-options': 'nosniff',
-    'cache-control': 'private, no-store',
+    'cache-control': options.isPublic ? 'public, max-age=300' : 'private, no-store',
     'content-disposition': `inline; filename="${upload.id}.${EXTENSIONS[upload.contentType]}"`,
   })
   if (object.length !== undefined) headers.set('content-length', String(object.length))

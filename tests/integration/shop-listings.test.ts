@@ -86,6 +86,7 @@ describe('the shop’s listing API', () => {
         ],
         colourFamilies: ['greens', 'blues', 'neutrals'],
         skillNotes: null,
+        coverUrl: null,
         revision: listed.revision,
         publishedAt: listed.publishedAt!.toISOString(),
       },

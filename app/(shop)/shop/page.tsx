@@ -27,7 +27,10 @@ export default async function ShopPage({ searchParams }: { searchParams: Promise
   // A query the shop cannot read (a hand-edited address) shows what was wrong, above the whole list.
   const query = read.ok ? read.query : shopListingQuerySchema.parse({})
   const list = await listShopPatterns(query)
-  const covers = await shopCovers(list.patterns.map((listing) => ({ listing, colorway: listing.colorways[0]?.name ?? '' })))
+  // A listing with an uploaded cover shows that image: no ring to draw for it.
+  const drawn = list.patterns.filter((listing) => !listing.coverUrl)
+  const rings = await shopCovers(drawn.map((listing) => ({ listing, colorway: listing.colorways[0]?.name ?? '' })))
+  const covers = new Map(drawn.map((listing, index) => [listing.id, rings[index] ?? null]))
   const filtered = Boolean(query.q || query.designer || query.colour || query.repeats || query.minPriceCents !== undefined || query.maxPriceCents !== undefined)
   return (
     <article className="mx-auto max-w-6xl space-y-5">
@@ -52,8 +55,8 @@ export default async function ShopPage({ searchParams }: { searchParams: Promise
       </p>
       {list.patterns.length > 0 && (
         <ul className="grid gap-5 sm:grid-cols-2 lg:grid-cols-3">
-          {list.patterns.map((listing, index) => (
-            <ListingCard key={listing.id} listing={listing} cover={covers[index] ?? null} />
+          {list.patterns.map((listing) => (
+            <ListingCard key={listing.id} listing={listing} cover={covers.get(listing.id) ?? null} />
           ))}
         </ul>
       )}

@@ -5,6 +5,7 @@ import { BuyButton } from '@/components/shop/buy-button'
 import { ColorwaySwatches } from '@/components/shop/colorway-swatches'
 import { finishedSize } from '@/components/shop/finished-size'
 import { HideListingButton } from '@/components/shop/hide-listing-button'
+import { ListingCover } from '@/components/shop/listing-cover'
 import { RingCover } from '@/components/shop/ring-cover'
 import { getCurrentUser } from '@/lib/auth/current-user'
 import { can } from '@/lib/authorization'
@@ -58,6 +59,8 @@ export default async function ShopPatternPage({ params }: Props) {
           <BuyButton patternId={listing.id} price={price} signInHref={user ? null : signInPathFor(`/shop/${listing.id}`)} />
         </div>
       </header>
+      {/* The designer's uploaded cover, when set; the rings in every colourway follow below either way. */}
+      {listing.coverUrl && <ListingCover listing={listing} svg={null} label={`${listing.name}, cover`} eager className="w-full max-w-sm" />}
       <dl className="grid max-w-2xl grid-cols-[auto_1fr] gap-x-6 gap-y-1 text-sm">
         <dt className="text-stone-500">Finished size</dt>
         <dd>{finishedSize(listing.finishedDiameterIn)} as designed; the print room prints it at any size</dd>

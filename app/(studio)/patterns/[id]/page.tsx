@@ -1,6 +1,7 @@
 import type { Metadata } from 'next'
 import Link from 'next/link'
 import { redirect } from 'next/navigation'
+import { ListingSettingsForm } from '@/components/patterns/listing-settings'
 import { PatternStateControls, PriceForm } from '@/components/patterns/pattern-life'
 import { STATE_NAMES } from '@/components/patterns/pattern-life-words'
 import { TesterInvitations } from '@/components/patterns/tester-invitations'
@@ -12,6 +13,7 @@ import { StoredDesignError } from '@/lib/errors'
 import { loadForPatternPage } from '@/lib/pattern-page'
 import { listInvitations } from '@/lib/services/invitations'
 import { getPattern, listRevisions, listStateChanges } from '@/lib/services/patterns'
+import { getListingSettings } from '@/lib/services/shop-listings'
 
 export const metadata: Metadata = { title: 'Pattern' }
 
@@ -23,7 +25,7 @@ export default async function PatternPage({ params }: { params: Promise<{ id: st
   const [pattern, revisions] = loaded
   // A designer who tests someone else's pattern reads it on the tester's page.
   if (!can(user, 'update-pattern', { ownerId: pattern.ownerId, state: pattern.state })) redirect(`/testing/${pattern.id}`)
-  const [stateChanges, invitations] = await Promise.all([listStateChanges(user, id), listInvitations(user, id)])
+  const [stateChanges, invitations, listing] = await Promise.all([listStateChanges(user, id), listInvitations(user, id), getListingSettings(user, id)])
   const { ring } = pattern.design
   const unit = pattern.design.units
   return (
@@ -77,6 +79,23 @@ export default async function PatternPage({ params }: { params: Promise<{ id: st
           publishing also needs a price.
         </p>
         <PriceForm patternId={pattern.id} revision={pattern.revision} priceCents={pattern.priceCents ?? null} currency={pattern.currency ?? null} />
+      </section>
+      <section aria-labelledby="listing-heading" className="space-y-3 rounded-lg border border-linen-200 bg-white p-6">
+        <h2 id="listing-heading" className="text-lg font-semibold">
+          In the shop
+        </h2>
+        <p className="max-w-xl text-sm text-stone-600">
+          What quilters see with the pattern once it is published.
+          {pattern.state === 'published' && (
+            <>
+              {' '}
+              <Link href={`/shop/${pattern.id}`} className="text-thread-700 hover:underline">
+                See it in the shop
+              </Link>
+            </>
+          )}
+        </p>
+        <ListingSettingsForm patternId={pattern.id} settings={listing} />
       </section>
       <section aria-labelledby="testers-heading" className="space-y-3 rounded-lg border border-linen-200 bg-white p-6">
         <h2 id="testers-heading" className="text-lg font-semibold">
