@@ -22,6 +22,7 @@ import { parseDesign } from '../lib/schemas/design'
 import type { ReportKind, ReportPlace, ReportSeverity } from '../lib/schemas/report'
 import { AdminAuditEntry, Invitation, OutgoingMail, Pattern, PatternRevision, Report, ReportMessage, ReportPhoto, User } from '../models'
 import type { ReportAuthorRole } from '../models/report-message'
+import { seedDemoCovers } from './demo-covers'
 import { storeDemoPhotos, type DemoPhoto } from './demo-photos'
 import type { AdminAction } from '../models/admin-audit-entry'
 import { hollyberryWreath } from './demo-wreath'
@@ -364,6 +365,8 @@ export async function seedDemoData(): Promise<{ people: number; patterns: number
     }
     reports = await seedTestRound(owners, transaction)
     sales = await seedSeasonSales(transaction)
+    // Two of the season's patterns show an uploaded cover in the shop (generated pictures).
+    await seedDemoCovers(transaction)
   })
   return { people, patterns, reports, sales }
 }

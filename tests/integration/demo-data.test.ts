@@ -4,6 +4,7 @@ import { Op } from 'sequelize'
 import { testerIdsOf } from '@/lib/services/testers'
 import { AdminAuditEntry, Invitation, Licence, Order, OutgoingMail, Pattern, PatternRevision, PaymentEvent, Report, ReportMessage, ReportPhoto, Upload, User } from '@/models'
 import { DEMO_CROWD_SIZE, DEMO_PATTERNS, DEMO_PEOPLE, DEMO_PEOPLE_IN_STATES, DEMO_REPORTS, DEMO_TEST_ROUND, demoCrowd, seedDemoData } from '@/scripts/demo-data'
+import { DEMO_COVERS } from '@/scripts/demo-covers'
 import { DEMO_SALES, DEMO_SEASON_PATTERNS } from '@/scripts/demo-season'
 import { listLibrary } from '@/lib/services/licences'
 import { listSales } from '@/lib/services/sales'
@@ -139,7 +140,22 @@ describe('demo data', () => {
       // Each photo belongs to the tester whose report shows it, and its object is in the store.
       expect(upload.ownerId).toBe(report.testerId)
     }
-    expect((await storedKeys()).sort()).toEqual(uploads.map((upload) => upload.key).sort())
+    // Every stored object is an upload's: the report photos, and the season's covers.
+    expect((await storedKeys()).sort()).toEqual((await Upload.findAll()).map((upload) => upload.key).sort())
+  })
+
+  it('gives two of the season’s patterns an uploaded cover, owned by their designer and stored; the demo wreath keeps its drawn ring', async () => {
+    await seedDemoData()
+    const shop = await listShopPatterns({ sort: 'newest', page: 1 })
+    const withCover = shop.patterns.filter((listing) => listing.coverUrl)
+    expect(withCover.map((listing) => listing.name).sort()).toEqual(DEMO_COVERS.map((cover) => cover.pattern).sort())
+    expect(shop.patterns.find((listing) => listing.name === 'Hollyberry Wreath')?.coverUrl).toBeNull()
+    for (const listing of withCover) {
+      const pattern = await Pattern.findByPk(listing.id)
+      const upload = await Upload.findByPk(pattern!.coverUploadId!)
+      expect([upload!.kind, upload!.ownerId]).toEqual(['cover', pattern!.ownerId])
+      expect(await storedKeys()).toContain(upload!.key)
+    }
   })
 
   it('fills the shop for a season: patterns on sale in several colour families, repeats, prices and currencies, each with skill notes', async () => {
