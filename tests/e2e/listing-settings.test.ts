@@ -59,7 +59,7 @@ describe('the designer’s listing settings', () => {
     await settings.getByTestId('no-cover').waitFor()
 
     // Too long: refused beside the field, before anything is sent.
-    const notes = settings.getByLabel('Skill notes')
+    const notes = settings.getByRole('textbox', { name: 'Skill notes' })
     await notes.fill('x'.repeat(MAX_SKILL_NOTES_LENGTH + 1))
     await settings.getByRole('button', { name: 'Save the skill notes' }).click()
     await settings.getByText(`Keep the skill notes to ${MAX_SKILL_NOTES_LENGTH} characters.`).waitFor()
