@@ -2,7 +2,8 @@ import { describe, expect, it } from 'vitest'
 import { leafLayers } from '@/geometry'
 import { asymmetricFile, designFrom, medallionFile } from '@/lib/booklet/test-support/designs'
 import { hollyberryWreath } from '@/scripts/demo-wreath'
-import { checklistOfModel, sectionJoins, sewingChecklist, sewingModel, STEP_CAUTIONS } from './checklist'
+import { checklistOfModel, sewingChecklist, sewingModel, STEP_CAUTIONS } from './checklist'
+import { sectionJoins } from './joins'
 import { sewingPicture } from './picture'
 
 const wreath = designFrom(hollyberryWreath)

@@ -11,7 +11,7 @@ import { applyToPolygon, bindingPlan, mapSmoothCurve, repeatTransforms, applyTra
 import type { BookletModel } from '@/lib/booklet/model'
 import { circleData, CURL_STROKE, curveData, fabricFill, polygonData, ringDrawing } from '@/lib/ring-drawing'
 import type { SewingPicture } from '@/lib/schemas/sewing-room'
-import { leafSteps } from './checklist'
+import { leafSteps } from './joins'
 
 /** Points to 1/1000 in: far below a pixel on any screen. */
 const round = (value: number): number => {
