@@ -288,11 +288,13 @@ export function planDesign(design: Design, options: PlanOptions = {}): Plan {
     }
     const found = searchRepairs(design, judged)
     repairs = { suggestions: found.suggestions, suggestionsStopped: found.stopped }
-    if (found.stopped) {
+    // Said in words only where the suggestions are the way forward; a sewable plan keeps its
+    // warnings for the maker (`suggestionsStopped` still says the savings search stopped).
+    if (found.stopped && !sewable) {
       problems.push({
         code: 'search-limit',
         severity: 'warning',
-        message: `The search for changes that ${sewable ? 'save a section' : 'make this design sewable'} stopped at its limit; the suggestions shown may not be the best there are.`,
+        message: 'The search for changes that make this design sewable stopped at its limit; the suggestions shown may not be the best there are.',
         at: problems.find((problem) => problem.severity === 'error')?.at ?? arrangement.areas[0]?.point ?? [0, 0],
       })
     }
