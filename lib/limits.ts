@@ -67,6 +67,14 @@ export const MAX_STORED_UPLOAD_BYTES_PER_USER = 200_000_000
  */
 export const MAX_SKILL_NOTES_LENGTH = 2000
 
+/** Rows of the designer's sales table a page holds unless it asks for another number (`GET /api/sales`, /sales): our choice. */
+export const SALES_PAGE_SIZE = 50
+/**
+ * Most rows one page of `GET /api/sales` may ask for (`limit`): our choice, enough for any screen;
+ * the CSV export reads every row, in batches of this size, and sends them as it reads them.
+ */
+export const MAX_SALES_PAGE_SIZE = 500
+
 /** The longest number JSON.stringify writes: `-1.2345678901234567e-308`, 24 characters. */
 const LONGEST_NUMBER = 24
 /**

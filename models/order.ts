@@ -28,6 +28,10 @@ export class Order extends Model<InferAttributes<Order>, InferCreationAttributes
   declare updatedAt: CreationOptional<Date>
   declare paidAt: CreationOptional<Date | null>
   declare refundedAt: CreationOptional<Date | null>
+  /** The colourway the buyer was looking at when they bought (a licence covers them all); NULL when none was named. */
+  declare colorway: CreationOptional<string | null>
+  /** When an admin asked the provider to refund the order; it stays 'paid' until the refund event arrives. */
+  declare refundRequestedAt: CreationOptional<Date | null>
 }
 
 export function initOrder(sequelize: Sequelize): void {
@@ -45,6 +49,8 @@ export function initOrder(sequelize: Sequelize): void {
       updatedAt: DataTypes.DATE,
       paidAt: { type: DataTypes.DATE, allowNull: true },
       refundedAt: { type: DataTypes.DATE, allowNull: true },
+      colorway: { type: DataTypes.TEXT, allowNull: true },
+      refundRequestedAt: { type: DataTypes.DATE, allowNull: true },
     },
     { sequelize, tableName: 'orders', modelName: 'Order' },
   )

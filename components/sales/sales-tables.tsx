@@ -40,7 +40,7 @@ export function MonthlyTotals({ totals }: { totals: readonly SalesMonthTotal[] }
   )
 }
 
-/** Every sale, newest first: the buyer by display name only, the licence the sale granted, and a refund if there was one. */
+/** Every sale, newest first: the colourway the buyer was looking at, the buyer by display name only, the licence the sale granted, and a refund if there was one. */
 export function SalesRows({ sales }: { sales: readonly SaleRow[] }) {
   return (
     <table className="w-full border-collapse text-sm" aria-label="Sales">
@@ -48,6 +48,7 @@ export function SalesRows({ sales }: { sales: readonly SaleRow[] }) {
         <tr>
           <th scope="col" className={head}>Date</th>
           <th scope="col" className={head}>Pattern</th>
+          <th scope="col" className={head}>Colourway</th>
           <th scope="col" className={head}>Buyer</th>
           <th scope="col" className={head}>Licence</th>
           <th scope="col" className={`${head} text-right`}>Amount</th>
@@ -59,6 +60,7 @@ export function SalesRows({ sales }: { sales: readonly SaleRow[] }) {
           <tr key={sale.orderId} className="border-b border-linen-100" data-testid="sale-row">
             <td className={`${cell} whitespace-nowrap`}>{sale.date.slice(0, 10)}</td>
             <td className={`${cell} font-medium text-stone-800`}>{sale.pattern}</td>
+            <td className={cell} data-testid="sale-colorway">{sale.colorway ?? <span className="text-stone-500">—</span>}</td>
             <td className={cell}>{sale.buyer ?? <span className="text-stone-500">A former customer</span>}</td>
             <td className={`${cell} font-mono`}>{sale.licenceNumber ?? '—'}</td>
             <td className={`${cell} text-right whitespace-nowrap ${sale.refundedAt ? 'text-stone-500 line-through' : ''}`}>

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import type { FieldIssue } from '@/lib/errors'
+import { MAX_SALES_PAGE_SIZE, SALES_PAGE_SIZE } from '@/lib/limits'
 
 /**
  * The designer's sales table: its query string (`GET /api/sales`, `GET /api/sales/csv` and the
@@ -25,15 +26,29 @@ const day = (message: string) =>
     z.string({ error: message }).refine(isDay, message).optional(),
   )
 
+/** A whole number from a query string (`?limit=50`), from `min` to `max`. */
+const wholeNumber = (min: number, max: number, message: string) =>
+  z.preprocess(blankAsAbsent, z.coerce.number({ error: message }).int(message).min(min, message).max(max, message).optional())
+
 /**
- * `GET /api/sales?from=&to=&patternId=`: sales paid from `from` to `to` (both days included, UTC),
- * of one pattern or of all. An unknown parameter is refused (422 naming it).
+ * The furthest a page may start (`offset`): far past any designer's sales, and a bound so that a
+ * request cannot make the database skip through rows without end. Our choice.
+ */
+const MAX_SALES_OFFSET = 10_000_000
+
+/**
+ * `GET /api/sales?from=&to=&patternId=&limit=&offset=`: sales paid from `from` to `to` (both days
+ * included, UTC), of one pattern or of all; the rows `offset` to `offset + limit` of them, newest
+ * first (`limit` 1–500, 50 when absent: lib/limits.ts). The monthly totals are always over every
+ * row. An unknown parameter is refused (422 naming it).
  */
 const salesQuerySchema = z
   .object({
     from: day('A day is written YYYY-MM-DD.'),
     to: day('A day is written YYYY-MM-DD.'),
     patternId: z.preprocess(blankAsAbsent, z.uuid({ error: 'No such pattern.' }).optional()),
+    limit: wholeNumber(1, MAX_SALES_PAGE_SIZE, `A page holds 1 to ${MAX_SALES_PAGE_SIZE} sales.`),
+    offset: wholeNumber(0, MAX_SALES_OFFSET, 'A page starts at a whole number of sales from the newest (0 is the first).'),
   })
   .strict()
   .refine((query) => query.from === undefined || query.to === undefined || query.from <= query.to, {
@@ -85,6 +100,8 @@ export interface SaleRow {
   refundedAt: string | null
   /** The licence the sale granted; null if the payment has not been processed into one yet. */
   licenceNumber: string | null
+  /** The colourway the buyer was looking at when they bought (the licence covers them all); null when none was named. */
+  colorway: string | null
 }
 
 /** A month's money in one currency: sales paid that month, refunds made that month. */
@@ -100,8 +117,27 @@ export interface SalesMonthTotal {
   netCents: number
 }
 
-/** `GET /api/sales`'s answer: rows newest first, totals newest month first, then by currency. */
+/** Which rows of all the sales a page holds. */
+export interface SalesPage {
+  /** Rows asked for (the page's size). */
+  limit: number
+  /** Rows before this page, newest first. */
+  offset: number
+  /** Sales in the days asked for, on every page together. */
+  total: number
+  /** Where the next page starts; null on the last page. */
+  nextOffset: number | null
+}
+
+/**
+ * `GET /api/sales`'s answer: one page of rows newest first, and totals over every row (not only
+ * the page's), newest month first, then by currency.
+ */
 export interface SalesAnswer {
   sales: SaleRow[]
   totals: SalesMonthTotal[]
+  page: SalesPage
 }
+
+/** The page size a query asks for, or the default (lib/limits.ts). */
+export const pageSizeOf = (query: SalesQuery) => query.limit ?? SALES_PAGE_SIZE

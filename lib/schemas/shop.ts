@@ -1,12 +1,25 @@
 import { z } from 'zod'
+import { MAX_COLORWAYS, MAX_NAME_LENGTH } from '@/lib/limits'
+import { text } from './text'
 
 /**
- * `POST /api/shop/checkout`: which pattern to buy, nothing more. Not strict on purpose: any other
- * field a client sends (an amount, a price, a currency) is dropped by the parse and never read;
- * the amount charged is the pattern's, read on the server.
+ * `POST /api/shop/checkout { patternId, colorway? }`: which pattern to buy, and the colourway the
+ * buyer was looking at — by its name, or by its place in the pattern's list (0 first). A licence
+ * covers every colourway; the colourway is recorded on the order for the designer's sales, and the
+ * server checks it is one of the pattern's (422 naming `colorway` otherwise). Not strict on
+ * purpose: any other field a client sends (an amount, a price, a currency) is dropped by the parse
+ * and never read; the amount charged is the pattern's, read on the server.
+ *
+ * @example checkoutSchema.parse({ patternId: '8c7e0b9a-0c5e-4a4e-9d2b-2f3c4d5e6f70', colorway: 1, amountCents: 1 }) // { patternId: '8c7e0b9a-0c5e-4a4e-9d2b-2f3c4d5e6f70', colorway: 1 }
  */
 export const checkoutSchema = z.object({
   patternId: z.uuid({ error: 'No such pattern in the shop.' }),
+  colorway: z
+    .union([
+      z.number().int().min(0).max(MAX_COLORWAYS - 1),
+      text({ max: MAX_NAME_LENGTH, messages: { tooLong: 'No colourway has a name that long.' } }),
+    ], { error: 'A colourway is named by its name or its place in the list (0 first).' })
+    .optional(),
 })
 export type CheckoutInput = z.infer<typeof checkoutSchema>
 

@@ -3,7 +3,7 @@ import { randomUUID } from 'node:crypto'
 import { authorize, type Actor } from '@/lib/authorization'
 import { database } from '@/lib/db'
 import { originSettings } from '@/lib/env'
-import { ConflictError, NotFoundError, ServiceError } from '@/lib/errors'
+import { ConflictError, NotFoundError, ServiceError, ValidationError } from '@/lib/errors'
 import { paymentProvider } from '@/lib/payments/provider'
 import { countCheckout } from '@/lib/rate-limits'
 import type { CheckoutInput, OrderStatus } from '@/lib/schemas/shop'
@@ -24,21 +24,42 @@ function resultUrls(orderId: string): { success: string; cancel: string } {
 }
 
 /**
- * Starts buying a pattern; answers the provider's payment page. Refused: strangers (401), a pattern
- * not in the shop (404: a draft, one in testing, a retired, hidden or unpriced one), one's own pattern
- * (403), a pattern one already holds a licence to (409), too many checkouts (429).
+ * The name of the colourway a checkout names, by name or by place (0 first), checked against the
+ * pattern's colourways as the shop lists them (kept beside the pattern on every save of its
+ * design); null when none is named. An unknown one is refused, naming the field `colorway`.
+ *
+ * @example colorwayOf({ colorwaySwatches: [{ name: 'Holly', colours: [] }, { name: 'Frost', colours: [] }] }, 1) // 'Frost'
+ */
+export function colorwayOf(pattern: { colorwaySwatches: readonly { name: string }[] }, named: string | number | undefined): string | null {
+  if (named === undefined) return null
+  const names = pattern.colorwaySwatches.map((colorway) => colorway.name)
+  const found = typeof named === 'number' ? names[named] : names.find((name) => name === named)
+  if (found === undefined) {
+    const message = typeof named === 'number' ? `This pattern has no colourway number ${named + 1}.` : `This pattern has no colourway named “${named}”.`
+    throw new ValidationError([{ path: 'colorway', message }])
+  }
+  return found
+}
+
+/**
+ * Starts buying a pattern; answers the provider's payment page. The colourway the buyer was looking
+ * at, if named, is recorded on the order (a licence covers them all). Refused: strangers (401), a
+ * pattern not in the shop (404: a draft, one in testing, a retired, hidden or unpriced one), one's
+ * own pattern (403), a colourway the pattern does not have (422), a pattern one already holds a
+ * licence to (409), too many checkouts (429).
  *
  * @example await startCheckout(quilter, { patternId }) // { url: 'http://127.0.0.1:54333/pay/cs_test_…', orderId: '…' }
  */
 export async function startCheckout(actor: Actor, input: CheckoutInput): Promise<{ url: string; orderId: string }> {
   authorize(actor, 'read-own-library')
   database()
-  const pattern = await Pattern.findByPk(input.patternId, { attributes: ['id', 'name', 'ownerId', 'state', 'priceCents', 'currency', 'hiddenAt'] })
+  const pattern = await Pattern.findByPk(input.patternId, { attributes: ['id', 'name', 'ownerId', 'state', 'priceCents', 'currency', 'hiddenAt', 'colorwaySwatches'] })
   // Only what the shop lists can be bought: a listing an admin hid is not for sale.
   if (!pattern || pattern.state !== 'published' || pattern.hiddenAt !== null || pattern.priceCents === null || pattern.currency === null) {
     throw new NotFoundError('No such pattern in the shop.')
   }
   authorize(actor, 'buy-pattern', pattern)
+  const colorway = colorwayOf(pattern, input.colorway)
   const held = await liveLicenceOf(actor.id, pattern.id)
   if (held) throw new ConflictError(`You already hold licence ${held.number} for this pattern; it is in your library.`, { licenceId: held.id })
   await countCheckout(actor.id)
@@ -83,6 +104,7 @@ export async function startCheckout(actor: Actor, input: CheckoutInput): Promise
     amountCents: pattern.priceCents,
     currency: pattern.currency,
     checkoutSessionId: session.id,
+    colorway,
   })
   return { url: session.url, orderId }
 }

@@ -16,7 +16,7 @@ beforeEach(async () => {
 afterAll(closeDatabase)
 
 /** A paid order and the licence it granted, as a processed payment leaves them; `refundedAt` makes it refunded (licence revoked). */
-async function sale(pattern: Pattern, buyer: { id: string }, overrides: { paidAt: string; amountCents?: number; currency?: string; refundedAt?: string }) {
+async function sale(pattern: Pattern, buyer: { id: string }, overrides: { paidAt: string; amountCents?: number; currency?: string; refundedAt?: string; colorway?: string }) {
   const order = await Order.create({
     id: randomUUID(),
     buyerId: buyer.id,
@@ -27,6 +27,7 @@ async function sale(pattern: Pattern, buyer: { id: string }, overrides: { paidAt
     state: overrides.refundedAt ? 'refunded' : 'paid',
     paidAt: new Date(overrides.paidAt),
     refundedAt: overrides.refundedAt ? new Date(overrides.refundedAt) : null,
+    colorway: overrides.colorway ?? null,
   })
   const licence = await Licence.create({
     userId: buyer.id,
@@ -144,7 +145,7 @@ describe('the designer’s sales', () => {
   it('exports the same rows as CSV that papaparse reads back, a formula-like pattern name escaped', async () => {
     const { designer, buyer, wreath } = await scene()
     await wreath.update({ name: '=HYPERLINK("http://example.test","Rowan")' })
-    const { licence } = await sale(wreath, buyer, { paidAt: '2026-03-04T10:00:00Z' })
+    const { licence } = await sale(wreath, buyer, { paidAt: '2026-03-04T10:00:00Z', colorway: 'Winterberry' })
     await sale(wreath, buyer, { paidAt: '2026-03-05T10:00:00Z', refundedAt: '2026-03-06T10:00:00Z' })
 
     const response = await salesCsvRoute(
@@ -165,6 +166,7 @@ describe('the designer’s sales', () => {
       Date: '2026-03-04',
       // papaparse's escapeFormulae puts a ' before a cell starting with =, so a spreadsheet shows it as text.
       Pattern: `'=HYPERLINK("http://example.test","Rowan")`,
+      Colourway: 'Winterberry',
       Buyer: 'Elodie Marsh',
       Licence: licence.number,
       Currency: 'USD',
@@ -173,5 +175,117 @@ describe('the designer’s sales', () => {
       Refunded: '',
     })
     expect(parsed.data[0]!.Refunded).toBe('2026-03-06')
+    // A sale whose checkout named no colourway has an empty cell.
+    expect(parsed.data[0]!.Colourway).toBe('')
+  })
+
+  it('shows the colourway the buyer was looking at, in the table and the CSV', async () => {
+    const { designer, buyer, wreath } = await scene()
+    await sale(wreath, buyer, { paidAt: '2026-03-04T10:00:00Z', colorway: 'Frost' })
+    await sale(wreath, buyer, { paidAt: '2026-03-05T10:00:00Z' })
+    const { json } = await get(designer)
+    expect(json!.sales.map((row: { colorway: string | null }) => row.colorway)).toEqual([null, 'Frost'])
+    const response = await salesCsvRoute(
+      new Request(`${TEST_ORIGIN}/api/sales/csv`, { headers: { host: new URL(TEST_ORIGIN).host, cookie: await sessionCookieFor(designer) } }),
+      { params: Promise.resolve({}) },
+    )
+    const parsed = Papa.parse<Record<string, string>>(await response.text(), { header: true, skipEmptyLines: true })
+    expect(parsed.meta.fields).toEqual(['Date', 'Pattern', 'Colourway', 'Buyer', 'Licence', 'Currency', 'Amount (cents)', 'Amount', 'Refunded'])
+    expect(parsed.data.map((row) => row.Colourway)).toEqual(['', 'Frost'])
+  })
+})
+
+describe('paging the sales', () => {
+  /** `count` sales of the wreath, one a day from 2026-01-01, refunding those `refunded` says (a day later). */
+  async function manySales(count: number, refunded: (index: number) => boolean = () => false) {
+    const { designer, admin, buyer, wreath } = await scene()
+    for (let index = 0; index < count; index += 1) {
+      const day = new Date(Date.UTC(2026, 0, 1 + index, 12))
+      await sale(wreath, buyer, {
+        paidAt: day.toISOString(),
+        ...(refunded(index) ? { refundedAt: new Date(day.getTime() + 24 * 60 * 60 * 1000).toISOString() } : {}),
+      })
+    }
+    return { designer, admin }
+  }
+
+  it('answers 50 rows a page, newest first, with totals over every row and where the next page starts', async () => {
+    // 120 sales from 2026-01-01, one a day: January 31, February 28, March 31, April 30. Every
+    // tenth (index 0, 10, …, 110) refunded the day after.
+    const { designer, admin } = await manySales(120, (index) => index % 10 === 0)
+    const first = await get(designer)
+    expect(first.status).toBe(200)
+    expect(first.json!.sales).toHaveLength(50)
+    expect(first.json!.page).toEqual({ limit: 50, offset: 0, total: 120, nextOffset: 50 })
+    // Newest first: the 120th day from 2026-01-01 is 2026-04-30.
+    expect(first.json!.sales[0].date.slice(0, 10)).toBe('2026-04-30')
+    // The totals hold every sale, not the page's 50: 31 + 28 + 31 + 30 = 120 sold.
+    expect(first.json!.totals.reduce((sum: number, total: { sales: number }) => sum + total.sales, 0)).toBe(120)
+    // 12 refunds (indexes 0, 10, …, 110) of 1450 each.
+    expect(first.json!.totals.reduce((sum: number, total: { refundsCents: number }) => sum + total.refundsCents, 0)).toBe(12 * 1450)
+    const january = first.json!.totals.find((total: { month: string }) => total.month === '2026-01')
+    // January: 31 sales; refunds made on Jan 2, 12, 22 (indexes 0, 10, 20), Feb 1 (index 30) is February's.
+    expect(january).toEqual({ month: '2026-01', currency: 'USD', sales: 31, grossCents: 31 * 1450, refunds: 3, refundsCents: 3 * 1450, netCents: 28 * 1450 })
+
+    const second = await get(designer, '?offset=50')
+    const third = await get(designer, '?offset=100')
+    expect(second.json!.page).toEqual({ limit: 50, offset: 50, total: 120, nextOffset: 100 })
+    expect(third.json!.page).toEqual({ limit: 50, offset: 100, total: 120, nextOffset: null })
+    expect(third.json!.sales).toHaveLength(20)
+    // The same totals on every page.
+    expect(third.json!.totals).toEqual(first.json!.totals)
+    // The three pages together are every sale once, newest to oldest.
+    const ids = [first, second, third].flatMap((page) => page.json!.sales.map((row: { orderId: string }) => row.orderId))
+    expect(new Set(ids).size).toBe(120)
+    const dates = [first, second, third].flatMap((page) => page.json!.sales.map((row: { date: string }) => row.date))
+    expect(dates).toEqual([...dates].sort().reverse())
+    expect(dates.at(-1)!.slice(0, 10)).toBe('2026-01-01')
+
+    // A page size of one's own, within the bound; an admin pages everyone's the same way.
+    const small = await get(admin, '?limit=7&offset=14')
+    expect(small.json!.sales).toHaveLength(7)
+    expect(small.json!.page).toEqual({ limit: 7, offset: 14, total: 120, nextOffset: 21 })
+    expect(small.json!.sales[0].orderId).toBe(ids[14])
+  })
+
+  it('refuses a page size past the bound, or a page that starts before the first row, by name', async () => {
+    const { designer } = await scene()
+    for (const [query, path] of [['?limit=501', 'limit'], ['?limit=0', 'limit'], ['?limit=ten', 'limit'], ['?offset=-1', 'offset'], ['?offset=1.5', 'offset']]) {
+      const answer = await get(designer, query)
+      expect(answer.status, query).toBe(422)
+      expect(answer.json!.error.issues.map((issue: { path: string }) => issue.path), query).toEqual([path])
+    }
+  })
+
+  it('exports every row as CSV, not one page, in batches that neither repeat nor skip a row', async () => {
+    // 520 sales: more than one batch of the export (500, lib/limits.ts MAX_SALES_PAGE_SIZE).
+    const { designer, buyer, wreath } = await scene()
+    const paidAt = new Date('2026-05-01T12:00:00Z')
+    const orders = Array.from({ length: 520 }, (_, index) => ({
+      id: randomUUID(),
+      buyerId: buyer.id,
+      patternId: wreath.id,
+      amountCents: 1450,
+      currency: 'USD',
+      checkoutSessionId: `cs_test_${randomUUID()}`,
+      state: 'paid' as const,
+      // Pairs of sales in the same instant, so the batches' edge falls between equal times.
+      paidAt: new Date(paidAt.getTime() - Math.floor(index / 2) * 60_000),
+    }))
+    await Order.bulkCreate(orders)
+    await Licence.bulkCreate(orders.map((order) => ({ userId: buyer.id, patternId: wreath.id, orderId: order.id, grantedAt: order.paidAt })))
+    const response = await salesCsvRoute(
+      new Request(`${TEST_ORIGIN}/api/sales/csv`, { headers: { host: new URL(TEST_ORIGIN).host, cookie: await sessionCookieFor(designer) } }),
+      { params: Promise.resolve({}) },
+    )
+    expect(response.status).toBe(200)
+    const parsed = Papa.parse<Record<string, string>>(await response.text(), { header: true, skipEmptyLines: true })
+    expect(parsed.errors).toEqual([])
+    expect(parsed.data).toHaveLength(520)
+    // Each licence once: no row repeated or left out at the batches' edge.
+    expect(new Set(parsed.data.map((row) => row.Licence)).size).toBe(520)
+    // Compared with the API's pages of 500 and 20, row for row.
+    const api = [...(await get(designer, '?limit=500')).json!.sales, ...(await get(designer, '?limit=500&offset=500')).json!.sales]
+    expect(parsed.data.map((row) => row.Licence)).toEqual(api.map((row: { licenceNumber: string }) => row.licenceNumber))
   })
 })

@@ -1,5 +1,6 @@
 import type { Metadata } from 'next'
 import { notFound } from 'next/navigation'
+import { Pager } from '@/components/admin/pager'
 import { MonthlyTotals, SalesRows } from '@/components/sales/sales-tables'
 import { SalesFilters } from '@/components/sales/sales-filters'
 import { requireUser } from '@/lib/auth/current-user'
@@ -24,13 +25,22 @@ export default async function SalesPage({ searchParams }: { searchParams: Promis
     listSales(user, query).catch((error: unknown) => (error instanceof NotFoundError ? notFound() : Promise.reject(error))),
     salesPatternChoices(user),
   ])
-  const csv = new URLSearchParams(Object.entries(query).filter((entry): entry is [string, string] => typeof entry[1] === 'string'))
+  const { limit: _limit, offset: _offset, ...filters } = query
+  // The export holds every sale of the filter, not one page.
+  const csv = new URLSearchParams(Object.entries(filters).filter((entry): entry is [string, string] => typeof entry[1] === 'string'))
+  const { page } = answer
+  const hrefFor = (number: number) => {
+    const search = new URLSearchParams(csv)
+    if (query.limit !== undefined) search.set('limit', String(page.limit))
+    if (number > 1) search.set('offset', String((number - 1) * page.limit))
+    return `/sales${search.size > 0 ? `?${search}` : ''}`
+  }
   return (
     <article className="mx-auto max-w-5xl space-y-6">
       <h1 className="text-2xl font-semibold text-thread-800">Sales</h1>
       <p className="max-w-3xl text-stone-700">
         Every paid sale of {can(user, 'read-all-sales') ? 'every designer’s patterns' : 'your patterns'}, and each refund in the month it was made. Buyers are shown by the name they chose; their
-        e-mail addresses stay private. Amounts in different currencies are totalled apart.
+        e-mail addresses stay private. Amounts in different currencies are totalled apart. The colourway is the one the buyer was looking at when they bought; their licence covers every colourway.
       </p>
       <SalesFilters query={query} patterns={patterns} />
       {!read.ok && (
@@ -54,6 +64,7 @@ export default async function SalesPage({ searchParams }: { searchParams: Promis
               </a>
             </div>
             <SalesRows sales={answer.sales} />
+            <Pager page={Math.floor(page.offset / page.limit) + 1} pageCount={Math.max(1, Math.ceil(page.total / page.limit))} total={page.total} noun="sales" hrefFor={hrefFor} />
           </section>
         </>
       )}

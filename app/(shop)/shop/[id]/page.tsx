@@ -56,7 +56,7 @@ export default async function ShopPatternPage({ params }: Props) {
           <p className="text-2xl font-semibold text-stone-800" data-testid="price">
             {price}
           </p>
-          <BuyButton patternId={listing.id} price={price} signInHref={user ? null : signInPathFor(`/shop/${listing.id}`)} />
+          <BuyButton patternId={listing.id} price={price} signInHref={user ? null : signInPathFor(`/shop/${listing.id}`)} colorways={listing.colorways.map((colorway) => colorway.name)} />
         </div>
       </header>
       {/* The designer's uploaded cover, when set; the rings in every colourway follow below either way. */}
