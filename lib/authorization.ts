@@ -104,6 +104,7 @@ type Rules = {
   'read-order': (actor: NonNullable<Actor>, order: OrderFacts) => boolean
   'read-own-library': (actor: NonNullable<Actor>) => boolean
   'read-payment-log': (actor: NonNullable<Actor>) => boolean
+  'refund-order': (actor: NonNullable<Actor>) => boolean
   'hide-listing': (actor: NonNullable<Actor>) => boolean
   'upload-image': (actor: NonNullable<Actor>, purpose: UploadPurpose) => boolean
   'read-upload': (actor: NonNullable<Actor>, upload: UploadFacts) => boolean
@@ -176,6 +177,10 @@ const rules: Rules = {
   'read-own-library': () => true,
   // The payment log (webhook calls, verified or refused, and their processing): admins only.
   'read-payment-log': (actor) => isAdmin(actor),
+  // Refunding an order through the payment provider (from the payment log): admins only, recorded
+  // in the audit log. Refused with 403, not hidden as the desk's pages are: the order's buyer and
+  // its designer know the order exists.
+  'refund-order': (actor) => isAdmin(actor),
   // Taking a published pattern's listing out of the shop (and back): admins only, recorded in the
   // audit log. Looking at the shop needs no rule: it is open to everyone, signed in or not.
   'hide-listing': (actor) => isAdmin(actor),

@@ -18,6 +18,8 @@ export const ADMIN_ACTIONS = [
   // The shop (migrations/20261202-0130-…): an admin takes a listing out of the shop, or puts it back.
   'hide-listing',
   'show-listing',
+  // An admin refunds an order through the payment provider (migrations/20261202-0161-…).
+  'refund-order',
 ] as const
 export type AdminAction = (typeof ADMIN_ACTIONS)[number]
 

@@ -22,6 +22,8 @@ export function auditWords(action: string, details: Record<string, unknown>): st
       return 'hid from the shop the listing of'
     case 'show-listing':
       return 'put back in the shop the listing of'
+    case 'refund-order':
+      return 'refunded the'
     default:
       return action
   }
