@@ -9,7 +9,9 @@
 import { Op, type Transaction } from 'sequelize'
 import type { DesignFile } from '../lib/schemas/design'
 import type { PatternCurrency } from '../lib/schemas/pattern'
-import { Licence, Order, Pattern, PaymentEvent, User } from '../models'
+import { parseDesign } from '../lib/schemas/design'
+import { sewingChecklist } from '../lib/sewing-room/checklist'
+import { Licence, Order, Pattern, PatternRevision, PaymentEvent, SewingProject, SewingStep, User } from '../models'
 
 const round = (value: number) => Math.round(value * 10_000) / 10_000
 /** A point at `radius` inches and `degrees` from +x, rounded to 1/10000 in. */
@@ -163,7 +165,10 @@ export async function seedSeasonSales(transaction: Transaction): Promise<number>
     ),
   )
   const missing = DEMO_SALES.filter((sale) => !existing.has(`cs_demo_${sale.key}`))
-  if (missing.length === 0) return 0
+  if (missing.length === 0) {
+    await seedDemoSewing(transaction)
+    return 0
+  }
   const buyers = new Map(
     (await User.findAll({ where: { email: { [Op.in]: missing.map((sale) => sale.buyer) } }, attributes: ['id', 'email'], transaction })).map((user) => [user.email, user]),
   )
@@ -259,5 +264,67 @@ export async function seedSeasonSales(transaction: Transaction): Promise<number>
   for (const [patternId, soldAt] of firstSale) {
     await Pattern.update({ publishedAt: new Date(soldAt - 14 * DAY_MS) }, { where: { id: patternId, publishedAt: { [Op.gt]: new Date(soldAt) } }, transaction })
   }
+  await seedDemoSewing(transaction)
   return added
+}
+
+/**
+ * The sewing room's demo: Elsie is making the Hollyberry Wreath she bought, in its first colourway
+ * at 18 in, and is part way through the first repeat — the leaves folded, everything cut, the
+ * first areas sewn, one step with a note.
+ */
+export const DEMO_SEWING = {
+  buyer: 'elsie@quilters.example',
+  pattern: 'Hollyberry Wreath',
+  name: 'Hollyberry for the hall',
+  colorway: 0,
+  diameterIn: 18,
+  paper: 'letter',
+  /** Steps of repeat 1 done, after every leaf and cutting step. */
+  doneInFirstRepeat: ['r1:area:A1', 'r1:area:A2', 'r1:area:A3'],
+  note: { stepId: 'r1:area:A2', text: 'A glue dot held the leaf better than a pin.' },
+} as const
+
+/** Writes Elsie's sewing project and its progress, unless she already has one on the pattern. */
+async function seedDemoSewing(transaction: Transaction): Promise<void> {
+  const buyer = await User.findOne({ where: { email: DEMO_SEWING.buyer }, attributes: ['id'], transaction })
+  const pattern = buyer ? await Pattern.findOne({ where: { name: DEMO_SEWING.pattern, priceCents: { [Op.ne]: null } }, transaction }) : null
+  const licence = buyer && pattern ? await Licence.findOne({ where: { userId: buyer.id, patternId: pattern.id, revokedAt: null }, transaction }) : null
+  if (!buyer || !pattern || !licence) return
+  if ((await SewingProject.count({ where: { ownerId: buyer.id, patternId: pattern.id }, transaction })) > 0) return
+  const revision = await PatternRevision.findOne({ where: { patternId: pattern.id, revision: pattern.revision }, attributes: ['id', 'design'], transaction })
+  const parsed = revision ? parseDesign(revision.design) : null
+  if (!revision || !parsed?.ok) return
+  const { steps } = sewingChecklist(parsed.design, { colorway: DEMO_SEWING.colorway, diameterIn: DEMO_SEWING.diameterIn })
+  const done = steps.filter((step) => step.group === 'prepare-leaves' || step.group === 'cut' || (DEMO_SEWING.doneInFirstRepeat as readonly string[]).includes(step.id))
+  // Worked on over the last fortnight, a step or two an evening.
+  const startedAt = new Date(Date.now() - 14 * DAY_MS)
+  const project = await SewingProject.create(
+    {
+      id: crypto.randomUUID(),
+      ownerId: buyer.id,
+      licenceId: licence.id,
+      invitationId: null,
+      patternId: pattern.id,
+      patternRevisionId: String(revision.id),
+      colorwayIndex: DEMO_SEWING.colorway,
+      diameterIn: DEMO_SEWING.diameterIn,
+      paper: DEMO_SEWING.paper,
+      name: DEMO_SEWING.name,
+      createdAt: startedAt,
+      updatedAt: new Date(startedAt.getTime() + done.length * (DAY_MS / 2)),
+    },
+    { transaction, silent: true },
+  )
+  await SewingStep.bulkCreate(
+    done.map((step, index) => ({
+      projectId: project.id,
+      stepId: step.id,
+      done: true,
+      note: step.id === DEMO_SEWING.note.stepId ? DEMO_SEWING.note.text : null,
+      updatedAt: new Date(startedAt.getTime() + (index + 1) * (DAY_MS / 2)),
+    })),
+    // bulkCreate keeps an updatedAt it is given.
+    { transaction },
+  )
 }
