@@ -14,6 +14,9 @@
  *   - pattern read  GET /api/patterns/:id as its designer (the demo's Hollyberry Wreath);
  *   - plan          GET /shop/:id, a listed pattern's page: its covers are drawn from the plan
  *                   (the app has no route that only plans; the board plans in the browser);
+ *   - tick          PATCH /api/sewing-room/projects/:id/steps, the sewing room's tick: TICK_PROJECTS
+ *                   quilters each with a project of the demo wreath, ticking and unticking its
+ *                   steps in turn;
  *   - sign-in       POST /api/auth/sign-in, the right password, through argon2.
  * For each it prints requests/s, p50 and p99 latency and errors (connection errors, time-outs and
  * any answer that is not 2xx), beside the bare handler's figures at the same connections, as a
@@ -48,6 +51,8 @@ const DEADLINE_MS = 30 * 60_000
 const TIMEOUT_SECONDS = 30
 const WARM_UP_SECONDS = 3
 const SIGN_IN_ACCOUNTS = 1000
+/** Quilters ticking at once, each in a project of their own (the first of the sign-in accounts). */
+const TICK_PROJECTS = 50
 /** Goals (issue 17). */
 const READ_P99_GOAL_MS = 100
 const READ_SHARE_GOAL = 0.4
@@ -189,7 +194,7 @@ try {
   // make the accounts that sign in.
   Object.assign(process.env, env)
   const { database, closeDatabase } = await import('../lib/db')
-  const { Pattern, User } = await import('../models')
+  const { Licence, Order, Pattern, User } = await import('../models')
   const { hashPassword } = await import('../lib/auth/password')
   const { sessionCookieFor, TEST_PASSWORD } = await import('../tests/support/factories')
   database()
@@ -200,18 +205,63 @@ try {
   const designerCookie = await sessionCookieFor({ id: pattern.ownerId })
   const passwordHash = await hashPassword(TEST_PASSWORD)
   const emails = Array.from({ length: SIGN_IN_ACCOUNTS }, (_, index) => `load-${index}@load.example`)
-  await User.bulkCreate(
+  const accounts = await User.bulkCreate(
     emails.map((email, index) => ({ email, displayName: `Load Person ${index}`, passwordHash, roles: ['quilter' as const], emailVerifiedAt: new Date(), designerRequestedAt: null })),
   )
+  // The sewing room: the first TICK_PROJECTS accounts buy the demo wreath and start a project of it.
+  if (pattern.state !== 'published') await pattern.update({ state: 'published' })
+  const quilters = []
+  for (const quilter of accounts.slice(0, TICK_PROJECTS)) {
+    const order = await Order.create({ id: crypto.randomUUID(), buyerId: quilter.id, patternId: pattern.id, amountCents: 1400, currency: 'USD', checkoutSessionId: `cs_load_${crypto.randomUUID()}`, state: 'paid' })
+    const licence = await Licence.create({ userId: quilter.id, patternId: pattern.id, orderId: order.id })
+    quilters.push({ licenceId: licence.id, cookie: await sessionCookieFor(quilter) })
+  }
   await closeDatabase()
+  const projects: { id: string; cookie: string }[] = []
+  for (const { licenceId, cookie } of quilters) {
+    const answer = await fetch(`${base}/api/sewing-room/projects`, {
+      method: 'POST',
+      headers: { cookie, origin: base, 'content-type': 'application/json' },
+      body: JSON.stringify({ licenceId, colorway: 0, diameterIn: 18, paper: 'letter' }),
+    })
+    if (answer.status !== 201) throw new Error(`starting a sewing project: HTTP ${answer.status} ${await answer.text()}`)
+    projects.push({ id: ((await answer.json()) as { project: { id: string } }).project.id, cookie })
+  }
+  const detail = await fetch(`${base}/api/sewing-room/projects/${projects[0]!.id}`, { headers: { cookie: projects[0]!.cookie } })
+  const stepIds = ((await detail.json()) as { steps: { id: string }[] }).steps.map((step) => step.id)
+  if (stepIds.length === 0) throw new Error('the demo wreath\'s project has no steps')
 
   let signIns = 0
+  let ticks = 0
   const targets: Target[] = [
     { name: 'bare', kind: 'bare', label: 'GET /api/health/bare', options: { url: `${base}/api/health/bare` } },
     { name: 'shop list', kind: 'read', label: 'GET /api/shop/patterns', options: { url: `${base}/api/shop/patterns` } },
     { name: 'shop page', kind: 'read', label: 'GET /shop', options: { url: `${base}/shop` } },
     { name: 'pattern read', kind: 'read', label: `GET /api/patterns/:id (Hollyberry Wreath, as its designer)`, options: { url: `${base}/api/patterns/${pattern.id}`, headers: { cookie: designerCookie } } },
     { name: 'plan', kind: 'read', label: `GET /shop/:id (${listed.name}: covers drawn from its plan)`, options: { url: `${base}/shop/${listed.id}` } },
+    {
+      name: 'tick',
+      kind: 'write',
+      label: `PATCH /api/sewing-room/projects/:id/steps (${TICK_PROJECTS} projects of ${stepIds.length} steps, ticked and unticked in turn)`,
+      options: {
+        requests: [
+          {
+            method: 'PATCH',
+            setupRequest: (request) => {
+              const index = ticks++
+              const project = projects[index % projects.length]!
+              const round = Math.floor(index / projects.length)
+              return {
+                ...request,
+                path: `/api/sewing-room/projects/${project.id}/steps`,
+                headers: { ...request.headers, cookie: project.cookie, origin: base, 'content-type': 'application/json' },
+                body: JSON.stringify({ stepId: stepIds[round % stepIds.length], done: Math.floor(round / stepIds.length) % 2 === 0 }),
+              }
+            },
+          },
+        ],
+      },
+    },
     {
       name: 'sign-in',
       kind: 'write',
@@ -236,7 +286,10 @@ try {
     },
   ]
 
+  const loadAverage = () => os.loadavg().map((value) => value.toFixed(1)).join(' ')
   console.log(`\nload: ${base}, next start (one process), ${os.cpus().length} cores; each run ${SECONDS} s, at most ${MAX_REQUESTS_PER_RUN} requests`)
+  // The machine's load before measuring: other work on its cores lowers every figure below.
+  console.log(`  load average (1, 5, 15 min) before measuring: ${loadAverage()}`)
   for (const target of targets) console.log(`  ${target.name.padEnd(12)} ${target.label}`)
   // Warm up: the first requests to a route load its bundle, and V8 compiles what runs hot.
   for (const target of targets) {
@@ -252,7 +305,7 @@ try {
       console.log(`  ${target.name} at ${connections}: ${figures.requestsPerSecond.toFixed(0)} req/s, p50 ${figures.p50} ms, p99 ${figures.p99} ms, ${figures.errors} errors${figures.errorKinds ? ` (${figures.errorKinds})` : ''}`)
     }
   }
-  console.log(`\nload: summary (goals: 0 errors; reads at 50 connections p99 < ${READ_P99_GOAL_MS} ms and ≥ ${READ_SHARE_GOAL * 100} % of bare req/s)`)
+  console.log(`\nload: summary (goals: 0 errors; reads at 50 connections p99 < ${READ_P99_GOAL_MS} ms and ≥ ${READ_SHARE_GOAL * 100} % of bare req/s); load average after: ${loadAverage()}`)
   const met = printTable(all)
   console.log(met ? '\nload: every goal met' : '\nload: some goals MISSED (see the goals column)')
 } catch (error) {
