@@ -14,7 +14,8 @@ import path from 'node:path'
 
 const isRoot = process.getuid?.() === 0
 
-function postgresBinaries(): string {
+/** The folder of the newest of Debian's PostgreSQL versions installed (its initdb, pg_ctl, pg_dump, …). */
+export function postgresBinaries(): string {
   const root = '/usr/lib/postgresql'
   const versions = fs.existsSync(root)
     ? fs.readdirSync(root).filter((name) => fs.existsSync(path.join(root, name, 'bin', 'initdb')))
