@@ -1,4 +1,4 @@
-import { Sequelize } from 'sequelize'
+import { ConnectionRefusedError, ConnectionTimedOutError, HostNotFoundError, HostNotReachableError, Sequelize } from 'sequelize'
 import pg from 'pg'
 import { initModels } from '@/models'
 import { serverEnv } from '@/lib/env'
@@ -16,7 +16,46 @@ const globalForDatabase = globalThis as typeof globalThis & { wreathwrightSequel
  */
 let modelsBoundTo: Sequelize | undefined
 
-export function createSequelize(databaseUrl: string, options: { log?: boolean } = {}): Sequelize {
+/**
+ * Errors of opening a connection: the statement was never sent, so trying again is safe for any
+ * statement, a write included. A query that meets one (the database restarting, a fail-over) is
+ * tried again a few times, 0.2 s, 0.3 s, 0.45 s, 0.7 s apart (about 1.7 s in all: our choice, a
+ * fast restart's length), before the error reaches the request. Errors on a connection that was
+ * open are not retried: a write may have happened. A connection that broke is dropped by the
+ * pool (Sequelize's validate: `_invalid` once the connection emitted an error), so the next
+ * query opens a new one.
+ */
+const RETRY_ON_CONNECT_ERRORS = {
+  max: 5,
+  backoffBase: 200,
+  backoffExponent: 1.5,
+  match: [ConnectionRefusedError, HostNotReachableError, HostNotFoundError, ConnectionTimedOutError, /ECONNREFUSED|the database system is (starting up|shutting down)/],
+}
+
+/**
+ * What a read that may be a moment stale passes, e.g. `Pattern.findAll({ where, ...STALE_READ })`:
+ * with read replicas (DATABASE_READ_URLS) it goes to one of them; without, to the one database.
+ * Everything else goes to the primary: sessions, rate limits and queues, every write, every
+ * transaction (its reads included), and any read that must see a write just made.
+ */
+export const STALE_READ = { useMaster: false } as const
+
+/** One replica's connection settings from its URL (as Sequelize reads DATABASE_URL). */
+function replicaSettings(url: string) {
+  const parsed = new URL(url)
+  const dialectOptions = Object.fromEntries(parsed.searchParams)
+  return {
+    host: parsed.hostname,
+    port: parsed.port ? Number(parsed.port) : 5432,
+    username: decodeURIComponent(parsed.username),
+    password: decodeURIComponent(parsed.password),
+    database: decodeURIComponent(parsed.pathname.replace(/^\//, '')),
+    ...(Object.keys(dialectOptions).length > 0 ? { dialectOptions } : {}),
+  }
+}
+
+export function createSequelize(databaseUrl: string, options: { log?: boolean; readUrls?: readonly string[] } = {}): Sequelize {
+  const readUrls = options.readUrls ?? []
   return new Sequelize(databaseUrl, {
     dialect: 'postgres',
     // Handing Sequelize the module directly keeps it working when the app is bundled.
@@ -24,14 +63,28 @@ export function createSequelize(databaseUrl: string, options: { log?: boolean } 
     logging: options.log ? console.log : false,
     pool: { max: 10, min: 0, idle: 10_000 },
     define: { underscored: true },
+    retry: RETRY_ON_CONNECT_ERRORS,
+    ...(readUrls.length > 0
+      ? {
+          // The primary is DATABASE_URL itself (`write: {}` takes its settings); reads go to it too
+          // unless they pass STALE_READ.
+          replication: { write: {}, read: readUrls.map(replicaSettings) },
+          query: { useMaster: true },
+        }
+      : {}),
   })
+}
+
+/** DATABASE_READ_URLS as a list. */
+function readUrlsOf(setting: string | undefined): string[] {
+  return (setting ?? '').split(',').map((url) => url.trim()).filter((url) => url.length > 0)
 }
 
 /** The shared Sequelize instance, with every model initialised on it. */
 export function database(): Sequelize {
   if (!globalForDatabase.wreathwrightSequelize) {
     const env = serverEnv()
-    globalForDatabase.wreathwrightSequelize = createSequelize(env.DATABASE_URL, { log: env.DATABASE_LOG === 'true' })
+    globalForDatabase.wreathwrightSequelize = createSequelize(env.DATABASE_URL, { log: env.DATABASE_LOG === 'true', readUrls: readUrlsOf(env.DATABASE_READ_URLS) })
   }
   const sequelize = globalForDatabase.wreathwrightSequelize
   if (modelsBoundTo !== sequelize) {

@@ -12,6 +12,19 @@ const serverEnvSchema = z.object({
    * and the end-to-end tests serve plain http on loopback and switch it off there explicitly.
    */
   SESSION_COOKIE_SECURE: z.enum(['true', 'false']).optional(),
+  /**
+   * Read replicas of the database (PostgreSQL streaming replicas), comma-separated
+   * `postgres://…` URLs. Unset: everything goes to DATABASE_URL. Set: still everything goes to the
+   * primary (DATABASE_URL) but the reads that say they may be a moment stale (`STALE_READ` in
+   * lib/db.ts), which are spread over these.
+   */
+  DATABASE_READ_URLS: z
+    .string()
+    .refine(
+      (value) => value.split(',').every((part) => URL.canParse(part.trim()) && /^postgres(ql)?:$/.test(new URL(part.trim()).protocol)),
+      'comma-separated postgres:// URLs',
+    )
+    .optional(),
   /** Log every SQL statement (for debugging). */
   DATABASE_LOG: z.enum(['true', 'false']).default('false'),
   /**
