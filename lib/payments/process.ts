@@ -108,8 +108,10 @@ export async function processPaymentEvent(eventId: string): Promise<void> {
 
 /** Records a failed try; after the queue's last one the event is 'failed' in the payment log. */
 export async function recordFailedProcessing(eventId: string, error: unknown, last: boolean): Promise<void> {
-  database()
   const message = error instanceof Error ? error.message : String(error)
-  await PaymentEvent.increment('attempts', { where: { id: eventId } })
-  await PaymentEvent.update({ note: `processing failed: ${message.slice(0, 200)}`, ...(last ? { state: 'failed' as const } : {}) }, { where: { id: eventId } })
+  // One transaction: the count and the note (and 'failed' after the last try) change together.
+  await database().transaction(async (transaction) => {
+    await PaymentEvent.increment('attempts', { where: { id: eventId }, transaction })
+    await PaymentEvent.update({ note: `processing failed: ${message.slice(0, 200)}`, ...(last ? { state: 'failed' as const } : {}) }, { where: { id: eventId }, transaction })
+  })
 }
