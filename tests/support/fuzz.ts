@@ -68,7 +68,12 @@ export function badBodies(sample: unknown, { limit }: BadBodyOptions): fc.Arbitr
   const paths = pathsOf(sample)
   const at = paths.length > 0 ? fc.constantFrom(...paths) : fc.constant<FieldPath>([])
   const lengths = fc.oneof(fc.integer({ min: 1, max: 300 }), fc.integer({ min: Math.floor(limit / 4), max: Math.ceil(limit / 2) }))
-  const depths = fc.oneof(fc.integer({ min: 2, max: 60 }), fc.integer({ min: 1_000, max: Math.max(1_000, Math.floor(limit / 3)) }))
+  // Shallow; about lib/http.ts MAX_JSON_DEPTH (10,000); far deeper, as far as the limit allows (each level 2 bytes or more).
+  const depths = fc.oneof(
+    fc.integer({ min: 2, max: 60 }),
+    fc.integer({ min: 9_000, max: 11_000 }),
+    fc.integer({ min: 20_000, max: Math.max(20_000, Math.min(200_000, Math.floor(limit / 2))) }),
+  )
   return fc.oneof(
     anyValueText,
     fc.json({ maxDepth: 4 }),
