@@ -189,7 +189,7 @@ export const PAGE_MATRIX: Record<string, PageEntry> = {
   '(studio)/patterns/page.tsx': { expect: studioPage, path: () => '/patterns' },
   '(studio)/sales/page.tsx': { expect: studioPage, path: () => '/sales' },
   '(testing)/testing/[id]/page.tsx': {
-    expect: { stranger: 'sign-in', quilter: 404, buyer: 404, tester: 200, owner: { redirect: '/patterns/' }, designer: 404, admin: 200 },
+    expect: { stranger: 'sign-in', quilter: 404, buyer: 404, tester: 200, owner: { redirect: '/patterns/' }, designer: 404, admin: { redirect: '/patterns/' } },
     path: (world) => `/testing/${world.patternId}`,
   },
   '(testing)/testing/page.tsx': { expect: signedInPage, path: () => '/testing' },

@@ -100,7 +100,6 @@ export async function buildWorld(): Promise<World> {
   await waiting.update({ designerRequestedAt: new Date() })
   const cookie = async (role: MatrixRole) => (role === 'stranger' ? undefined : sessionCookieFor(users[role]))
   const ownerCookie = (await cookie('owner'))!
-  const buyerCookie = (await cookie('buyer'))!
 
   const invite = (patternId: string, email: string, userId: string | null) =>
     Invitation.create({
@@ -126,13 +125,13 @@ export async function buildWorld(): Promise<World> {
   const licence = await Licence.create({ userId: users.buyer.id, patternId: listed.id, orderId: order.id })
   const makeProject = async () =>
     must<{ project: { id: string } }>(
-      await call(startProjectRoute, { method: 'POST', cookie: buyerCookie, body: { licenceId: licence.id, colorway: 0, diameterIn: 18, paper: 'letter' } }),
+      await call(startProjectRoute, { method: 'POST', cookie: (await cookie('buyer'))!, body: { licenceId: licence.id, colorway: 0, diameterIn: 18, paper: 'letter' } }),
       201, 'starting a project',
     ).project.id
   const projectId = await makeProject()
 
   const asked = must<{ id: string }>(
-    await call(requestBookletRoute, { method: 'POST', cookie: buyerCookie, params: { id: licence.id }, body: { paper: 'letter', orientation: 'portrait', colorway: LANTERN.colorways?.[0]?.name ?? 'Default', diameterIn: 18 } }),
+    await call(requestBookletRoute, { method: 'POST', cookie: (await cookie('buyer'))!, params: { id: licence.id }, body: { paper: 'letter', orientation: 'portrait', colorway: LANTERN.colorways?.[0]?.name ?? 'Default', diameterIn: 18 } }),
     202, 'asking for a booklet',
   )
   // Ready at once, its PDF stored: the worker's part is not what the matrix is about.
