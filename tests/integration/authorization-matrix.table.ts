@@ -98,9 +98,9 @@ export const API_MATRIX: Record<string, ApiEntry> = {
   },
   'GET /api/patterns/:id/invitations': { expect: patternWriters, body: 'none', limit: none, params: id('patternId') },
   'POST /api/patterns/:id/invitations': { expect: patternWriters, body: 'json', limit: form, params: id('patternId') },
-  // The published pattern: its licence holder (the buyer) reads it but may not change its listing.
-  'GET /api/patterns/:id/listing': { expect: { ...patternWriters, tester: 404, buyer: 403 }, body: 'none', limit: none, params: id('listedId') },
-  'PATCH /api/patterns/:id/listing': { expect: { ...patternWriters, tester: 404, buyer: 403 }, body: 'json', limit: form, params: id('listedId') },
+  // The published pattern: only its owner and admins find it here (the buyer reads it through the library).
+  'GET /api/patterns/:id/listing': { expect: { ...patternWriters, tester: 404 }, body: 'none', limit: none, params: id('listedId') },
+  'PATCH /api/patterns/:id/listing': { expect: { ...patternWriters, tester: 404 }, body: 'json', limit: form, params: id('listedId') },
   'GET /api/patterns/:id/reports': { expect: patternReaders, body: 'none', limit: none, params: id('patternId') },
   // Only a tester files; the designer and admins read the pattern but may not file (403).
   'POST /api/patterns/:id/reports': { expect: { ...patternReaders, owner: 403, admin: 403 }, body: 'json', limit: form, params: id('patternId') },
