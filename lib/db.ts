@@ -17,19 +17,40 @@ const globalForDatabase = globalThis as typeof globalThis & { wreathwrightSequel
 let modelsBoundTo: Sequelize | undefined
 
 /**
- * Errors of opening a connection: the statement was never sent, so trying again is safe for any
- * statement, a write included. A query that meets one (the database restarting, a fail-over) is
- * tried again a few times, 0.2 s, 0.3 s, 0.45 s, 0.7 s apart (about 1.7 s in all: our choice, a
- * fast restart's length), before the error reaches the request. Errors on a connection that was
- * open are not retried: a write may have happened. A connection that broke is dropped by the
- * pool (Sequelize's validate: `_invalid` once the connection emitted an error), so the next
- * query opens a new one.
+ * A read (a plain SELECT, no row lock) whose connection broke under it: the database restarted,
+ * failed over, or dropped the connection while it sat idle in the pool. Nothing was changed, so it
+ * is safe to ask again on a new connection (the broken one is dropped: Sequelize marks it invalid
+ * when it errs, and the pool's validate refuses it). A write whose connection broke is never
+ * asked again here: it may have happened.
  */
-const RETRY_ON_CONNECT_ERRORS = {
+const BROKEN_CONNECTION = /Connection terminated unexpectedly|terminating connection due to administrator command|ECONNRESET|not queryable/
+
+// An arrow function on purpose: retry-as-promised calls a `match` entry as a predicate when it
+// cannot be used with `instanceof` (an arrow function has no prototype).
+const isBrokenRead = (error: unknown): boolean => {
+  const { sql, original } = error as { sql?: unknown; original?: { message?: unknown; code?: unknown } }
+  if (typeof sql !== 'string' || !/^\s*SELECT\b/i.test(sql) || /\bFOR\s+(NO\s+KEY\s+)?(UPDATE|SHARE)\b/i.test(sql)) return false
+  return BROKEN_CONNECTION.test(String(original?.message)) || original?.code === 'ECONNRESET' || original?.code === '57P01'
+}
+
+/**
+ * When a statement is asked again (Sequelize's `retry`): after errors of opening a connection (the
+ * statement was never sent, so this is safe for any statement, a write included) and after a read
+ * whose connection broke (above). Up to five tries, 0.2 s, 0.3 s, 0.45 s and 0.7 s apart (about
+ * 1.7 s in all: our choice, the length of a quick restart), before the error reaches the request.
+ */
+const RETRY_ON_CONNECTION_ERRORS = {
   max: 5,
   backoffBase: 200,
   backoffExponent: 1.5,
-  match: [ConnectionRefusedError, HostNotReachableError, HostNotFoundError, ConnectionTimedOutError, /ECONNREFUSED|the database system is (starting up|shutting down)/],
+  match: [
+    ConnectionRefusedError,
+    HostNotReachableError,
+    HostNotFoundError,
+    ConnectionTimedOutError,
+    /ECONNREFUSED|the database system is (starting up|shutting down)/,
+    isBrokenRead,
+  ],
 }
 
 /**
@@ -63,7 +84,7 @@ export function createSequelize(databaseUrl: string, options: { log?: boolean; r
     logging: options.log ? console.log : false,
     pool: { max: 10, min: 0, idle: 10_000 },
     define: { underscored: true },
-    retry: RETRY_ON_CONNECT_ERRORS,
+    retry: RETRY_ON_CONNECTION_ERRORS,
     ...(readUrls.length > 0
       ? {
           // The primary is DATABASE_URL itself (`write: {}` takes its settings); reads go to it too

@@ -97,6 +97,9 @@ export function backupSources(): { databaseUrl: string; store: { client: S3Clien
   const env = serverEnv()
   const settings = objectStoreSettings(env)
   if (!settings) return { databaseUrl: env.DATABASE_URL, store: null }
+  // The SDK's notice that its releases after January 2027 need Node 22 is about versions this
+  // project does not use (package.json pins it): kept off stderr, which holds the one error line.
+  process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= 'true'
   const client = new S3Client({
     endpoint: settings.endpoint,
     region: settings.region,
