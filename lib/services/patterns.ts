@@ -44,7 +44,13 @@ function storedDesign(pattern: Pattern): DesignFile {
   return parsed.file
 }
 
-function toView(pattern: Pattern): PatternView {
+/**
+ * A pattern as the API answers it, design included, from a row already loaded and authorized (by
+ * `readablePattern`), so that a read loads the pattern once.
+ *
+ * @example Response.json({ pattern: toView((await readablePattern(user, id)).pattern) })
+ */
+export function toView(pattern: Pattern): PatternView {
   return { ...toSummary(pattern), ownerId: pattern.ownerId, design: storedDesign(pattern) }
 }
 
