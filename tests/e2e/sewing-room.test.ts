@@ -47,10 +47,17 @@ async function quilterWithTheWreath(name: string) {
   return { quilter, licence }
 }
 
-/** Starts a project from the library's "Sewing room" link and waits for its page; returns its id. */
-async function startFromLibrary(page: Page, licenceNumber: string, name: string): Promise<string> {
+/**
+ * Starts a project of the licence and waits for its page; returns its id. The library links each
+ * licence to its start page; on a phone the project is started from the sewing room's own list
+ * (the library's table is wider than a phone's screen).
+ */
+async function startFromLibrary(page: Page, licenceId: string, name: string): Promise<string> {
   await page.goto(`${baseUrl()}/library`)
-  await page.getByTestId('licence-row').filter({ hasText: licenceNumber }).getByRole('link', { name: 'Sewing room' }).click()
+  const link = page.locator(`[data-testid="licence-row"] a[href="/sewing-room/new?licence=${licenceId}"]`)
+  expect(await link.textContent()).toBe('Sewing room')
+  await page.goto(`${baseUrl()}/sewing-room`)
+  await page.locator(`[data-testid="startable"] a[href="/sewing-room/new?licence=${licenceId}"]`).click()
   await page.getByRole('heading', { name: /Start a project: Hollyberry Wreath/ }).waitFor()
   // Each colourway is shown with its fabrics' swatches.
   expect(await page.getByTestId('colorway-swatches').first().locator('svg').count()).toBeGreaterThan(1)
@@ -84,7 +91,7 @@ describe('the sewing room', () => {
     const { quilter, licence } = await quilterWithTheWreath('Marit Okafor')
     const phone = await (await newContext(PHONE)).newPage()
     await signInThroughPage(phone, quilter.email, TEST_PASSWORD)
-    const projectId = await startFromLibrary(phone, licence.number, 'For the hall')
+    const projectId = await startFromLibrary(phone, licence.id, 'For the hall')
     await expect.poll(() => phone.getByRole('heading', { level: 1 }).textContent()).toBe('For the hall')
 
     // One-handed: "done" and "undo" sit at the bottom of the screen and are large enough for a thumb.
@@ -141,7 +148,7 @@ describe('the sewing room', () => {
     const context = await newContext(PHONE)
     const page = await context.newPage()
     await signInThroughPage(page, quilter.email, TEST_PASSWORD)
-    const projectId = await startFromLibrary(page, licence.number, 'Test of patience')
+    const projectId = await startFromLibrary(page, licence.id, 'Test of patience')
 
     // The connection drops for the step requests (only those: the page itself still loads).
     const steps = `**/api/sewing-room/projects/${projectId}/steps`
