@@ -68,6 +68,47 @@ function pullOneEndOffLine(original: Design): Design | null {
   return null
 }
 
+/**
+ * The junctions of a design where one seam's end meets another seam that runs straight on through
+ * it, each pulled 0.15 in sideways (square to the straight seam). A seam that runs through is first
+ * drawn as two seams meeting end to end there (the same design: it still sews), so the point is a
+ * junction of seam ends that continue each other in a straight line; then the point moves with
+ * every seam end at it, as a designer drags it, and the two seams bend: a set-in or bent junction.
+ * One direction per junction, alternating, so the cases stay few; seams that carry leaves are not split.
+ */
+function pullJunctionsOffLine(original: Design): { label: string; split: Design; pulled: Design }[] {
+  const along = (p: Point, seam: Seam): number | null => {
+    const [a, b] = [seam.from, seam.to]
+    const length = Math.hypot(b[0] - a[0], b[1] - a[1])
+    const t = ((p[0] - a[0]) * (b[0] - a[0]) + (p[1] - a[1]) * (b[1] - a[1])) / (length * length)
+    const across = Math.abs((b[0] - a[0]) * (p[1] - a[1]) - (b[1] - a[1]) * (p[0] - a[0])) / length
+    return t > 0.01 && t < 0.99 && across < 1e-3 ? t : null
+  }
+  const ids = new Set(original.seams.map((seam) => seam.id))
+  const cases: { label: string; split: Design; pulled: Design }[] = []
+  const sorted = [...original.seams].sort((p, q) => (p.id < q.id ? -1 : 1))
+  for (const stem of sorted) {
+    for (const end of ['from', 'to'] as const) {
+      const point = stem[end]
+      const through = sorted.find((seam) => seam.id !== stem.id && along(point, seam) !== null && !original.leaves.some((leaf) => leaf.seam === seam.id))
+      if (!through) continue
+      let half = `${through.id}-on`
+      while (ids.has(half)) half = `${half}-on`
+      const [dx, dy] = [through.to[0] - through.from[0], through.to[1] - through.from[1]]
+      const length = Math.hypot(dx, dy)
+      const sign = cases.length % 2 === 0 ? 1 : -1
+      const moved: Point = [point[0] - (sign * 0.15 * dy) / length, point[1] + (sign * 0.15 * dx) / length]
+      const drawn = (at: Point): Seam[] =>
+        original.seams.flatMap((seam): Seam[] => {
+          if (seam.id === through.id) return [{ ...seam, to: at }, { ...seam, id: half, from: at }]
+          return seam.id === stem.id ? [{ ...seam, [end]: at }] : [seam]
+        })
+      cases.push({ label: `${stem.id} ${end} on ${through.id}`, split: { ...original, seams: drawn(point) }, pulled: { ...original, seams: drawn(moved) } })
+    }
+  }
+  return cases
+}
+
 describe('suggestRepairs: worked examples', () => {
   const examples: [string, Design][] = [
     ['a Y junction', fixture('y-junction-set-in')],
@@ -117,6 +158,21 @@ describe('suggestRepairs: worked examples', () => {
       expect(suggestions.length).toBeGreaterThanOrEqual(1)
       for (const suggestion of suggestions) expectSuggestionHolds(pulled, suggestion)
     })
+  }
+
+  for (const [name, demo] of demos) {
+    for (const { label, split, pulled } of pullJunctionsOffLine(demo)) {
+      // Only where the move is what stops it: the design drawn with the seam in two still sews.
+      if (!planDesign(split, { suggestions: false }).sewable) continue
+      it(`repairs ${name} with the junction ${label} pulled 0.15 in off line`, () => {
+        expect(planDesign(pulled, { suggestions: false }).sewable).toBe(false)
+        const { suggestions } = suggestRepairs(pulled, UNHURRIED)
+        expect(suggestions.length).toBeGreaterThanOrEqual(1)
+        // The likely fix is judged first, so the state budget never runs out before it.
+        expect(suggestions.some((suggestion) => suggestion.message.startsWith('Move the point where'))).toBe(true)
+        for (const suggestion of suggestions) expectSuggestionHolds(pulled, suggestion)
+      })
+    }
   }
 
   it('offers nothing for a design that sews in one section', () => {

@@ -10,7 +10,7 @@
  */
 import { applyEdit, candidateEdits, describeEdit, editKey, newSeamId, visibleChange, type Edit } from './repairs-candidates'
 import { judgePrepared, judgeSeams, prepareSeams, stuckAreas, type Judgement, type Prepared } from './repairs-evaluate'
-import { MAX_REPAIR_STATES, OUTPUT_DECIMALS, REPAIR_BUDGET_MS } from './tolerances'
+import { MAX_REPAIR_STATES, OUTPUT_DECIMALS, REPAIR_BUDGET_MS, SNAP_DISTANCE_INCHES } from './tolerances'
 import type { Design, ProblemCode, Seam } from './types'
 
 /** One proposed change, ranked with the others by `suggestRepairs`. */
@@ -184,7 +184,7 @@ export function searchRepairs(design: Design, judged: Judgement, options: Repair
    * found before any candidate pays for proving that it needs many. Returns the candidates that
    * still do not sew, with what stops them, for a second edit.
    */
-  const evaluate = (candidates: readonly Candidate[]): { candidate: Candidate; judgement: Judgement }[] => {
+  const evaluate = (candidates: Iterable<Candidate>): { candidate: Candidate; judgement: Judgement }[] => {
     const stuck: { candidate: Candidate; judgement: Judgement }[] = []
     const clean: { candidate: Candidate; prepared: Prepared; done: boolean }[] = []
     for (const candidate of candidates) {
@@ -238,18 +238,31 @@ export function searchRepairs(design: Design, judged: Judgement, options: Repair
       .map(({ edit }) => edit)
   // One edit.
   const name = newSeamId(design.seams)
-  const unsewable = evaluate(byChange(candidateEdits(design.ring, base, mode)).map((edit) => candidate(applyEdit(design.seams, edit), [edit], [name])))
+  const ones = byChange(candidateEdits(design.ring, base, mode)).map((edit) => candidate(applyEdit(design.seams, edit), [edit], [name]))
+  // The likely cheap fix first, in a batch of its own: a junction pulled off line (a set-in or
+  // bent junction) moved back so two of its seams run on straight. Judged before the extensions
+  // at every loose end it left can spend the state budget (a demo wreath with a junction pulled
+  // sideways leaves five loose ends, twenty candidates).
+  const problemPoints = base.errors.filter((problem) => problem.code === 'set-in-seam' || problem.code === 'bent-seam').map((problem) => problem.at)
+  const atProblem = (entry: Candidate): boolean => {
+    const edit = entry.edits[0] as Edit
+    return edit.kind === 'straighten' && problemPoints.some((at) => Math.hypot(at[0] - edit.at[0], at[1] - edit.at[1]) <= SNAP_DISTANCE_INCHES)
+  }
+  const unsewable = [...evaluate(ones.filter(atProblem)), ...evaluate(ones.filter((entry) => !atProblem(entry)))]
   // Two edits: a second change where the first left the design unsewable, closest to sewing first;
   // not when one edit already sews in one section (a second edit cannot beat that by sections).
   if (mode === 'repair' && !stopped && !(found.length > 0 && (found[0] as Found).sections === 1)) {
     const firsts = unsewable
       .filter(({ judgement }) => judgement.errors.every((problem) => REPAIRABLE.has(problem.code)))
       .sort((p, q) => p.judgement.errors.length - q.judgement.errors.length || p.candidate.change - q.candidate.change || (p.candidate.key < q.candidate.key ? -1 : 1))
-    const seconds = firsts.flatMap(({ candidate: first, judgement }) => {
-      const next = newSeamId(first.seams)
-      return byChange(candidateEdits(design.ring, judgement, 'repair')).map((edit) => candidate(applyEdit(first.seams, edit), [...first.edits, edit], [...first.names, next]))
-    })
-    evaluate(seconds)
+    // Made as they are judged: the state budget stops long before every pair is written out.
+    function* seconds(): Generator<Candidate> {
+      for (const { candidate: first, judgement } of firsts) {
+        const next = newSeamId(first.seams)
+        for (const edit of byChange(candidateEdits(design.ring, judgement, 'repair'))) yield candidate(applyEdit(first.seams, edit), [...first.edits, edit], [...first.names, next])
+      }
+    }
+    evaluate(seconds())
   }
   return {
     suggestions: found.map((f) => ({ message: f.message, seams: f.seams, sections: f.sections, addedLengthIn: f.addedIn, movedIn: f.movedIn })),
