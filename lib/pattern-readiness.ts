@@ -38,7 +38,7 @@ export function rolesOfDesign(design: Pick<Design, 'fills' | 'leaves' | 'stems' 
  */
 export function readinessProblems(design: Design): ReadinessProblem[] {
   const problems: ReadinessProblem[] = []
-  const plan = planDesign(design)
+  const plan = planDesign(design, { suggestions: false })
   const error = plan.problems.find((problem) => problem.severity === 'error')
   if (error) problems.push({ rule: 'sewable-plan', message: `the sewing plan has an error: ${error.message}` })
   else if (!plan.sewable) problems.push({ rule: 'sewable-plan', message: 'the sewing plan has an error: the design has no section to sew yet' })

@@ -18,7 +18,7 @@ const WIDTH_OF_FABRIC_INCHES = 40
 
 /** The same design with its areas filled from `roles` in turn (plan order), so pieces spread over several fabrics. */
 function filledInTurn(design: Design, roles: readonly string[]): Design {
-  const fills: Fill[] = planDesign(design).areas.map((area, index) => ({ at: area.point, fabric: roles[index % roles.length]! }))
+  const fills: Fill[] = planDesign(design, { suggestions: false }).areas.map((area, index) => ({ at: area.point, fabric: roles[index % roles.length]! }))
   return { ...design, fills }
 }
 
@@ -37,7 +37,7 @@ designs.push(['160-area 5 × 8 grid ring, one fabric', grid])
 const rows = ['design                                   fabric              pieces  length in  bound in  ratio  FFDH in']
 const ratios: number[] = []
 for (const [name, design] of designs) {
-  const plan = planDesign(design)
+  const plan = planDesign(design, { suggestions: false })
   const times: number[] = []
   let result = fabricRequirements(design, plan, design.colorways[0] ?? null, { widthOfFabricIn: WIDTH_OF_FABRIC_INCHES })
   for (let i = 0; i < RUNS; i += 1) {

@@ -80,7 +80,7 @@ export async function runCuttingCommand(args: readonly string[]): Promise<{ code
       const known = design.colorways.map((candidate) => `"${candidate.name}"`).join(', ')
       throw new UsageError(`${designPath} has no colourway named "${name}"${known ? `; it has ${known}` : '; it has none'}`)
     }
-    const result = fabricRequirements(design, planDesign(design), colorway, { widthOfFabricIn, extraPercent })
+    const result = fabricRequirements(design, planDesign(design, { suggestions: false }), colorway, { widthOfFabricIn, extraPercent })
     return { code: 0, stdout: `${JSON.stringify(toJson(result), null, 2)}\n`, stderr: '' }
   } catch (error) {
     if (!(error instanceof UsageError) && !(error instanceof DesignFileError)) throw error

@@ -465,7 +465,7 @@ async function seedTestRound(people: ReadonlyMap<string, User>, transaction: Tra
   }
   if ((await Report.count({ where: { patternId: pattern.id }, transaction })) > 0) return 0
   const parsed = parseDesign(pattern.design)
-  const plan = parsed.ok ? planDesign(parsed.design) : null
+  const plan = parsed.ok ? planDesign(parsed.design, { suggestions: false }) : null
   for (const demo of DEMO_REPORTS) {
     const tester = people.get(demo.tester)!
     const at = daysAgo(demo.daysAgo)

@@ -50,7 +50,7 @@ export function FabricScreen({ name, design: file }: { name: string; design: Des
 }
 
 function FabricWorkspace({ name, design, units }: { name: string; design: Design; units: LengthUnits }) {
-  const plan = useMemo(() => planDesign(design), [design])
+  const plan = useMemo(() => planDesign(design, { suggestions: false }), [design])
   const [colorwayName, setColorwayName] = useState(design.colorways[0]?.name ?? '')
   const [widthOfFabric, setWidthOfFabric] = useState(units === 'cm' ? String(Math.round(inchesToCentimetres(40) * 10) / 10) : '40')
   const [extraPercent, setExtraPercent] = useState('10')

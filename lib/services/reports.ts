@@ -108,7 +108,7 @@ export async function authorizeReportStateChange(actor: Actor, reportId: string)
 function currentPlan(pattern: Pattern): { plan: Plan; ring: Ring } | null {
   const parsed = parseDesign(pattern.design)
   if (!parsed.ok) return null
-  return { plan: planDesign(parsed.design), ring: parsed.design.ring }
+  return { plan: planDesign(parsed.design, { suggestions: false }), ring: parsed.design.ring }
 }
 
 function roleIn(actor: NonNullable<Actor>, facts: PatternFacts): ReportAuthorRole {

@@ -40,7 +40,7 @@ export interface RingCoverOptions {
  */
 export function ringCoverSvg(design: Design, options: RingCoverOptions): string {
   const colorway = design.colorways.find((candidate) => candidate.name === options.colorway) ?? design.colorways[0] ?? null
-  const plan = planDesign(design)
+  const plan = planDesign(design, { suggestions: false })
   const drawing = ringDrawing(design, plan, colorway)
   const r = design.ring.outerRadius
   const areasId = `${options.idPrefix}-areas`
