@@ -46,8 +46,9 @@ function medians(first: () => unknown, second: () => unknown): [number, number] 
   return [a[RUNS >> 1] as number, b[RUNS >> 1] as number]
 }
 
+/** The plan itself, without the repair search (timed on its own by scripts/bench-repairs.ts). */
 function fullPlan(design: Design): number {
-  const plan = planDesign(design)
+  const plan = planDesign(design, { suggestions: false })
   for (const area of plan.areas) cuttingShape(area.polygon)
   return plan.sections.length
 }
@@ -80,7 +81,7 @@ for (const [kind, design] of designs) {
   const sections = fullPlan(design)
   const [plan, split] = medians(() => fullPlan(design), () => bareSplit(design))
   rows.push(
-    `${String(planDesign(design).areas.length).padStart(5)}  ${kind.padEnd(16)}  ${String(sections).padStart(5)}  ${plan.toFixed(2).padStart(16)}  ${split.toFixed(2).padStart(25)}  ${(plan / split).toFixed(2).padStart(5)}×`,
+    `${String(planDesign(design, { suggestions: false }).areas.length).padStart(5)}  ${kind.padEnd(16)}  ${String(sections).padStart(5)}  ${plan.toFixed(2).padStart(16)}  ${split.toFixed(2).padStart(25)}  ${(plan / split).toFixed(2).padStart(5)}×`,
   )
 }
 console.log(rows.join('\n'))
