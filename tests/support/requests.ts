@@ -34,10 +34,12 @@ export async function call<Params = Record<string, never>>(handler: Handler<Para
   const request = new Request(`${TEST_ORIGIN}${options.path ?? '/'}`, init)
   const response = await handler(request, { params: Promise.resolve((options.params ?? {}) as Params) })
   const text = await response.text()
+  // A PDF, an image or a CSV is no JSON: `json` is null and the bytes are left to `text`.
+  const isJson = /json/.test(response.headers.get('content-type') ?? 'application/json')
   // Tests read any field of a response body and check it with expect(), so the body stays loosely typed.
   // eslint-disable-next-line @typescript-eslint/no-explicit-any
-  const json = text ? (JSON.parse(text) as Record<string, any>) : null
-  return { status: response.status, json, headers: response.headers }
+  const json = text && isJson ? (JSON.parse(text) as Record<string, any>) : null
+  return { status: response.status, json, text, headers: response.headers }
 }
 
 /** The session id a Set-Cookie header carries (empty when it clears the cookie). */
