@@ -1,7 +1,7 @@
 import 'server-only'
 import { Op, Transaction, type WhereOptions } from 'sequelize'
 import { authorize, can, type Actor } from '@/lib/authorization'
-import { database } from '@/lib/db'
+import { database, STALE_READ } from '@/lib/db'
 import { NotFoundError, ValidationError } from '@/lib/errors'
 import { fieldIssues } from '@/lib/http'
 import { parseDesign } from '@/lib/schemas/design'
@@ -90,7 +90,9 @@ export async function listShopPatterns(query: ShopListingQuery): Promise<ShopLis
   if (query.repeats !== undefined) conditions.push({ repeats: query.repeats })
   if (query.minPriceCents !== undefined) conditions.push({ priceCents: { [Op.gte]: query.minPriceCents } })
   if (query.maxPriceCents !== undefined) conditions.push({ priceCents: { [Op.lte]: query.maxPriceCents } })
+  // The shop's search may be a moment behind (a replica, when DATABASE_READ_URLS names one).
   const { rows, count } = await Pattern.findAndCountAll({
+    ...STALE_READ,
     where: { [Op.and]: conditions },
     attributes: LISTING_COLUMNS,
     include: [{ model: User, as: 'owner', attributes: ['displayName'], required: false }],
