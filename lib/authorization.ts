@@ -249,7 +249,7 @@ export function can<A extends Action>(actor: Actor, action: A, ...resource: Reso
 }
 
 /** The admin desk's actions: refused as 404, so that the desk's addresses are not even found by others. */
-const ADMIN_DESK_ACTIONS: ReadonlySet<Action> = new Set(['manage-users', 'decide-designer-requests', 'read-audit-log', 'read-mail-log', 'read-payment-log', 'hide-listing'])
+const ADMIN_DESK_ACTIONS: ReadonlySet<Action> = new Set(['manage-users', 'decide-designer-requests', 'read-audit-log', 'read-mail-log', 'read-payment-log', 'hide-listing', 'refund-order'])
 
 /**
  * Throws unless the actor may take the action: 401 when nobody is signed in, otherwise 403 —

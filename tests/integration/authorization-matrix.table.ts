@@ -69,11 +69,8 @@ export const API_MATRIX: Record<string, ApiEntry> = {
   'GET /api/admin/designer-requests': { expect: adminDesk, body: 'none', limit: none },
   'PATCH /api/admin/listings/:id': { expect: adminDesk, body: 'json', limit: form, params: id('listedId') },
   'GET /api/admin/mail': { expect: adminDesk, body: 'none', limit: none },
-  // Refused with 403, not hidden: the buyer and the designer know the order exists. The admin's
-  // call answers 409 (the order was never paid through the provider), after the permission.
-  'POST /api/admin/orders/:id/refund': {
-    expect: { stranger: 401, quilter: 403, buyer: 403, tester: 403, owner: 403, designer: 403, admin: 'allowed' }, body: 'none', limit: none, params: id('orderId'),
-  },
+  // The admin's call answers 409 (the order was never paid through the provider), after the permission.
+  'POST /api/admin/orders/:id/refund': { expect: adminDesk, body: 'none', limit: none, params: id('orderId') },
   'GET /api/admin/payments': { expect: adminDesk, body: 'none', limit: none },
   'PATCH /api/admin/users/:id': { expect: adminDesk, body: 'json', limit: form, params: id('personId') },
   'GET /api/admin/users': { expect: adminDesk, body: 'none', limit: none },
