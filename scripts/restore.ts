@@ -6,8 +6,8 @@
  *   1. checks the folder first: its manifest, and every file's size and SHA-256 — a damaged or
  *      incomplete backup changes nothing;
  *   2. writes every saved object back (same key, same bytes, same content type);
- *   3. restores the database with pg_restore --clean in one transaction: every table of the backup
- *      is dropped and made again with its rows, or, if anything fails, nothing changes;
+ *   3. restores the database in one transaction: the app's schemas (public, pgboss) are dropped
+ *      and made again from the backup with their rows, or, if anything fails, nothing changes;
  *   4. only then removes the objects under S3_KEY_PREFIX that the backup does not have (uploaded
  *      after it), so the store matches the rows again.
  * Stop the app and the workers first (their connections would hold the tables). `--yes` is
@@ -17,10 +17,14 @@
  * 1 when the restore failed.
  */
 import fs from 'node:fs'
+import os from 'node:os'
 import path from 'node:path'
 import { DeleteObjectsCommand, ListObjectsV2Command, PutObjectCommand } from '@aws-sdk/client-s3'
 import { backupSources, databaseName, MANIFEST_FILE, runPostgresProgram, sha256OfFile, type Manifest } from './backup-folder'
 import { UsageError } from './command-arguments'
+
+/** The schemas the app's database holds: its tables (public) and the job queue's (pg-boss). */
+const APP_SCHEMAS = ['pgboss', 'public'] as const
 
 const USAGE = 'usage: npm run restore -- <backup folder> --yes'
 
@@ -74,11 +78,21 @@ async function restore(folder: string): Promise<{ manifest: Manifest; written: n
     }
   }
 
-  await runPostgresProgram(
-    'pg_restore',
-    ['-w', '--clean', '--if-exists', '--no-owner', '--no-privileges', '--single-transaction', '--exit-on-error', '--dbname', databaseName(databaseUrl), path.join(folder, manifest.database.file)],
-    databaseUrl,
-  )
+  // pg_restore --clean cannot drop a partition's inherited key (pg-boss keeps one partition per
+  // queue), so the schemas the app owns are dropped whole and made again from the backup's SQL,
+  // all in one psql transaction: everything is restored, or nothing changes.
+  const script = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'wreathwright-restore-')), 'database.sql')
+  try {
+    await runPostgresProgram('pg_restore', ['--no-owner', '--no-privileges', '--file', script, path.join(folder, manifest.database.file)], databaseUrl)
+    await runPostgresProgram(
+      'psql',
+      ['-w', '-X', '-q', '-v', 'ON_ERROR_STOP=1', '--single-transaction', '--dbname', databaseName(databaseUrl),
+        '-c', `DROP SCHEMA IF EXISTS ${APP_SCHEMAS.join(', ')} CASCADE`, '-c', 'CREATE SCHEMA public', '-f', script],
+      databaseUrl,
+    )
+  } finally {
+    fs.rmSync(path.dirname(script), { recursive: true, force: true })
+  }
 
   let removed = 0
   if (manifest.objects && store) {
