@@ -78,7 +78,7 @@ describe('a test round', () => {
 
     // The list of patterns to test has it; the designer sees the tester by name.
     await page.goto(`${baseUrl()}/testing`)
-    await page.getByRole('link', { name }).waitFor()
+    await page.getByRole('link', { name, exact: true }).waitFor()
     await studio.reload()
     await expect.poll(() => studio.getByTestId('invitations').textContent()).toContain('Nia Bloom')
     expect(pageErrors).toEqual([])
