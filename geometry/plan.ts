@@ -312,5 +312,6 @@ export function planDesign(design: Design, options: PlanOptions = {}): Plan {
     ringAssembly: ring.assembly,
     problems: sortedProblems,
     ...repairs,
+    ...(repairs.suggestions && { suggestions: repairs.suggestions.map((suggestion) => ({ ...suggestion, message: nameLeavesIn(suggestion.message, names) })) }),
   }
 }

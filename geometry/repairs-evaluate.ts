@@ -7,11 +7,12 @@ import { buildArrangement, type Arrangement } from './arrangement'
 import { areaSetOf } from './area-set'
 import { buildTopology, type Topology } from './area-topology'
 import { fewestSections } from './fewest-sections'
+import { checkHandSetOrder } from './hand-set-order'
 import { insertConstraints } from './inserts'
 import { createPeelSearch, stuckCore, type InsertConstraint } from './sewing-order'
 import { setInSeamProblems } from './sewing-problems'
 import { MAX_PLAN_AREAS } from './tolerances'
-import type { Leaf, Problem, Ring, Seam } from './types'
+import type { HandSetOrder, Leaf, Problem, Ring, Seam } from './types'
 
 export interface Judgement {
   readonly sewable: boolean
@@ -87,4 +88,19 @@ export function judgeSeams(ring: Ring, seams: readonly Seam[], leaves: readonly 
 export function stuckAreas(topology: Topology): number[] {
   const all = areaSetOf(topology.areaCount, Array.from({ length: topology.areaCount }, (_, index) => index))
   return stuckCore(createPeelSearch(topology, []), all)
+}
+
+/**
+ * Whether a design sews in the designer's hand-set order, as the planner checks it: the seams'
+ * errors and the order's own (a step that meets the sewn areas along no seam or along two lines,
+ * a join that is not one straight seam, …). `sections` is the order's count of sections.
+ *
+ * @example judgeHandSetOrder(ring, seams, leaves, design.order).sewable // false when the order is wrong
+ */
+export function judgeHandSetOrder(ring: Ring, seams: readonly Seam[], leaves: readonly Leaf[], order: HandSetOrder): { readonly sewable: boolean; readonly sections: number } {
+  const prepared = prepareSeams(ring, seams, leaves)
+  if (prepared.unplannable) return { sewable: false, sections: 0 }
+  const checked = checkHandSetOrder(prepared.topology, prepared.arrangement, order, prepared.constraints)
+  const sewable = prepared.errors.length === 0 && checked.sections.length > 0 && !checked.problems.some((problem) => problem.severity === 'error')
+  return { sewable, sections: sewable ? checked.sections.length : 0 }
 }

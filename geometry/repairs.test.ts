@@ -4,12 +4,14 @@ import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
 import { parseDesign } from '../lib/schemas/design'
 import { hollyberryWreath } from '../scripts/demo-wreath'
+import { DEMO_PATTERNS } from '../scripts/demo-data'
 import { DEMO_SEASON_PATTERNS } from '../scripts/demo-season'
 import { design, yJunctionDesign } from './fixtures/generators'
 import { planDesign } from './plan'
-import { suggestRepairs, type Suggestion } from './repairs'
+import { isPointedLeaf } from './leaf-template'
+import { leafResizes, suggestRepairs, type Suggestion } from './repairs'
 import { repeatSpan } from './ring'
-import { SHORT_MOVE_FRACTION } from './tolerances'
+import { LEAF_RESIZE_STEP_INCHES, SHORT_MOVE_FRACTION } from './tolerances'
 import type { Design, Point, Seam } from './types'
 
 /** Time is a safety net only; tests judge the deterministic state budget. */
@@ -27,9 +29,17 @@ function parsed(file: unknown): Design {
   return result.design
 }
 
-/** Applies a suggestion as the board does (the seams list replaced) and plans the result again. */
+/**
+ * A suggestion applied as the board and a reader of the plan apply it: the seams list replaced,
+ * the leaves list replaced when it carries one, the hand-set order dropped when it says so.
+ */
+function applied(original: Design, suggestion: Suggestion): Design {
+  return { ...original, seams: suggestion.seams, leaves: suggestion.leaves ?? original.leaves, order: suggestion.clearsOrder ? null : original.order }
+}
+
+/** Applies a suggestion (`applied`) and plans the result again. */
 function expectSuggestionHolds(original: Design, suggestion: Suggestion): void {
-  const changed: Design = { ...original, seams: suggestion.seams }
+  const changed = applied(original, suggestion)
   const plan = planDesign(changed, { suggestions: false })
   expect(plan.problems.filter((problem) => problem.severity === 'error'), suggestion.message).toEqual([])
   expect(plan.sewable, suggestion.message).toBe(true)
@@ -42,6 +52,11 @@ function expectSuggestionHolds(original: Design, suggestion: Suggestion): void {
   // Seam ids kept: every original seam is still there under its id.
   for (const seam of original.seams) expect(ids.has(seam.id)).toBe(true)
   expect(suggestion.seams.length - original.seams.length).toBeLessThanOrEqual(2)
+  // Leaves kept, each on its seam at its place: a repair changes at most a leaf's length or width.
+  expect(changed.leaves.map(({ length: _l, width: _w, ...rest }) => rest)).toEqual(original.leaves.map(({ length: _l, width: _w, ...rest }) => rest))
+  // The order is dropped only when the suggestion says so, and a design with none has nothing to drop.
+  if (!original.order) expect(suggestion.clearsOrder).toBeUndefined()
+  if (suggestion.clearsOrder) expect(suggestion.message).toMatch(/Let Wreathwright choose the order/i)
 }
 
 /** A seam end lying on another seam's middle (a T-junction), pulled back 0.2 in along its own seam. */
@@ -196,10 +211,135 @@ describe('suggestRepairs: worked examples', () => {
     expect(result.suggestions.length).toBeLessThanOrEqual(1)
   })
 
-  it('offers nothing for a design with a hand-set order (the order names areas a change would move)', () => {
-    const y = fixture('y-junction-set-in')
-    expect(suggestRepairs({ ...y, order: { sections: [], assembly: null } }).suggestions).toEqual([])
+  it('offers nothing for a design that sews in its hand-set order (its sections are the designer\'s choice)', () => {
+    const crossing = fixture('x-crossing-two-sections')
+    const plan = planDesign(crossing, { suggestions: false })
+    const byHand: Design = { ...crossing, order: { sections: plan.sections.map((section) => ({ label: section.label, areas: section.order.map((id) => plan.areas.find((area) => area.id === id)!.point) })), assembly: null } }
+    expect(planDesign(byHand, { suggestions: false }).sewable).toBe(true)
+    expect(suggestRepairs(byHand).suggestions).toEqual([])
+    expect(planDesign(byHand).suggestions).toEqual([])
   })
+})
+
+describe('suggestRepairs: a wrong hand-set order and an impossible leaf', () => {
+  it('lets Wreathwright choose the order of strips sewn out of order: seams unchanged, order dropped', () => {
+    const strips = fixture('hand-set-order-two-lines')
+    const { suggestions, stopped } = suggestRepairs(strips, UNHURRIED)
+    expect(stopped).toBe(false)
+    expect(suggestions).toEqual([{ message: 'Let Wreathwright choose the order: sews in 1 section', seams: strips.seams, sections: 1, addedLengthIn: 0, movedIn: 0, clearsOrder: true }])
+    expectSuggestionHolds(strips, suggestions[0]!)
+  })
+
+  it('lets Wreathwright choose the order of four cells joined the wrong way round: two sections', () => {
+    const cells = fixture('hand-set-join-tree-two-lines')
+    const [first, ...rest] = suggestRepairs(cells, UNHURRIED).suggestions
+    expect(rest).toEqual([])
+    expect(first?.message).toBe('Let Wreathwright choose the order: sews in 2 sections')
+    expect(first?.seams).toBe(cells.seams)
+    expectSuggestionHolds(cells, first!)
+  })
+
+  it('runs the seam changes on the design without its order when the seams cannot be sewn in any order', () => {
+    const y = fixture('y-junction-set-in')
+    const withOrder: Design = { ...y, order: { sections: [], assembly: null } }
+    const free = suggestRepairs(y, UNHURRIED).suggestions
+    const ordered = suggestRepairs(withOrder, UNHURRIED).suggestions
+    expect(ordered.length).toBe(free.length)
+    ordered.forEach((suggestion, index) => {
+      const plain = free[index]!
+      expect(suggestion.clearsOrder).toBe(true)
+      expect(suggestion.seams).toEqual(plain.seams)
+      expect(suggestion.message).toBe(`Let Wreathwright choose the order and ${plain.message.charAt(0).toLowerCase()}${plain.message.slice(1)}`)
+      expectSuggestionHolds(withOrder, suggestion)
+    })
+  })
+
+  it('resizes a leaf too wide for its length: 3 in wide needs more than 1.5 in, so 1.625 in long; or 0.875 in wide', () => {
+    const stubby = fixture('leaf-too-wide-for-its-length')
+    const { suggestions } = suggestRepairs(stubby, UNHURRIED)
+    expect(suggestions.map((s) => [s.message, s.leaves?.map((leaf) => [leaf.length, leaf.width])])).toEqual([
+      ['Lengthen {leaf:stubby} from 0.5 in to 1.625 in: sews in 1 section', [[1.625, 3]]],
+      ['Narrow {leaf:stubby} from 3 in to 0.875 in wide: sews in 1 section', [[0.5, 0.875]]],
+    ])
+    for (const suggestion of suggestions) {
+      expect(suggestion.seams).toBe(stubby.seams)
+      expect(suggestion.clearsOrder).toBeUndefined()
+      expectSuggestionHolds(stubby, suggestion)
+    }
+    // The plan names the leaf as its problem does.
+    expect(planDesign(stubby).suggestions?.[0]?.message).toBe('Lengthen leaf 1 from 0.5 in to 1.625 in: sews in 1 section')
+  })
+
+  it('resizes an impossible leaf and changes the seams together when both stop the design', () => {
+    const y = fixture('y-junction-set-in')
+    const seam = [...y.seams].sort((p, q) => (p.id < q.id ? -1 : 1))[0]!
+    const broken: Design = { ...y, leaves: [{ id: 'wide', seam: seam.id, at: 0.5, side: 'left', angle: 0, length: 0.25, width: 2, layers: ['leaf-dark'] }] }
+    const { suggestions } = suggestRepairs(broken, UNHURRIED)
+    expect(suggestions.length).toBeGreaterThanOrEqual(1)
+    for (const suggestion of suggestions) {
+      expect(suggestion.message).toMatch(/^Lengthen \{leaf:wide\} from 0\.25 in to 1\.125 in and /)
+      expect(suggestion.leaves?.[0]?.length).toBe(1.125)
+      expectSuggestionHolds(broken, suggestion)
+    }
+  })
+
+  it('keeps a hand-set order that sews when only a leaf is resized', () => {
+    const stubby = fixture('leaf-too-wide-for-its-length')
+    const fixed: Design = { ...stubby, leaves: stubby.leaves.map((leaf) => ({ ...leaf, length: 2 })) }
+    const plan = planDesign(fixed, { suggestions: false })
+    const order = { sections: plan.sections.map((section) => ({ label: section.label, areas: section.order.map((id) => plan.areas.find((area) => area.id === id)!.point) })), assembly: null }
+    const byHand: Design = { ...stubby, order }
+    const [first] = suggestRepairs(byHand, UNHURRIED).suggestions
+    expect(first?.clearsOrder).toBeUndefined()
+    expect(first?.message).toBe('Lengthen {leaf:stubby} from 0.5 in to 1.625 in: sews in 1 section')
+    expectSuggestionHolds(byHand, first!)
+  })
+
+  it('resizes to the nearest 1/8 in that makes a pointed leaf, never past it (property)', () => {
+    const eighths = fc.integer({ min: 1, max: 160 }).map((n) => n / 8)
+    const any = fc.double({ min: 0.05, max: 20, noNaN: true })
+    fc.assert(
+      fc.property(fc.oneof(eighths, any), fc.oneof(eighths, any), (length, width) => {
+        fc.pre(!isPointedLeaf(length, width))
+        const leaf = { id: 'l', seam: 's', at: 0.5, side: 'left' as const, angle: 0, length, width, layers: [] }
+        const { longer, narrower } = leafResizes(leaf)
+        expect(longer).not.toBeNull()
+        expect(isPointedLeaf(longer!.size.length, width)).toBe(true)
+        expect(isPointedLeaf(longer!.size.length - LEAF_RESIZE_STEP_INCHES, width)).toBe(false)
+        expect(Number.isInteger(Math.round(longer!.size.length * 8 * 1e6) / 1e6)).toBe(true)
+        if (narrower) {
+          expect(isPointedLeaf(length, narrower.size.width)).toBe(true)
+          expect(isPointedLeaf(length, narrower.size.width + LEAF_RESIZE_STEP_INCHES)).toBe(false)
+        } else {
+          expect(2 * length).toBeLessThanOrEqual(LEAF_RESIZE_STEP_INCHES)
+        }
+      }),
+    )
+  })
+
+  // Done when (issue 16): every unsewable demo or fixture design gets a working suggestion, both
+  // through the plan (the command line prints it) and through the search the board runs.
+  const everyDesign: [string, Design][] = [
+    ...DEMO_PATTERNS.map((pattern): [string, Design] => [`demo ${pattern.design.name}`, parsed(pattern.design)]),
+    ...DEMO_SEASON_PATTERNS.map((pattern): [string, Design] => [`demo ${pattern.design.name}`, parsed(pattern.design)]),
+    ...readdirSync(join(import.meta.dirname, 'fixtures'))
+      .filter((name) => existsSync(join(import.meta.dirname, 'fixtures', name, 'design.json')))
+      .map((name): [string, Design] => [`fixture ${name}`, fixture(name)]),
+  ]
+  for (const [name, subject] of everyDesign) {
+    if (planDesign(subject, { suggestions: false }).sewable) continue
+    it(`gives the unsewable ${name} a suggestion that holds, in the plan and on the board's search`, () => {
+      const plan = planDesign(subject)
+      expect(plan.suggestions?.length, name).toBeGreaterThanOrEqual(1)
+      for (const suggestion of plan.suggestions ?? []) {
+        expect(suggestion.message).not.toContain('{leaf:')
+        expectSuggestionHolds(subject, suggestion)
+      }
+      const { suggestions } = suggestRepairs(subject, UNHURRIED)
+      expect(suggestions.length).toBeGreaterThanOrEqual(1)
+      for (const suggestion of suggestions) expectSuggestionHolds(subject, suggestion)
+    })
+  }
 })
 
 // ——— The slow exhaustive search: every single edit of the three kinds anywhere in the design. ———
@@ -329,10 +469,11 @@ describe('suggestRepairs: properties', () => {
   })
 
   it('gives the same list on every run and for any order of seams, fills and leaves', () => {
-    const normal = (list: readonly Suggestion[]) => list.map((s) => ({ ...s, seams: [...s.seams].sort((p, q) => (p.id < q.id ? -1 : 1)) }))
+    const byId = <T extends { id: string }>(list: readonly T[]): T[] => [...list].sort((p, q) => (p.id < q.id ? -1 : 1))
+    const normal = (list: readonly Suggestion[]) => list.map((s) => ({ ...s, seams: byId(s.seams), ...(s.leaves && { leaves: byId(s.leaves) }) }))
     const subjects = fc.oneof(
       fc.record({ seed: fc.integer({ min: 1, max: 1_000_000 }), count: fc.integer({ min: 3, max: 10 }) }).map(({ seed, count }) => yJunctionDesign(count, seed)),
-      fc.constantFrom(fixture('pinwheel-no-plan'), fixture('y-junction-set-in'), fixture('three-seams-two-nearly-in-line'), pullOneEndOffLine(parsed(hollyberryWreath)) ?? design()),
+      fc.constantFrom(fixture('pinwheel-no-plan'), fixture('y-junction-set-in'), fixture('hand-set-order-two-lines'), fixture('leaf-too-wide-for-its-length'), fixture('three-seams-two-nearly-in-line'), pullOneEndOffLine(parsed(hollyberryWreath)) ?? design()),
     )
     fc.assert(
       fc.property(subjects, fc.integer(), (subject, shuffleSeed) => {

@@ -1,7 +1,10 @@
 /**
  * Repairs: for a design that cannot be sewn (or sews in several sections), small changes to its
- * seams that make it sewable, or sewable in fewer sections. Pure: the design is never changed;
- * each suggestion carries the whole seams list after its change, and only the designer applies it.
+ * seams that make it sewable, or sewable in fewer sections; for a wrong hand-set order, the order
+ * Wreathwright chooses; for an impossible leaf, the leaf resized. Pure: the design is never
+ * changed; each suggestion carries the whole seams list after its change (and the leaves list
+ * when it resizes one, and `clearsOrder` when it drops the hand-set order), and only the designer
+ * applies it.
  *
  * The search tries one edit, then a second edit on top of each one that still does not sew, at
  * the places that stop the design (`repairs-candidates.ts`); every candidate is planned by the
@@ -9,9 +12,11 @@
  * (deterministic) and by a time as a safety net; `stopped` says when either ran out.
  */
 import { applyEdit, candidateEdits, describeEdit, editKey, newSeamId, visibleChange, type Edit } from './repairs-candidates'
-import { judgePrepared, judgeSeams, prepareSeams, stuckAreas, type Judgement, type Prepared } from './repairs-evaluate'
-import { MAX_REPAIR_STATES, OUTPUT_DECIMALS, REPAIR_BUDGET_MS, SNAP_DISTANCE_INCHES } from './tolerances'
-import type { Design, ProblemCode, Seam } from './types'
+import { leafMention } from './leaf-names'
+import { isPointedLeaf, leafShapeProblem } from './leaf-template'
+import { judgeHandSetOrder, judgePrepared, judgeSeams, prepareSeams, stuckAreas, type Judgement, type Prepared } from './repairs-evaluate'
+import { LEAF_RESIZE_STEP_INCHES, MAX_REPAIR_STATES, OUTPUT_DECIMALS, REPAIR_BUDGET_MS, SNAP_DISTANCE_INCHES } from './tolerances'
+import type { Design, Leaf, ProblemCode, Seam } from './types'
 
 /** One proposed change, ranked with the others by `suggestRepairs`. */
 export interface Suggestion {
@@ -25,6 +30,16 @@ export interface Suggestion {
   readonly addedLengthIn: number
   /** How far seam ends moved, inches (summed over the ends), rounded like other plan outputs. */
   readonly movedIn: number
+  /**
+   * The design's whole leaves list after the change, when the change resizes a leaf (ids, seams
+   * and places kept; only a leaf's length or width changes). Absent: the leaves stay as they are.
+   */
+  readonly leaves?: readonly Leaf[]
+  /**
+   * True when the change drops the designer's hand-set order (the plan then proposes the order,
+   * as it does for a design with none). Absent: the order, if any, stays.
+   */
+  readonly clearsOrder?: true
 }
 
 export interface RepairOptions {
@@ -72,6 +87,8 @@ interface Found {
   readonly movedIn: number
   readonly change: number
   readonly key: string
+  /** The change in words, without what it gives ("Extend seam s3 1.90 in to the outline"). */
+  readonly words: string
   readonly message: string
 }
 
@@ -100,35 +117,198 @@ function sectionsInWords(count: number): string {
 
 /**
  * Suggests at most five repairs for an unsewable design, or at most three that save sections
- * for a design that sews in two or more. A design with a hand-set order gets none: its order
- * names areas that a change of seams would move.
+ * for a design that sews in two or more. Beyond changes of seams:
+ * - a wrong hand-set order: "Let Wreathwright choose the order: sews in N sections", the seams
+ *   unchanged and `clearsOrder` set, when the order the planner proposes sews; otherwise the
+ *   changes of seams of the design without its order, each with `clearsOrder` (the order names
+ *   areas a change of seams would move). A design that sews in its hand-set order gets none: its
+ *   sections are the designer's choice.
+ * - an impossible leaf (a pointed leaf must be longer than half its width): the leaf resized to
+ *   the nearest size that fits, longer or narrower, with `leaves` the whole list after the change.
+ * Messages name leaves by `leafMention`; `planDesign` puts their plain names in.
  *
  * @example
  * const { suggestions } = suggestRepairs(design)
  * suggestions[0]?.message // "Extend seam s3 1.90 in to the outline: sews in 1 section"
  */
 export function suggestRepairs(design: Design, options: RepairOptions = {}): RepairResult {
-  if (design.order) return { suggestions: [], stopped: false }
   return searchRepairs(design, judgeSeams(design.ring, design.seams, design.leaves), options)
 }
 
 /**
  * The search of `suggestRepairs` from a design already judged (the planner passes what it has
- * computed, so the design is not planned twice).
+ * computed, so the design is not planned twice). A design with a hand-set order or an impossible
+ * leaf is judged again here, without its order and with its leaves resized.
  *
  * @example searchRepairs(design, judgeSeams(design.ring, design.seams, design.leaves)).suggestions
  */
 export function searchRepairs(design: Design, judged: Judgement, options: RepairOptions = {}): RepairResult {
+  if (!design.order && !design.leaves.some(impossibleLeaf)) {
+    const { found, stopped } = searchSeams(design, judged, options)
+    return { suggestions: found.map((f) => ({ message: f.message, seams: f.seams, sections: f.sections, addedLengthIn: f.addedIn, movedIn: f.movedIn })), stopped }
+  }
+  return searchBeyondSeams(design, options)
+}
+
+const impossibleLeaf = (leaf: Leaf): boolean => leafShapeProblem(leaf.length, leaf.width) !== null
+
+/** A length in words: inches to at most three decimals, trailing zeros dropped (0.5 in, 1.625 in). */
+const inchesInWords = (value: number): string => `${Number(value.toFixed(3))} in`
+
+/** One way to make every impossible leaf a pointed leaf. */
+interface LeafChange {
+  /** The design's whole leaves list after the change (in the design's order). */
+  readonly leaves: readonly Leaf[]
+  /** One phrase per resized leaf, by leaf id: "Lengthen {leaf:l1} from 0.5 in to 1.625 in". */
+  readonly words: readonly string[]
+  /** How much the sizes change, inches, summed over the resized leaves. */
+  readonly change: number
+  readonly key: string
+}
+
+interface Resize {
+  readonly leaf: Leaf
+  readonly size: { readonly length: number; readonly width: number }
+  readonly words: string
+  readonly change: number
+}
+
+/**
+ * The nearest sizes on the `LEAF_RESIZE_STEP_INCHES` step that make a leaf pointed (length
+ * strictly more than half the width): longer at its width, or narrower at its length (none when
+ * even one step is too wide).
+ *
+ * @example leafResizes({ id: 'l1', seam: 's1', at: 0.5, side: 'left', angle: 0, length: 0.5, width: 3, layers: [] })
+ * // longer: 1.625 × 3 (1.125 in of change); narrower: 0.5 × 0.875 (2.125 in)
+ */
+export function leafResizes(leaf: Leaf): { readonly longer: Resize | null; readonly narrower: Resize | null } {
+  const step = LEAF_RESIZE_STEP_INCHES
+  const finite = (value: number): boolean => value > 0 && Number.isFinite(value)
+  let longer: Resize | null = null
+  if (finite(leaf.width)) {
+    let length = round(step * (Math.floor(leaf.width / 2 / step) + 1))
+    while (!isPointedLeaf(length, leaf.width)) length = round(length + step)
+    const from = finite(leaf.length) ? ` from ${inchesInWords(leaf.length)}` : ''
+    longer = { leaf, size: { length, width: leaf.width }, words: `Lengthen ${leafMention(leaf.id)}${from} to ${inchesInWords(length)}`, change: round(Math.abs(length - (finite(leaf.length) ? leaf.length : 0))) }
+  }
+  let narrower: Resize | null = null
+  if (finite(leaf.length)) {
+    let width = round(step * (Math.ceil((2 * leaf.length) / step) - 1))
+    while (width > 0 && !isPointedLeaf(leaf.length, width)) width = round(width - step)
+    if (width > 0) {
+      const from = finite(leaf.width) ? ` from ${inchesInWords(leaf.width)}` : ''
+      narrower = { leaf, size: { length: leaf.length, width }, words: `Narrow ${leafMention(leaf.id)}${from} to ${inchesInWords(width)} wide`, change: round(Math.abs((finite(leaf.width) ? leaf.width : 0) - width)) }
+    }
+  }
+  return { longer, narrower }
+}
+
+/**
+ * The ways to make every impossible leaf pointed, least change first: all longer, all narrower,
+ * and each by its own smaller change (when that differs from both). One way that changes nothing
+ * for a design with no impossible leaf; none when some leaf cannot be resized at all.
+ */
+function leafChanges(leaves: readonly Leaf[]): LeafChange[] {
+  const impossible = leaves.filter(impossibleLeaf).sort((p, q) => (p.id < q.id ? -1 : p.id > q.id ? 1 : 0))
+  if (impossible.length === 0) return [{ leaves, words: [], change: 0, key: '' }]
+  const options = impossible.map(leafResizes)
+  const ways: (readonly (Resize | null)[])[] = [
+    options.map((option) => option.longer),
+    options.map((option) => option.narrower),
+    options.map(({ longer, narrower }) => (longer && narrower ? (narrower.change < longer.change ? narrower : longer) : (longer ?? narrower))),
+  ]
+  const changes = new Map<string, LeafChange>()
+  for (const way of ways) {
+    if (way.some((resize) => resize === null)) continue
+    const resizes = way as readonly Resize[]
+    const sizes = new Map(resizes.map((resize) => [resize.leaf.id, resize.size]))
+    const key = resizes.map((resize) => `${resize.leaf.id} ${resize.size.length}x${resize.size.width}`).join(' ')
+    if (changes.has(key)) continue
+    changes.set(key, {
+      leaves: leaves.map((leaf) => {
+        const size = sizes.get(leaf.id)
+        return size ? { ...leaf, ...size } : leaf
+      }),
+      words: resizes.map((resize) => resize.words),
+      change: round(resizes.reduce((sum, resize) => sum + resize.change, 0)),
+      key,
+    })
+  }
+  return [...changes.values()].sort((p, q) => p.change - q.change || (p.key < q.key ? -1 : p.key > q.key ? 1 : 0))
+}
+
+/** Phrases joined as one change: "Lengthen leaf 1 from 0.5 in to 1.625 in and let Wreathwright choose the order". */
+function joinWords(parts: readonly string[]): string {
+  const lowered = parts.map((part, index) => (index === 0 ? part : `${part.charAt(0).toLowerCase()}${part.slice(1)}`))
+  return lowered.length <= 1 ? (lowered[0] ?? '') : `${lowered.slice(0, -1).join(', ')} and ${lowered[lowered.length - 1]}`
+}
+
+/** The words that say the hand-set order is dropped. */
+const CHOOSE_ORDER = 'Let Wreathwright choose the order'
+
+/**
+ * Repairs of a design with a hand-set order or an impossible leaf: each way of resizing its
+ * leaves, with the hand-set order kept where it sews, else dropped; where the seams still do not
+ * sew, the seam search of the design without its order, with the least leaf change. Ranked by
+ * sections, the seams' visible change, the leaves' change, then the words.
+ */
+function searchBeyondSeams(design: Design, options: RepairOptions): RepairResult {
+  const started = performance.now()
+  const budgetMs = options.budgetMs ?? REPAIR_BUDGET_MS
+  const ranked: { suggestion: Suggestion; seamChange: number; leafChange: number; key: string }[] = []
+  let stopped = false
+  const add = (leafChange: LeafChange, parts: readonly string[], sections: number, clearsOrder: boolean, seams?: Found): void => {
+    const suggestion: Suggestion = {
+      message: `${joinWords(parts)}: sews in ${sectionsInWords(sections)}`,
+      seams: seams?.seams ?? design.seams,
+      sections,
+      addedLengthIn: seams?.addedIn ?? 0,
+      movedIn: seams?.movedIn ?? 0,
+      ...(leafChange.words.length > 0 && { leaves: leafChange.leaves }),
+      ...(clearsOrder && { clearsOrder: true }),
+    }
+    ranked.push({ suggestion, seamChange: seams?.change ?? 0, leafChange: leafChange.change, key: `${leafChange.key} | ${seams?.key ?? ''}` })
+  }
+  leafChanges(design.leaves).forEach((leafChange, index) => {
+    const { leaves } = leafChange
+    if (design.order) {
+      const kept = judgeHandSetOrder(design.ring, design.seams, leaves, design.order)
+      if (kept.sewable) {
+        // Sewable in the designer's own order: only a resized leaf is a change to suggest.
+        if (leafChange.words.length > 0) add(leafChange, leafChange.words, kept.sections, false)
+        return
+      }
+    }
+    const clearsOrder = Boolean(design.order)
+    const parts = clearsOrder ? [...leafChange.words, CHOOSE_ORDER] : leafChange.words
+    const free = judgeSeams(design.ring, design.seams, leaves)
+    if (free.sewable) {
+      add(leafChange, parts, free.sections, clearsOrder)
+      return
+    }
+    // Seams that do not sew in any order: the seam search, once, with the least leaf change.
+    if (index > 0) return
+    const left = Math.max(0, budgetMs - (performance.now() - started))
+    const searched = searchSeams({ ...design, leaves, order: null }, free, { ...options, budgetMs: left })
+    stopped ||= searched.stopped
+    for (const found of searched.found) add(leafChange, [...parts, found.words], found.sections, clearsOrder, found)
+  })
+  ranked.sort((p, q) => p.suggestion.sections - q.suggestion.sections || p.seamChange - q.seamChange || p.leafChange - q.leafChange || (p.key < q.key ? -1 : p.key > q.key ? 1 : 0))
+  return { suggestions: ranked.slice(0, MOST_REPAIRS).map((entry) => entry.suggestion), stopped }
+}
+
+/** The seam search of one design with no hand-set order: what it found, best first, and whether a budget stopped it. */
+function searchSeams(design: Design, judged: Judgement, options: RepairOptions): { found: Found[]; stopped: boolean } {
   const maxStates = options.maxStates ?? MAX_REPAIR_STATES
   const budgetMs = options.budgetMs ?? REPAIR_BUDGET_MS
   const started = performance.now()
-  if (design.order) return { suggestions: [], stopped: false }
+  const none = { found: [], stopped: false }
   // The planner reports a cycle of seams as an error; the search wants the areas of that cycle.
   const cycle = !judged.sewable && judged.errors.every((problem) => problem.code === 'seam-cycle') && judged.stuck.length === 0 && !judged.searchLimit
   const base = cycle ? { ...judged, stuck: stuckAreas(judged.topology) } : judged
-  if (base.sewable && base.sections < 2) return { suggestions: [], stopped: false }
+  if (base.sewable && base.sections < 2) return none
   // A design too large for the sections search to finish is too large to search for changes.
-  if (base.searchLimit || base.errors.some((problem) => !REPAIRABLE.has(problem.code))) return { suggestions: [], stopped: false }
+  if (base.searchLimit || base.errors.some((problem) => !REPAIRABLE.has(problem.code))) return none
   const mode = base.sewable ? 'fewer' : 'repair'
   const limit = mode === 'fewer' ? MOST_SAVINGS : MOST_REPAIRS
   const found: Found[] = []
@@ -173,6 +353,7 @@ export function searchRepairs(design: Design, judged: Judgement, options: Repair
       movedIn: round(edits.reduce((sum, edit) => sum + (edit.kind === 'straighten' ? edit.movedIn : 0), 0)),
       change: candidate.change,
       key: candidate.key,
+      words: joined as string,
       message: `${joined}: sews in ${sectionsInWords(judgement.sections)}${saving}`,
     })
     found.sort(compareFound)
@@ -264,8 +445,5 @@ export function searchRepairs(design: Design, judged: Judgement, options: Repair
     }
     evaluate(seconds())
   }
-  return {
-    suggestions: found.map((f) => ({ message: f.message, seams: f.seams, sections: f.sections, addedLengthIn: f.addedIn, movedIn: f.movedIn })),
-    stopped,
-  }
+  return { found, stopped }
 }

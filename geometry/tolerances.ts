@@ -236,3 +236,10 @@ export const REPAIR_BUDGET_MS = 400
  * run along that seam (overlapping it), so it is not tried. Radians (about 0.06°).
  */
 export const ALONG_SEAM_RADIANS = 1e-3
+
+/**
+ * Repairs: an impossible leaf (a pointed leaf must be longer than half its width) is resized to
+ * the nearest size on this step that fits, strictly: 1/8 in, the finest mark of a common quilting
+ * ruler (common practice), so the new size is one a maker can measure. Inches.
+ */
+export const LEAF_RESIZE_STEP_INCHES = 1 / 8
