@@ -9,7 +9,8 @@
  *      and the payment provider's local fake (scripts/payment-fake.ts) on a free loopback port: the
  *      integration tests point its webhooks at themselves, the end-to-end run at the app;
  *   5. unit and integration tests (vitest), the integration ones against that database, store and catcher;
- *   6. the app built and started on a free port with demo data in a second database, with the
+ *   6. when the filters select an end-to-end test (or there are none), the app built and started
+ *      on a free port with demo data in a second database, with the
  *      booklet worker (scripts/booklet-worker.ts) beside it on that database (the integration tests
  *      of booklets start their own worker, so that they know which process built what);
  *   7. end-to-end tests in headless Debian Chromium (playwright-core) against it.
@@ -24,6 +25,7 @@ import { startObjectStore, type ObjectStore } from './object-store'
 import { startPaymentFake, type PaymentFake } from './payment-fake'
 import { freePort, run, startProcess, stopProcess, waitForHttp } from './processes'
 import { startCluster, type Cluster } from './postgres'
+import { selectsEndToEndTests } from './test-selection'
 
 const filters = process.argv.slice(2)
 const workFolder = fs.mkdtempSync(path.join(os.tmpdir(), 'wreathwright-test-'))
@@ -80,6 +82,8 @@ const vitest = (projects: string[], report: string, env: NodeJS.ProcessEnv) =>
 
 const failedSteps: string[] = []
 const baseEnv = { ...process.env, NEXT_TELEMETRY_DISABLED: '1' }
+// Only the e2e tests need the built app: an integration-only filter skips building it (minutes).
+const endToEnd = selectsEndToEndTests(filters, reports)
 // Lint first: it needs no services, and a finding fails the run however the tests go.
 console.log('\n== lint (ESLint, then knip for unused files, exports and dependencies) ==')
 if ((await run('npx', ['eslint', '--max-warnings', '0', '.'], baseEnv)) !== 0) failedSteps.push('lint')
@@ -115,26 +119,30 @@ try {
   }
   if ((await vitest(['unit', 'integration'], path.join(reports, 'unit.json'), testEnv)) !== 0) failedSteps.push('unit/integration')
 
-  console.log('\n== build and start the app for end-to-end tests ==')
-  const e2eEnv = { ...baseEnv, ...objectStore.env, ...mailEnv, ...paymentEnv, MAIL_POLL_SECONDS: '0.5', DATABASE_URL: cluster.url('wreathwright_e2e'), SESSION_COOKIE_SECURE: 'false' }
-  const prepared =
-    (await run('npx', ['tsx', 'scripts/migrate.ts', 'up'], e2eEnv)) === 0 &&
-    (await run('npx', ['tsx', 'scripts/seed-demo.ts'], e2eEnv)) === 0 &&
-    (await run('npx', ['next', 'build'], e2eEnv)) === 0
-  if (!prepared) {
-    failedSteps.push('app build')
+  if (!endToEnd) {
+    console.log('\n== end-to-end tests: none selected by the filter, so the app is not built ==')
   } else {
-    const appPort = await freePort()
-    // The app's own origin, for its origin check: the loopback address it is started on here.
-    const appEnv = { ...e2eEnv, PUBLIC_URL: `http://127.0.0.1:${appPort}` }
-    // The provider's events go to the app's webhook from here on (the integration tests had them).
-    paymentFake.setWebhookUrl(`http://127.0.0.1:${appPort}/api/webhooks/payments`)
-    app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(appPort)], appEnv, { quiet: true })
-    bookletWorker = startProcess('npx', ['tsx', '--conditions=react-server', 'scripts/booklet-worker.ts'], { ...appEnv, BOOKLET_POLL_SECONDS: '0.5' }, { quiet: true })
-    await waitForHttp(`http://127.0.0.1:${appPort}/api/health`)
-    console.log('\n== end-to-end tests (headless Chromium) ==')
-    const browserEnv = { ...e2eEnv, E2E_BASE_URL: `http://127.0.0.1:${appPort}` }
-    if ((await vitest(['e2e'], path.join(reports, 'e2e.json'), browserEnv)) !== 0) failedSteps.push('e2e')
+    console.log('\n== build and start the app for end-to-end tests ==')
+    const e2eEnv = { ...baseEnv, ...objectStore.env, ...mailEnv, ...paymentEnv, MAIL_POLL_SECONDS: '0.5', DATABASE_URL: cluster.url('wreathwright_e2e'), SESSION_COOKIE_SECURE: 'false' }
+    const prepared =
+      (await run('npx', ['tsx', 'scripts/migrate.ts', 'up'], e2eEnv)) === 0 &&
+      (await run('npx', ['tsx', 'scripts/seed-demo.ts'], e2eEnv)) === 0 &&
+      (await run('npx', ['next', 'build'], e2eEnv)) === 0
+    if (!prepared) {
+      failedSteps.push('app build')
+    } else {
+      const appPort = await freePort()
+      // The app's own origin, for its origin check: the loopback address it is started on here.
+      const appEnv = { ...e2eEnv, PUBLIC_URL: `http://127.0.0.1:${appPort}` }
+      // The provider's events go to the app's webhook from here on (the integration tests had them).
+      paymentFake.setWebhookUrl(`http://127.0.0.1:${appPort}/api/webhooks/payments`)
+      app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(appPort)], appEnv, { quiet: true })
+      bookletWorker = startProcess('npx', ['tsx', '--conditions=react-server', 'scripts/booklet-worker.ts'], { ...appEnv, BOOKLET_POLL_SECONDS: '0.5' }, { quiet: true })
+      await waitForHttp(`http://127.0.0.1:${appPort}/api/health`)
+      console.log('\n== end-to-end tests (headless Chromium) ==')
+      const browserEnv = { ...e2eEnv, E2E_BASE_URL: `http://127.0.0.1:${appPort}` }
+      if ((await vitest(['e2e'], path.join(reports, 'e2e.json'), browserEnv)) !== 0) failedSteps.push('e2e')
+    }
   }
 } catch (error) {
   console.error(`tests: ${(error as Error).message}`)
