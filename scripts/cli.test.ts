@@ -60,6 +60,14 @@ describe('cli plan', () => {
     expect(JSON.parse(result.stdout).sewable).toBe(false)
   })
 
+  it('prints the suggestions of the unsewable fixtures: the order Wreathwright chooses, a resized leaf', async () => {
+    const fixture = (name: string) => join(import.meta.dirname, '..', 'geometry', 'fixtures', name, 'design.json')
+    const order = JSON.parse((await runCli(['plan', fixture('hand-set-order-two-lines')])).stdout)
+    expect(order.suggestions[0]).toMatchObject({ message: 'Let Wreathwright choose the order: sews in 1 section', sections: 1, clearsOrder: true })
+    const leaf = JSON.parse((await runCli(['plan', fixture('leaf-too-wide-for-its-length')])).stdout)
+    expect(leaf.suggestions[0]).toMatchObject({ message: 'Lengthen leaf 1 from 0.5 in to 1.625 in: sews in 1 section', leaves: [{ id: 'stubby', length: 1.625, width: 3 }] })
+  })
+
   it('exits 2 with one line for malformed JSON, a wrong version, a negative radius and NaN', async () => {
     const cases = ['{"format": ', JSON.stringify({ ...valid, version: 3 }), JSON.stringify({ ...valid, ring: { ...valid.ring, outerRadius: -3 } }), JSON.stringify(valid).replace('"to":[3,', '"to":[NaN,')]
     for (const text of cases) {

@@ -12,8 +12,9 @@ const sectionsInWords = (count: number) => `${count} section${count === 1 ? '' :
 
 /**
  * The repairs the plan suggests, beside its problems: for a design that cannot be sewn, small
- * changes of its seams that make it sewable; for one that sews in several sections, changes
- * that save a section. Pointing at one (or tabbing to it) draws it as a ghost on the ring;
+ * changes of its seams, a resized leaf or the order Wreathwright chooses instead of a wrong
+ * hand-set one, that make it sewable; for one that sews in several sections, changes that save
+ * a section. Pointing at one (or tabbing to it) draws it as a ghost on the ring;
  * choosing it applies it as one undoable step. Only the designer applies a suggestion.
  */
 export function RepairSuggestions({ store, design, plan }: { store: BoardStore; design: BoardDesign; plan: Plan }) {
@@ -33,13 +34,14 @@ export function RepairSuggestions({ store, design, plan }: { store: BoardStore; 
         <p className="text-xs text-stone-500" aria-live="polite">No small change of the seams was found: redraw around the problem by hand.</p>
       ) : (
         <ul className="space-y-1 text-xs">
-          {found.suggestions.map(({ suggestion, seams }, index) => {
-            const preview = () => store.showRepair(repairPreview(design, seams, index))
+          {found.suggestions.map(({ suggestion, seams, leaves }, index) => {
+            const preview = () => store.showRepair(repairPreview(design, seams, index, leaves))
             const hide = () => store.showRepair(null)
             const details = [
               `sews in ${sectionsInWords(suggestion.sections)}`,
               suggestion.addedLengthIn > 0 ? `adds ${formatLength(suggestion.addedLengthIn, design.units)} of seam` : null,
               suggestion.movedIn > 0 ? `moves seam ends ${formatLength(suggestion.movedIn, design.units)}` : null,
+              suggestion.clearsOrder ? 'replaces your hand-set order' : null,
             ].filter(Boolean)
             return (
               <li key={index}>
@@ -56,7 +58,7 @@ export function RepairSuggestions({ store, design, plan }: { store: BoardStore; 
                   onClick={() => {
                     // The list belongs to the design planned; a change made since then would be lost.
                     if (designOf(store.getState()) !== design) return
-                    store.run('applyRepair', { seams: suggestion.seams })
+                    store.run('applyRepair', { seams: suggestion.seams, leaves: suggestion.leaves, clearsOrder: suggestion.clearsOrder })
                   }}
                 >
                   <span className="block text-stone-800">{suggestion.message}</span>

@@ -6,8 +6,9 @@
  */
 import {
   fabricsOfAreas, isPointInPolygon, leafNames, planDesign, roughCutBeforeFlip, sectionOutline, suggestRepairs,
-  type Design, type Plan, type PlanArea, type Point, type Problem, type Seam, type Suggestion,
+  type Design, type Leaf, type Plan, type PlanArea, type Point, type Problem, type Seam, type Suggestion,
 } from '@/geometry'
+import { nameLeavesIn } from '@/geometry/leaf-names'
 import { parseDesign, type DesignIssue } from '@/lib/schemas/design'
 import { unitsPerInch } from '@/lib/units'
 import type { BoardDesign } from './commands'
@@ -148,12 +149,44 @@ export function suggestedSeamsInDesignUnits(design: Pick<BoardDesign, 'units' | 
   })
 }
 
+/** A leaf as the board keeps it: the design file's leaf, its length and width in the design's units. */
+export type BoardLeaf = BoardDesign['leaves'][number]
+
+/**
+ * A suggestion's leaves (core inches) in the design's units, in the board's order: only a leaf's
+ * length and width can differ, and a size the suggestion left as it was (equal at the board's
+ * precision) keeps the design's own value and the leaf its very object, as for seams.
+ *
+ * @example suggestedLeavesInDesignUnits({ units: 'cm', leaves: [leaf] }, [{ ...leaf, length: 1.625 }])[0].length // 4.1275
+ */
+export function suggestedLeavesInDesignUnits(design: Pick<BoardDesign, 'units' | 'leaves'>, leaves: readonly Leaf[]): BoardLeaf[] {
+  const factor = unitsPerInch(design.units)
+  const suggested = new Map(leaves.map((leaf) => [leaf.id, leaf]))
+  return design.leaves.map((leaf) => {
+    const next = suggested.get(leaf.id)
+    if (!next) return leaf
+    const size = (old: number, inches: number): number => {
+      const converted = roundUnit(inches * factor)
+      return roundUnit(old) === converted ? old : converted
+    }
+    const length = size(leaf.length, next.length)
+    const width = size(leaf.width, next.width)
+    return length === leaf.length && width === leaf.width ? leaf : { ...leaf, length, width }
+  })
+}
+
 /** A repair suggested for the design on the board. */
 export interface BoardSuggestion {
-  /** The core's suggestion: message, sections, added length and moved distance (inches). */
+  /**
+   * The core's suggestion: message (leaves named as the board names them), sections, added
+   * length and moved distance (inches), and the leaves it resizes and whether it drops the
+   * hand-set order.
+   */
   readonly suggestion: Suggestion
   /** Its seams in the design's units, as applying it would leave them. */
   readonly seams: readonly BoardSeam[]
+  /** Its leaves in the design's units, as applying it would leave them. */
+  readonly leaves: readonly BoardLeaf[]
 }
 
 export interface BoardSuggestions {
@@ -202,7 +235,11 @@ export function boardSuggestions(design: BoardDesign): BoardSuggestions {
     const started = performance.now()
     const found = suggestRepairs(parsed.design, { budgetMs: BOARD_REPAIR_BUDGET_MS })
     result = {
-      suggestions: found.suggestions.map((suggestion) => ({ suggestion, seams: suggestedSeamsInDesignUnits(design, suggestion.seams) })),
+      suggestions: found.suggestions.map((suggestion) => ({
+        suggestion: { ...suggestion, message: nameLeavesIn(suggestion.message, boardPlan(design).leafNames) },
+        seams: suggestedSeamsInDesignUnits(design, suggestion.seams),
+        leaves: suggestion.leaves ? suggestedLeavesInDesignUnits(design, suggestion.leaves) : design.leaves,
+      })),
       stopped: found.stopped,
       elapsedMs: performance.now() - started,
     }

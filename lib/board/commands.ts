@@ -6,14 +6,14 @@
 import { scaleDesignLengths } from '@/geometry/design-lengths'
 import { LAYER_SCALE_RANGE, LAYER_TURN_LIMIT_DEGREES } from '@/geometry/leaf-template'
 import { spreadLeafFabrics } from '@/geometry/spread-leaf-fabrics'
-import type { Point, Seam as CoreSeam } from '@/geometry'
+import type { Leaf as CoreLeaf, Point, Seam as CoreSeam } from '@/geometry'
 import { fabricRoleInWords } from '@/geometry/fabric-requirements'
 import { MAX_COLORWAYS, MAX_NAME_LENGTH } from '@/lib/limits'
 import {
   colorwayNameSchema, fabricNameSchema, fabricRoleSchema, hexColourSchema, uploadIdSchema, type ColorwayFabric, type DesignFile,
 } from '@/lib/schemas/design'
 import { unitsPerInch } from '@/lib/units'
-import { suggestedSeamsInDesignUnits } from './board-plan'
+import { suggestedLeavesInDesignUnits, suggestedSeamsInDesignUnits } from './board-plan'
 
 type Seam = DesignFile['seams'][number]
 type Leaf = NonNullable<DesignFile['leaves']>[number]
@@ -125,19 +125,27 @@ export const deleteSeam = defineCommand({
 /**
  * Applies a repair the plan suggested: the design's seams become the suggestion's (core inches,
  * converted once by `suggestedSeamsInDesignUnits`), ids kept, so every leaf stays on its seam
- * as it was. Only the designer runs it (the panel's button); undo gives the seams back exactly.
- * An order set by hand is dropped: the suggestion's section count is that of the order the plan
- * proposes, and an extended or added seam splits areas the hand order named.
+ * as it was; a suggestion that resizes a leaf brings the leaves too (`suggestedLeavesInDesignUnits`:
+ * only sizes change). Only the designer runs it (the panel's button); undo gives everything back
+ * exactly, all in one step. An order set by hand is dropped when the seams change (the
+ * suggestion's section count is that of the order the plan proposes, and an extended or added
+ * seam splits areas the hand order named) and when the suggestion says so (`clearsOrder`: "Let
+ * Wreathwright choose the order"); a resized leaf alone keeps it.
  */
 export const applyRepair = defineCommand({
   name: 'apply-repair',
-  run: (design, { seams }: { seams: readonly CoreSeam[] }) => {
+  run: (design, { seams, leaves, clearsOrder }: { seams: readonly CoreSeam[]; leaves?: readonly CoreLeaf[]; clearsOrder?: boolean }) => {
     const next = suggestedSeamsInDesignUnits(design, seams)
-    const unchanged = next.length === design.seams.length && next.every((seam, i) => {
+    const seamsUnchanged = next.length === design.seams.length && next.every((seam, i) => {
       const old = design.seams[i]!
       return seam.id === old.id && samePoint(seam.from, old.from) && samePoint(seam.to, old.to)
     })
-    return unchanged ? design : withoutHandOrder({ ...design, seams: next })
+    const nextLeaves = leaves ? suggestedLeavesInDesignUnits(design, leaves) : design.leaves
+    const leavesUnchanged = nextLeaves.every((leaf, i) => leaf === design.leaves[i])
+    const dropsOrder = design.order !== null && (!seamsUnchanged || clearsOrder === true)
+    if (seamsUnchanged && leavesUnchanged && !dropsOrder) return design
+    const changed = { ...design, seams: seamsUnchanged ? design.seams : next, leaves: leavesUnchanged ? design.leaves : nextLeaves }
+    return dropsOrder ? withoutHandOrder(changed) : changed
   },
 })
 

@@ -1,10 +1,12 @@
 /**
  * What a repair changes, for the board to draw as a ghost while the designer points at it: the
- * seams that are new or whose ends moved (with where they were), and those it takes away. Pure:
- * the design is never touched; the overlay draws the ghost in every repeat.
+ * seams that are new or whose ends moved (with where they were), those it takes away, and the
+ * leaves it resizes (with the seams they would lie on). Pure: the design is never touched; the
+ * overlay draws the ghost in every repeat. A repair that only drops the hand-set order changes
+ * nothing drawn: the panel's words say it.
  */
 import type { BoardDesign } from './commands'
-import type { BoardSeam } from './board-plan'
+import type { BoardLeaf, BoardSeam } from './board-plan'
 
 type Ends = readonly [readonly [number, number], readonly [number, number]]
 
@@ -24,6 +26,10 @@ export interface RepairPreview {
   /** Its place in the list of suggestions for that design. */
   readonly index: number
   readonly changes: readonly SeamChange[]
+  /** The leaves the repair resizes, at their new size (design units). */
+  readonly resizedLeaves: readonly BoardLeaf[]
+  /** The whole seams list after the repair, for the resized leaves to lie on. */
+  readonly seams: readonly BoardSeam[]
 }
 
 const sameEnd = (a: readonly number[], b: readonly number[]) => a[0] === b[0] && a[1] === b[1]
@@ -47,7 +53,15 @@ export function seamChanges(before: readonly BoardSeam[], after: readonly BoardS
   return changed
 }
 
-/** The preview of a suggestion's seams (design units), the `index`th for the design on the board. */
-export function repairPreview(design: BoardDesign, seams: readonly BoardSeam[], index: number): RepairPreview {
-  return { base: design, index, changes: seamChanges(design.seams, seams) }
+/**
+ * The preview of a suggestion's seams and leaves (design units), the `index`th for the design on
+ * the board. `leaves` is the whole list after the change; absent, the leaves stay as they are.
+ */
+export function repairPreview(design: BoardDesign, seams: readonly BoardSeam[], index: number, leaves: readonly BoardLeaf[] = design.leaves): RepairPreview {
+  const before = new Map(design.leaves.map((leaf) => [leaf.id, leaf]))
+  const resizedLeaves = leaves.filter((leaf) => {
+    const was = before.get(leaf.id)
+    return !was || was.length !== leaf.length || was.width !== leaf.width
+  })
+  return { base: design, index, changes: seamChanges(design.seams, seams), resizedLeaves, seams }
 }

@@ -1,8 +1,12 @@
+import { existsSync, readdirSync, readFileSync } from 'node:fs'
+import { join } from 'node:path'
 import { describe, expect, it } from 'vitest'
 import type { Seam, Suggestion } from '@/geometry'
+import { DEMO_PATTERNS } from '@/scripts/demo-data'
+import { DEMO_SEASON_PATTERNS } from '@/scripts/demo-season'
 import { emptyDesign } from '@/lib/new-design'
 import { parseDesign, type DesignFile } from '@/lib/schemas/design'
-import { boardPlan, suggestedSeamsInDesignUnits } from './board-plan'
+import { boardPlan, boardSuggestions, suggestedLeavesInDesignUnits, suggestedSeamsInDesignUnits } from './board-plan'
 import { commands, normalizeDesign, type BoardDesign } from './commands'
 import { repairPreview, seamChanges } from './repair-ghost'
 import { createBoardStore, design as designOf } from './store'
@@ -147,4 +151,92 @@ describe('the ghost of a suggestion', () => {
     store.run('applyRepair', { seams: continueS1(design).seams })
     expect(store.getState().shownRepair).toBeNull()
   })
+})
+
+const fixtures = join(import.meta.dirname, '..', '..', 'geometry', 'fixtures')
+const fixtureFile = (name: string): DesignFile => JSON.parse(readFileSync(join(fixtures, name, 'design.json'), 'utf8')) as DesignFile
+
+describe('a wrong hand-set order and an impossible leaf on the board', () => {
+  it('lets Wreathwright choose the order: the seams kept, the hand-set order dropped, one undo step', () => {
+    const store = createBoardStore(fixtureFile('hand-set-order-two-lines'))
+    const before = designOf(store.getState())
+    expect(before.order).not.toBeNull()
+    const [first] = boardSuggestions(before).suggestions
+    expect(first?.suggestion.message).toBe('Let Wreathwright choose the order: sews in 1 section')
+    expect(first?.suggestion.clearsOrder).toBe(true)
+    const { seams, leaves, clearsOrder } = first!.suggestion
+    store.run('applyRepair', { seams, leaves, clearsOrder })
+    const after = designOf(store.getState())
+    expect(after.order).toBeNull()
+    expect(after.seams).toBe(before.seams)
+    expect(boardPlan(after).plan).toMatchObject({ sewable: true, sections: [expect.anything()] })
+    expect(store.getState().history.past).toHaveLength(1)
+    store.undo()
+    expect(designOf(store.getState())).toBe(before)
+  })
+
+  it('resizes a leaf too wide for its length, names it as the plan does, and draws it as a ghost', () => {
+    const design = normalizeDesign(fixtureFile('leaf-too-wide-for-its-length'))
+    const found = boardSuggestions(design).suggestions
+    expect(found.map((entry) => entry.suggestion.message)).toEqual([
+      'Lengthen leaf 1 from 0.5 in to 1.625 in: sews in 1 section',
+      'Narrow leaf 1 from 3 in to 0.875 in wide: sews in 1 section',
+    ])
+    expect(found[0]!.leaves[0]).toEqual({ ...design.leaves[0], length: 1.625 })
+    const preview = repairPreview(design, found[0]!.seams, 0, found[0]!.leaves)
+    expect(preview.changes).toEqual([])
+    expect(preview.resizedLeaves.map((leaf) => [leaf.id, leaf.length, leaf.width])).toEqual([['stubby', 1.625, 3]])
+
+    const store = createBoardStore(design)
+    const { seams, leaves, clearsOrder } = found[0]!.suggestion
+    store.run('applyRepair', { seams, leaves, clearsOrder })
+    const after = designOf(store.getState())
+    expect(after.leaves).toEqual([{ ...design.leaves[0], length: 1.625 }])
+    expect(after.seams).toBe(design.seams)
+    expect(boardPlan(after).plan?.sewable).toBe(true)
+    store.undo()
+    expect(designOf(store.getState()).leaves).toEqual(design.leaves)
+  })
+
+  it('converts a resized leaf to centimetres with the exact factor, other leaves untouched', () => {
+    const other = { id: 'fine', seam: 'band', at: 0.2, side: 'left' as const, angle: 0, length: 1.27 * 2.54, width: 0.5, layers: ['leaf-dark'] }
+    const design = { units: 'cm' as const, leaves: [{ id: 'stubby', seam: 'band', at: 0.5, side: 'right' as const, angle: 0, length: 1.27, width: 7.62, layers: ['leaf-dark'] }, other] }
+    const next = suggestedLeavesInDesignUnits(design, [{ ...design.leaves[0]!, length: 1.625, width: 3 }, { ...other, length: other.length / 2.54, width: other.width / 2.54 }])
+    // 1.625 in × 2.54 = 4.1275 cm; 3 in = 7.62 cm, as it was.
+    expect(next[0]).toEqual({ ...design.leaves[0], length: 4.1275 })
+    expect(next[1]).toBe(other)
+  })
+
+  it('keeps a hand-set order when only a leaf is resized', () => {
+    const design = normalizeDesign({ ...fixtureFile('leaf-too-wide-for-its-length'), order: { sections: [{ label: 'A', areas: [[1, 1], [6, 6]] }] } })
+    const leaves = [{ ...design.leaves[0]!, angle: 0, length: 1.625 }]
+    const next = commands.applyRepair.run(design, { seams: coreSeams(design), leaves })
+    expect(next.order).toBe(design.order)
+    expect(next.leaves[0]!.length).toBe(1.625)
+  })
+
+  // Done when (issue 16): every unsewable demo or fixture design gets a working suggestion on the board.
+  const designs: [string, DesignFile][] = [
+    ...DEMO_PATTERNS.map((pattern): [string, DesignFile] => [`demo ${pattern.design.name}`, pattern.design]),
+    ...DEMO_SEASON_PATTERNS.map((pattern): [string, DesignFile] => [`demo ${pattern.design.name}`, pattern.design]),
+    ...readdirSync(fixtures)
+      .filter((name) => existsSync(join(fixtures, name, 'design.json')))
+      .map((name): [string, DesignFile] => [`fixture ${name}`, fixtureFile(name)]),
+  ]
+  for (const [name, file] of designs) {
+    const design = normalizeDesign(file)
+    if (boardPlan(design).plan?.sewable !== false) continue
+    it(`applies the first suggestion for the unsewable ${name} and the board's plan then sews as it says`, () => {
+      const store = createBoardStore(file)
+      const before = designOf(store.getState())
+      const [first] = boardSuggestions(before).suggestions
+      expect(first, name).toBeDefined()
+      const { seams, leaves, clearsOrder, sections } = first!.suggestion
+      store.run('applyRepair', { seams, leaves, clearsOrder })
+      const plan = boardPlan(designOf(store.getState())).plan
+      expect(plan?.sewable, first!.suggestion.message).toBe(true)
+      expect(plan?.sections.length).toBe(sections)
+      expect(store.getState().history.past).toHaveLength(1)
+    })
+  }
 })
