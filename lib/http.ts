@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { checkSession, sessionIdFromRequest, type CurrentUser } from '@/lib/auth/session'
+import { DATABASE_RETRY_AFTER_SECONDS, isDatabaseUnavailable } from '@/lib/database-unavailable'
 import { originSettings, type OriginSettings } from '@/lib/env'
 import { MAX_DESIGN_BYTES } from '@/lib/limits'
 import {
@@ -24,7 +25,9 @@ import {
  *      so that a pattern someone may not see is 404 exactly like a missing one;
  *   5. body contents: 415 unless JSON, 400 if malformed, 422 naming each field the schema refuses
  *      (a route declaring `body: 'bytes'`, an upload, gets the raw bytes read within its limit).
- * Service errors become JSON with their status; the session cookie is refreshed or cleared.
+ * Service errors become JSON with their status; a database that cannot be reached (restarting,
+ * full, down: lib/database-unavailable.ts) a 503 with `Retry-After`; the session cookie is
+ * refreshed or cleared.
  */
 
 /** Largest bodies, in bytes. A route names one of these (or its own number, e.g. for an upload). */
@@ -289,6 +292,15 @@ function errorResponse(error: unknown): Response {
     return response
   }
   if (error instanceof ServiceError) return jsonError(error.status, error.message)
+  if (isDatabaseUnavailable(error)) {
+    // Logged, one line, so an outage that lasts is seen; the stack says nothing more here.
+    console.error(`database unreachable, answered 503: ${(error as Error).message}`)
+    const response = jsonError(503, `The database cannot be reached just now; try again in ${DATABASE_RETRY_AFTER_SECONDS} seconds.`, {
+      retryAfterSeconds: DATABASE_RETRY_AFTER_SECONDS,
+    })
+    response.headers.set('retry-after', String(DATABASE_RETRY_AFTER_SECONDS))
+    return response
+  }
   console.error(error)
   return jsonError(500, 'Something went wrong on our side; nothing was changed.')
 }

@@ -13,6 +13,7 @@ import path from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { GET as health } from '@/app/api/health/route'
 import { GET as readPattern, PATCH as updatePattern } from '@/app/api/patterns/[id]/route'
+import { DATABASE_RETRY_AFTER_SECONDS } from '@/lib/database-unavailable'
 import { closeDatabase, database } from '@/lib/db'
 import { createMigrator } from '@/lib/migrator'
 import { freePort } from '@/scripts/processes'
@@ -67,12 +68,16 @@ describe('PostgreSQL restarted under the running app', () => {
     const before = postmasterPid()
 
     cluster.stop()
-    // Down: the app says so (after its few quick retries) rather than hanging.
+    // Down: the app says so (after its few quick retries) rather than hanging: 503 with
+    // Retry-After (lib/http.ts, lib/database-unavailable.ts), not a 500 that reads like a bug.
     const whileDown = Date.now()
-    expect((await call(health)).status).toBe(503)
+    const healthDown = await call(health)
+    expect(healthDown.status).toBe(503)
+    expect(healthDown.headers.get('retry-after')).toBe(String(DATABASE_RETRY_AFTER_SECONDS))
     const down = await read()
-    expect(down.status).toBe(500)
-    expect(down.json?.error.message).toMatch(/nothing was changed/)
+    expect(down.status).toBe(503)
+    expect(down.headers.get('retry-after')).toBe(String(DATABASE_RETRY_AFTER_SECONDS))
+    expect(down.json?.error).toEqual({ message: expect.stringMatching(/^The database cannot be reached just now/), retryAfterSeconds: DATABASE_RETRY_AFTER_SECONDS })
     expect(Date.now() - whileDown).toBeLessThan(10_000)
 
     // Up again on the same port: the very first request is answered, on the app's existing pool.

@@ -1,3 +1,4 @@
+import { DATABASE_RETRY_AFTER_SECONDS } from '@/lib/database-unavailable'
 import { database } from '@/lib/db'
 
 export const dynamic = 'force-dynamic'
@@ -8,6 +9,7 @@ export async function GET(): Promise<Response> {
     await database().query('SELECT 1')
     return Response.json({ status: 'ok', database: 'ok' })
   } catch {
-    return Response.json({ status: 'degraded', database: 'unreachable' }, { status: 503 })
+    // Like every route's answer while the database is away (lib/http.ts): come back in a few seconds.
+    return Response.json({ status: 'degraded', database: 'unreachable' }, { status: 503, headers: { 'retry-after': String(DATABASE_RETRY_AFTER_SECONDS) } })
   }
 }
