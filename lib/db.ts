@@ -75,12 +75,44 @@ function replicaSettings(url: string) {
   }
 }
 
+/**
+ * node-postgres's Client with a listener for 'error' from the moment it is made. A client emits
+ * 'error' when its connection breaks while no statement is running on it: PostgreSQL restarting
+ * ends every session with 57P01 (admin_shutdown), a fail-over or a dropped idle connection does
+ * the same. Node throws an 'error' nobody listens to as an uncaught exception, which ends the
+ * process. Sequelize adds its own listener (it marks the connection invalid and destroys it) only
+ * once the connection is made and handed back to its code, a turn of the event loop later; an
+ * error read from the socket before that (in the same chunk as the server's ready message, as
+ * happens when the server shuts down while connections are being opened) had no listener: the
+ * restart test saw such 57P01 errors as unhandled. This listener is there from the start: it logs
+ * one line (the failure stays visible) and marks the connection invalid, so the pool's validate
+ * never hands it out again and opens a new connection instead. A statement that was running when
+ * the connection broke gets its own error as before (a read is asked again: RETRY_ON_CONNECTION_ERRORS).
+ */
+class ListenedClient extends pg.Client {
+  constructor(config?: string | pg.ClientConfig) {
+    super(config)
+    this.on('error', (error: Error & { code?: unknown }) => {
+      // Sequelize's connection manager reads this flag in `validate` (lib/dialects/postgres/connection-manager.js).
+      const pooled = this as unknown as { _invalid?: boolean }
+      // One line per connection: the end of its socket that follows a 57P01 is the same failure.
+      if (pooled._invalid) return
+      pooled._invalid = true
+      console.error(`database: a connection broke${typeof error.code === 'string' ? ` (${error.code})` : ''}: ${error.message}; the pool opens another`)
+    })
+  }
+}
+
+/** The pg module as Sequelize uses it (`dialectModule`), with ListenedClient for its connections. */
+export const pgWithErrorListeners: typeof pg = { ...pg, Client: ListenedClient }
+
 export function createSequelize(databaseUrl: string, options: { log?: boolean; readUrls?: readonly string[] } = {}): Sequelize {
   const readUrls = options.readUrls ?? []
   return new Sequelize(databaseUrl, {
     dialect: 'postgres',
-    // Handing Sequelize the module directly keeps it working when the app is bundled.
-    dialectModule: pg,
+    // Handing Sequelize the module directly keeps it working when the app is bundled; its Client
+    // listens for errors from the start (ListenedClient).
+    dialectModule: pgWithErrorListeners,
     logging: options.log ? console.log : false,
     pool: { max: 10, min: 0, idle: 10_000 },
     define: { underscored: true },
