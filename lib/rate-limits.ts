@@ -80,6 +80,19 @@ export const RATE_LIMITS = {
    * of a few patterns. Our choice.
    */
   bookletBuildsPerUser: { points: 30, windowSeconds: HOUR, what: 'booklet requests' },
+  /**
+   * Sewing projects one person starts (each works out a checklist from the pattern's plan): 30 an
+   * hour, far past anyone trying sizes and colourways of a few patterns at once. Our choice.
+   */
+  sewingProjectStartsPerUser: { points: 30, windowSeconds: HOUR, what: 'new sewing projects' },
+  /**
+   * Step ticks, unticks and notes one person saves, over all their projects: 600 a minute, ten a
+   * second kept up for a whole minute. A quilter ticking as fast as a thumb can, or a phone sending
+   * a few hundred ticks it kept while offline, stays under it; a script hammering the route does
+   * not. The sewing room waits out a 429 and sends again (lib/sewing-room-client/step-sync.ts), so
+   * even a refusal loses no tick. Our choice.
+   */
+  sewingStepChangesPerUser: { points: 600, windowSeconds: MINUTE, what: 'step changes' },
 } as const satisfies Record<string, RateLimit>
 
 export type RateLimitName = keyof typeof RATE_LIMITS
@@ -224,4 +237,14 @@ export async function countCheckout(userId: string): Promise<void> {
 /** Counts a buyer's booklet request (lib/services/booklets.ts). */
 export async function countBookletBuild(userId: string): Promise<void> {
   await consume('bookletBuildsPerUser', counterKey(userId))
+}
+
+/** Counts a sewing project started by a person (their user id); throws TooManyRequestsError past the limit. */
+export async function countSewingProjectStart(userId: string): Promise<void> {
+  await consume('sewingProjectStartsPerUser', counterKey(userId))
+}
+
+/** Counts a step change (tick, untick, note) saved by a person; throws TooManyRequestsError past the limit. */
+export async function countStepChange(userId: string): Promise<void> {
+  await consume('sewingStepChangesPerUser', counterKey(userId))
 }

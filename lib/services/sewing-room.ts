@@ -7,6 +7,7 @@ import type { BookletModel } from '@/lib/booklet/model'
 import { database } from '@/lib/db'
 import { ConflictError, NotFoundError, StoredDesignError, ValidationError } from '@/lib/errors'
 import { MAX_SEWING_PROJECTS_PER_PERSON } from '@/lib/limits'
+import { countSewingProjectStart, countStepChange } from '@/lib/rate-limits'
 import { parseDesign } from '@/lib/schemas/design'
 import type { NewProjectInput, ProjectDetail, ProjectStep, ProjectSummary, SewingPicture, StepProgress, StepUpdateInput } from '@/lib/schemas/sewing-room'
 import { checklistOfModel, sewingModel, type Checklist } from '@/lib/sewing-room/checklist'
@@ -213,6 +214,8 @@ function canRead(actor: Actor, facts: SewingProjectFacts): boolean {
 export async function startProject(actor: Actor, input: NewProjectInput): Promise<ProjectSummary> {
   authorize(actor, 'sewing-room:list')
   database()
+  // Every attempt counts, a refused one too (lib/rate-limits.ts): each costs lookups and a plan.
+  await countSewingProjectStart(actor.id)
   let pattern: Pattern | null = null
   let facts: SewingProjectFacts | null = null
   if (input.licenceId !== undefined) {
@@ -289,6 +292,8 @@ export async function projectDetail(loaded: LoadedProject): Promise<ProjectDetai
  */
 export async function updateStep(loaded: LoadedProject, input: StepUpdateInput): Promise<StepProgress> {
   const { project, pattern } = loaded
+  // Counted for the project's owner, the only one who may change its steps (loadProject checked).
+  await countStepChange(project.ownerId)
   const entry = await workedFor(project, pattern)
   if (!entry.stepIds.has(input.stepId)) throw new ValidationError([{ path: 'stepId', message: 'This project\u2019s checklist has no such step.' }])
   const setNote = input.note !== undefined
