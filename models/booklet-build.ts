@@ -4,8 +4,10 @@ import {
   type CreationOptional,
   type InferAttributes,
   type InferCreationAttributes,
+  type NonAttribute,
   type Sequelize,
 } from 'sequelize'
+import type { Licence } from './licence'
 
 /** Where a buyer's booklet is: waiting for the worker, being written, in the store, or given up. */
 export type BookletBuildState = 'queued' | 'building' | 'ready' | 'failed'
@@ -34,6 +36,8 @@ export class BookletBuild extends Model<InferAttributes<BookletBuild>, InferCrea
   declare createdAt: CreationOptional<Date>
   declare startedAt: CreationOptional<Date | null>
   declare finishedAt: CreationOptional<Date | null>
+  /** Its licence, when a query includes it (`as: 'licence'`). */
+  declare licence?: NonAttribute<Licence>
 }
 
 export function initBookletBuild(sequelize: Sequelize): void {

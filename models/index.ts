@@ -70,4 +70,5 @@ export function initModels(sequelize: Sequelize): void {
   Order.belongsTo(User, { foreignKey: 'buyerId', as: 'buyer' })
   Licence.belongsTo(Pattern, { foreignKey: 'patternId', as: 'pattern' })
   Licence.belongsTo(Order, { foreignKey: 'orderId', as: 'order' })
+  BookletBuild.belongsTo(Licence, { foreignKey: 'licenceId', as: 'licence' })
 }

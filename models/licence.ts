@@ -4,8 +4,10 @@ import {
   type CreationOptional,
   type InferAttributes,
   type InferCreationAttributes,
+  type NonAttribute,
   type Sequelize,
 } from 'sequelize'
+import type { Pattern } from './pattern'
 
 /**
  * A buyer's personal licence to a pattern (all colourways, any size and paper), granted by a paid
@@ -20,6 +22,8 @@ export class Licence extends Model<InferAttributes<Licence>, InferCreationAttrib
   declare orderId: string
   declare grantedAt: CreationOptional<Date>
   declare revokedAt: CreationOptional<Date | null>
+  /** Its pattern, when a query includes it (`as: 'pattern'`). */
+  declare pattern?: NonAttribute<Pattern>
 }
 
 export function initLicence(sequelize: Sequelize): void {

@@ -48,13 +48,21 @@ function factsOf(requesterId: string, licence: Licence, pattern: Pattern): Bookl
   }
 }
 
-/** A build, for someone the rules let see it; 404 for anyone else, exactly like a missing one. */
+/**
+ * A build, for someone the rules let see it; 404 for anyone else, exactly like a missing one. One
+ * query with its licence and the pattern's owner and state: the library page asks this every
+ * second or so while a booklet builds, for each buyer at once on a sale day.
+ */
 async function loadBuild(actor: Actor, buildId: string): Promise<LoadedBuild> {
   authorize(actor, 'read-own-library')
   database()
-  const build = UUID.test(buildId) ? await BookletBuild.findByPk(buildId) : null
-  const licence = build ? await Licence.findByPk(build.licenceId) : null
-  const pattern = licence ? await Pattern.findByPk(licence.patternId) : null
+  const build = UUID.test(buildId)
+    ? await BookletBuild.findByPk(buildId, {
+        include: [{ model: Licence, as: 'licence', required: true, include: [{ model: Pattern, as: 'pattern', attributes: ['id', 'ownerId', 'state'], required: true }] }],
+      })
+    : null
+  const licence = build?.licence
+  const pattern = licence?.pattern
   if (!build || !licence || !pattern) throw new NotFoundError('No such booklet.')
   const facts = factsOf(build.userId, licence, pattern)
   authorize(actor, 'get-licensed-booklet', facts)
@@ -90,6 +98,9 @@ function statusOf(build: BookletBuild, userId: string): BookletStatus {
   return status
 }
 
+/** Who asks for a booklet: the signed-in person, whose name goes in every page footer. */
+export type BookletAsker = NonNullable<Actor> & { readonly displayName: string }
+
 /** A licence and its pattern, loaded for the person asking for a booklet. */
 export interface LicenceForBooklet {
   readonly licence: Licence
@@ -103,8 +114,8 @@ export interface LicenceForBooklet {
 export async function licenceForBooklet(actor: Actor, licenceId: string): Promise<LicenceForBooklet> {
   authorize(actor, 'read-own-library')
   database()
-  const licence = UUID.test(licenceId) ? await Licence.findByPk(licenceId) : null
-  const pattern = licence ? await Pattern.findByPk(licence.patternId) : null
+  const licence = UUID.test(licenceId) ? await Licence.findByPk(licenceId, { include: [{ model: Pattern, as: 'pattern', required: true }] }) : null
+  const pattern = licence?.pattern
   if (!licence || !pattern) throw new NotFoundError('No such licence in your library.')
   authorize(actor, 'get-licensed-booklet', factsOf(actor.id, licence, pattern))
   return { licence, pattern }
@@ -117,7 +128,7 @@ export async function licenceForBooklet(actor: Actor, licenceId: string): Promis
  *
  * @example const { id, state } = await requestBooklet(user, await licenceForBooklet(user, licenceId), { paper: 'letter', orientation: 'portrait' })
  */
-export async function requestBooklet(actor: Actor, licensed: LicenceForBooklet, request: BookletRequest): Promise<BookletStatus> {
+export async function requestBooklet(actor: BookletAsker, licensed: LicenceForBooklet, request: BookletRequest): Promise<BookletStatus> {
   authorize(actor, 'read-own-library')
   authorize(actor, 'get-licensed-booklet', factsOf(actor.id, licensed.licence, licensed.pattern))
   const sequelize = database()
@@ -129,21 +140,29 @@ export async function requestBooklet(actor: Actor, licensed: LicenceForBooklet, 
   if (request.colorway !== undefined && !colorwayNames.includes(request.colorway)) {
     throw new ValidationError([{ path: 'colorway', message: `This pattern has no colourway named “${request.colorway}”.` }])
   }
-  const person = (await User.findByPk(actor.id, { attributes: ['displayName'] }))?.displayName ?? 'the licence holder'
   const options = bookletOptionsOf(request)
-  const cacheKey = cacheKeyOf({ patternId: pattern.id, revision: pattern.revision, options, licenceId: licence.id, userId: actor.id, person })
-  const build = await sequelize.transaction(async (transaction) => {
-    // One request at a time per key, so two at once make one build (the unique index would refuse the second anyway).
-    await sequelize.query('SELECT pg_advisory_xact_lock(hashtextextended(:key, 0))', { replacements: { key: cacheKey }, type: QueryTypes.SELECT, transaction })
-    const existing = await BookletBuild.findOne({ where: { cacheKey, state: ['queued', 'building', 'ready'] }, transaction })
-    if (existing) return existing
-    const created = await BookletBuild.create(
-      { id: randomUUID(), licenceId: licence.id, userId: actor.id, patternId: pattern.id, patternRevision: pattern.revision, options: { ...options }, cacheKey },
-      { transaction },
+  const cacheKey = cacheKeyOf({ patternId: pattern.id, revision: pattern.revision, options, licenceId: licence.id, userId: actor.id, person: actor.displayName })
+  // A new build and its job are one transaction. The same booklet asked for twice at once makes one
+  // build: the second insert meets the unique index of live builds and takes the first one's row.
+  const created = await sequelize.transaction(async (transaction) => {
+    const [row] = await sequelize.query<BookletBuild>(
+      `INSERT INTO booklet_builds (id, licence_id, user_id, pattern_id, pattern_revision, options, cache_key)
+       VALUES (:id, :licenceId, :userId, :patternId, :revision, :options, :cacheKey)
+       ON CONFLICT (cache_key) WHERE state <> 'failed' DO NOTHING
+       RETURNING *`,
+      {
+        replacements: { id: randomUUID(), licenceId: licence.id, userId: actor.id, patternId: pattern.id, revision: pattern.revision, options: JSON.stringify(options), cacheKey },
+        type: QueryTypes.SELECT,
+        model: BookletBuild,
+        mapToModel: true,
+        transaction,
+      },
     )
-    await queueJob(BOOKLETS_QUEUE, { buildId: created.id }, transaction)
-    return created
+    if (row) await queueJob(BOOKLETS_QUEUE, { buildId: row.id }, transaction)
+    return row
   })
+  const build = created ?? (await BookletBuild.findOne({ where: { cacheKey, state: ['queued', 'building', 'ready'] } }))
+  if (!build) throw new Error(`the booklet build for key ${cacheKey} is neither new nor live`)
   return statusOf(build, actor.id)
 }
 
