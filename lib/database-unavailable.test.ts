@@ -89,7 +89,7 @@ describe('route() when the database cannot be reached', () => {
     expect(response.status).toBe(503)
     expect(response.headers.get('retry-after')).toBe(String(DATABASE_RETRY_AFTER_SECONDS))
     expect(await response.json()).toEqual({
-      error: { message: `The database cannot be reached just now; try again in ${DATABASE_RETRY_AFTER_SECONDS} seconds.`, retryAfterSeconds: DATABASE_RETRY_AFTER_SECONDS },
+      error: { message: `The database could not be reached, so nothing was changed; try again in ${DATABASE_RETRY_AFTER_SECONDS} seconds.`, retryAfterSeconds: DATABASE_RETRY_AFTER_SECONDS },
     })
     expect(logged).toHaveBeenCalledTimes(1)
     expect(String(logged.mock.calls[0]![0])).toMatch(/database unreachable, answered 503: .*ECONNREFUSED/)

@@ -295,7 +295,8 @@ function errorResponse(error: unknown): Response {
   if (isDatabaseUnavailable(error)) {
     // Logged, one line, so an outage that lasts is seen; the stack says nothing more here.
     console.error(`database unreachable, answered 503: ${(error as Error).message}`)
-    const response = jsonError(503, `The database cannot be reached just now; try again in ${DATABASE_RETRY_AFTER_SECONDS} seconds.`, {
+    // "Nothing was changed", as the 500 says: a transaction whose connection broke was rolled back.
+    const response = jsonError(503, `The database could not be reached, so nothing was changed; try again in ${DATABASE_RETRY_AFTER_SECONDS} seconds.`, {
       retryAfterSeconds: DATABASE_RETRY_AFTER_SECONDS,
     })
     response.headers.set('retry-after', String(DATABASE_RETRY_AFTER_SECONDS))

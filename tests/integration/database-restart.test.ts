@@ -77,7 +77,7 @@ describe('PostgreSQL restarted under the running app', () => {
     const down = await read()
     expect(down.status).toBe(503)
     expect(down.headers.get('retry-after')).toBe(String(DATABASE_RETRY_AFTER_SECONDS))
-    expect(down.json?.error).toEqual({ message: expect.stringMatching(/^The database cannot be reached just now/), retryAfterSeconds: DATABASE_RETRY_AFTER_SECONDS })
+    expect(down.json?.error).toEqual({ message: expect.stringMatching(/^The database could not be reached, so nothing was changed/), retryAfterSeconds: DATABASE_RETRY_AFTER_SECONDS })
     expect(Date.now() - whileDown).toBeLessThan(10_000)
 
     // Up again on the same port: the very first request is answered, on the app's existing pool.

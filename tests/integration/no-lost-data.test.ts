@@ -140,8 +140,10 @@ describe('a save whose database connection is killed part way', () => {
       const answer = await saving
       await holder.query('ROLLBACK')
 
-      // The client is told nothing was changed, and nothing was.
-      expect(answer.status).toBe(500)
+      // The client is told nothing was changed, and nothing was: the database ended the
+      // connection (57P01), so the answer is 503 with Retry-After (lib/database-unavailable.ts).
+      expect(answer.status).toBe(503)
+      expect(answer.headers.get('retry-after')).toMatch(/^\d+$/)
       expect(answer.json?.error.message).toMatch(/nothing was changed/)
       const after = await stored(pattern.id)
       expectConsistent(after)
