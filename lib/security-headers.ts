@@ -1,8 +1,9 @@
 /**
  * The security headers that depend on the request or the settings, built here and sent by proxy.ts
- * on pages and API answers: the Content-Security-Policy and HSTS. The ones that never change
- * (X-Content-Type-Options, X-Frame-Options, Referrer-Policy, and Cache-Control: no-store on the
- * API) are in next.config.mjs `headers()`, which also covers static files.
+ * on pages: the Content-Security-Policy and HSTS. The ones that never change (X-Content-Type-Options,
+ * X-Frame-Options, Referrer-Policy, and on the API Cache-Control: no-store and the closed policy
+ * below) are in next.config.mjs `headers()`, which also covers static files. API answers carry no
+ * HSTS: a browser keeps it from the site's pages, which every visitor opens first.
  *
  * Pages get a nonce-based Content-Security-Policy: Next.js reads the nonce from the request's
  * policy and puts it on its own inline and framework scripts, so no inline script without it runs.
@@ -67,7 +68,11 @@ export function contentSecurityPolicy(nonce: string, options: SecurityOptions): 
   return directives.join('; ')
 }
 
-/** The policy of an API answer: JSON is never a document, so it may load nothing and be framed by no one. */
+/**
+ * The policy of an API answer: JSON is never a document, so it may load nothing and be framed by no
+ * one. Sent by next.config.mjs (which cannot import this file), the same text; the page-access test
+ * checks every API answer against this constant.
+ */
 export const API_CONTENT_SECURITY_POLICY = "default-src 'none'; frame-ancestors 'none'"
 
 /**

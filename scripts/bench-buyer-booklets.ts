@@ -12,6 +12,7 @@
 import fs from 'node:fs'
 import os from 'node:os'
 import path from 'node:path'
+import { Worker } from 'node:worker_threads'
 import { percentile } from './bench-app'
 import { startObjectStore, type ObjectStore } from './object-store'
 import { startCluster, type Cluster } from './postgres'
@@ -20,8 +21,6 @@ import { freePort, run, startProcess, stopProcess, waitForHttp } from './process
 const BUYERS = 20
 const HEALTH_EVERY_MS = 50
 const DEADLINE_MS = 5 * 60_000
-/** As often as the library page asks (app/(shop)/library/get-booklet.tsx). */
-const STATUS_POLL_MS = 700
 
 const work = fs.mkdtempSync(path.join(os.tmpdir(), 'wreathwright-bench-booklets-'))
 fs.chmodSync(work, 0o755)
@@ -43,6 +42,28 @@ async function stopAll(): Promise<void> {
 }
 
 const sleep = (ms: number) => new Promise((resolve) => setTimeout(resolve, ms))
+
+/**
+ * The health probe's thread (plain JavaScript, run with `eval`): asks `url` every `everyMs` until
+ * told to stop or the deadline passes, then posts each answer's time and when it was asked (epoch ms).
+ */
+const HEALTH_PROBE = `
+const { parentPort, workerData } = require('node:worker_threads')
+let running = true
+parentPort.once('message', () => { running = false })
+;(async () => {
+  const samples = []
+  while (running && Date.now() < workerData.deadline) {
+    const at = performance.timeOrigin + performance.now()
+    const started = performance.now()
+    const answer = await fetch(workerData.url)
+    await answer.arrayBuffer()
+    samples.push({ ms: performance.now() - started, at })
+    await new Promise((resolve) => setTimeout(resolve, workerData.everyMs))
+  }
+  parentPort.postMessage(samples)
+})()
+`
 
 try {
   cluster = startCluster(path.join(work, 'postgres'), await freePort(), { throwaway: true, passwordFile: path.join(work, 'postgres.password') })
@@ -95,19 +116,15 @@ try {
 
   const deadline = Date.now() + DEADLINE_MS
   const asked = performance.now()
-  const health: number[] = []
-  const slowest: { at: number; ms: number }[] = []
-  let building = true
-  const probe = (async () => {
-    while (building && Date.now() < deadline) {
-      const started = performance.now()
-      const answer = await fetch(`${base}/api/health`)
-      await answer.arrayBuffer()
-      health.push(performance.now() - started)
-      slowest.push({ at: started - asked, ms: performance.now() - started })
-      await sleep(HEALTH_EVERY_MS)
-    }
-  })()
+  // The health probe runs on a thread of its own: this process also runs the object store (which
+  // takes in each finished PDF) and the buyers' pollers, and a probe sharing their event loop would
+  // time their work as the app's.
+  const probe = new Worker(HEALTH_PROBE, { eval: true, workerData: { url: `${base}/api/health`, everyMs: HEALTH_EVERY_MS, deadline } })
+  const probed = new Promise<{ ms: number; at: number }[]>((resolve, reject) => {
+    probe.once('message', resolve)
+    probe.once('error', reject)
+  })
+  const startedAt = performance.timeOrigin + asked
 
   const ids = await Promise.all(
     buyers.map(async ({ licenceId, cookie }) => {
@@ -117,23 +134,27 @@ try {
         body: JSON.stringify({ paper: 'letter', orientation: 'portrait' }),
       })
       if (answer.status !== 202) throw new Error(`asking for a booklet: HTTP ${answer.status} ${await answer.text()}`)
-      return { id: ((await answer.json()) as { id: string }).id, cookie }
+      const { id, askAgainMs } = (await answer.json()) as { id: string; askAgainMs?: number }
+      return { id, cookie, waitMs: askAgainMs ?? 700 }
     }),
   )
   const askMs = performance.now() - asked
-  // Each buyer's page polls its build as the library page does.
+  // Each buyer's page asks after its build as the library page does: after the wait the answer names.
   const seenReady = await Promise.all(
-    ids.map(async ({ id, cookie }) => {
+    ids.map(async ({ id, cookie, waitMs }) => {
+      let wait = waitMs
       while (Date.now() < deadline) {
-        const status = (await (await fetch(`${base}/api/booklets/${id}`, { headers: { cookie } })).json()) as { state: string }
+        await sleep(wait)
+        const status = (await (await fetch(`${base}/api/booklets/${id}`, { headers: { cookie } })).json()) as { state: string; askAgainMs?: number }
         if (status.state === 'ready' || status.state === 'failed') return { id, state: status.state, ms: performance.now() - asked }
-        await sleep(STATUS_POLL_MS)
+        wait = status.askAgainMs ?? 700
       }
       return { id, state: 'timed out', ms: performance.now() - asked }
     }),
   )
-  building = false
-  await probe
+  probe.postMessage('stop')
+  const samples = (await probed).map((sample) => ({ ms: sample.ms, at: sample.at - startedAt }))
+  const health = samples.map((sample) => sample.ms)
 
   const rows = await BookletBuild.findAll({ where: { id: ids.map(({ id }) => id) } })
   const byId = new Map(rows.map((row) => [row.id, row]))
@@ -151,7 +172,7 @@ try {
   const sorted = [...health].sort((a, b) => a - b)
   const p99 = percentile(sorted, 99)
   console.log(`  /api/health while building: ${sorted.length} answers, p50 ${percentile(sorted, 50).toFixed(1)} ms, p99 ${p99.toFixed(1)} ms, max ${sorted[sorted.length - 1]!.toFixed(1)} ms (goal: p99 under 100 ms: ${p99 < 100 ? 'met' : 'NOT met'})`)
-  const worst = slowest.sort((a, b) => b.ms - a.ms).slice(0, 3)
+  const worst = [...samples].sort((a, b) => b.ms - a.ms).slice(0, 3)
   console.log(`  slowest health answers: ${worst.map((sample) => `${sample.ms.toFixed(0)} ms at ${(sample.at / 1000).toFixed(1)} s`).join(', ')}`)
   const ready = seenReady.filter((seen) => seen.state === 'ready').length
   console.log(`  ${ready} of ${BUYERS} ready; the last seen ready ${Math.max(...seenReady.map((seen) => seen.ms)).toFixed(0)} ms after asking`)

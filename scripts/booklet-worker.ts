@@ -6,7 +6,7 @@
  * S3_*, BOOKLET_WORKER_CONCURRENCY, BOOKLET_POLL_SECONDS); `npm run demo` and `npm test` start it.
  * SIGTERM or SIGINT stops it after the builds in hand (an unfinished one is tried again later).
  */
-import { lowerEveryThread, WORKER_NICENESS } from '../lib/booklets/priority'
+import { lowerAutogroup, lowerEveryThread, WORKER_NICENESS } from '../lib/booklets/priority'
 import { startBookletWorker } from '../lib/booklets/worker'
 import { closeDatabase } from '../lib/db'
 import { bookletSettings } from '../lib/env'
@@ -16,9 +16,10 @@ try {
   // (not only the main one: lib/booklets/priority.ts) yields to it, so pages keep answering fast
   // while booklets build. Where lowering the priority is not allowed, it runs as it is.
   const lowered = lowerEveryThread(WORKER_NICENESS)
+  const grouped = lowerAutogroup(WORKER_NICENESS)
   const settings = bookletSettings()
   const worker = await startBookletWorker({ concurrency: settings.workerConcurrency, pollSeconds: settings.pollSeconds, niceness: WORKER_NICENESS })
-  console.log(`booklet-worker: ready (pid ${process.pid}, ${settings.workerConcurrency} at a time, ${lowered.lowered} of ${lowered.threads} threads at niceness ${WORKER_NICENESS})`)
+  console.log(`booklet-worker: ready (pid ${process.pid}, ${settings.workerConcurrency} at a time, ${lowered.lowered} of ${lowered.threads} threads at niceness ${WORKER_NICENESS}${grouped ? ', and its scheduling group' : ''})`)
   let stopping = false
   const stop = () => {
     if (stopping) return

@@ -61,3 +61,27 @@ export function lowerThisThread(niceness: number = WORKER_NICENESS): void {
     // Not allowed here: write at the priority inherited.
   }
 }
+
+/**
+ * Lowers this process's scheduling group, where Linux groups processes by session ("autogroup",
+ * on when /proc/sys/kernel/sched_autogroup_enabled is 1, as on this machine). The scheduler then
+ * shares the CPU fairly between groups first and only within a group by the threads' niceness, so a
+ * worker started in a session of its own (the demo and the test runner start each service with
+ * setsid) would get as much CPU as the web app however low its threads are. Writing a niceness to
+ * /proc/self/autogroup weighs the whole group like a thread of that niceness (sched(7), "The
+ * autogroup feature"; recalled from memory, and measured with the buyers' booklets benchmark).
+ * Answers whether the group was lowered; false where there is no autogroup (not Linux, autogroup
+ * off, some containers), where the threads' niceness is all there is.
+ *
+ * @example lowerAutogroup(19) // true on Linux with autogroup on
+ */
+export function lowerAutogroup(niceness: number = WORKER_NICENESS): boolean {
+  try {
+    const current = Number(/nice\s+(-?\d+)/.exec(fs.readFileSync('/proc/self/autogroup', 'utf8'))?.[1])
+    if (Number.isFinite(current) && current >= niceness) return true
+    fs.writeFileSync('/proc/self/autogroup', String(niceness))
+    return true
+  } catch {
+    return false
+  }
+}

@@ -52,6 +52,16 @@ export const bookletStatusSchema = z.object({
   urlExpiresAt: z.string().optional(),
   /** Why it failed, in words for the buyer. */
   error: z.string().optional(),
+  /** While it is queued or building: when to ask again, in milliseconds (BOOKLET_ASK_AGAIN_MS). */
+  askAgainMs: z.number().int().positive().optional(),
 })
+
+/**
+ * How long the library page waits before asking again how a build is going. A build being written
+ * moves a page every few tenths of a second, so its progress is worth following closely; a queued
+ * one waits for the builds ahead of it, and on a sale day every buyer's page asking often would
+ * only load the web app that answers them.
+ */
+export const BOOKLET_ASK_AGAIN_MS = { queued: 2000, building: 700 } as const
 
 export type BookletStatus = z.infer<typeof bookletStatusSchema>

@@ -124,9 +124,9 @@ describe('every API row on the built app: headers, cookie flags, body limits', (
       const where = `${role} ${key} (${response.status})`
       if (response.status >= 500) problems.push(`${where}: a server error`)
       problems.push(...fixedHeaderProblems(where, response), ...cookieProblems(where, response))
-      // proxy.ts runs for requests without a body (every GET): there the API's closed policy; never a page's.
+      // Every API answer, read or write, carries the API's closed policy (next.config.mjs); never a page's.
       const policy = response.headers.get('content-security-policy')
-      if ((method === 'GET' || policy !== null) && policy !== API_CONTENT_SECURITY_POLICY) problems.push(`${where}: Content-Security-Policy ${policy}`)
+      if (policy !== API_CONTENT_SECURITY_POLICY) problems.push(`${where}: Content-Security-Policy ${policy}`)
       const cache = response.headers.get('cache-control') ?? ''
       if (!entry.publicCache && !cache.includes('no-store')) problems.push(`${where}: Cache-Control ${cache}`)
       if (role === 'stranger' && entry.limit !== null && !response.headers.getSetCookie().some((value) => value.startsWith(`${SESSION_COOKIE_NAME}=`))) {

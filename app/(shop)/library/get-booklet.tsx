@@ -3,10 +3,7 @@
 import { useEffect, useRef, useState, type FormEvent } from 'react'
 import { ApiError, apiFetch } from '@/lib/api-client'
 import { PAPER_NAMES } from '@/lib/schemas/booklet'
-import { bookletRequestSchema, bookletStatusSchema, type BookletStatus } from '@/lib/schemas/booklet-builds'
-
-/** How often the page asks how the build is going. */
-const POLL_MS = 700
+import { BOOKLET_ASK_AGAIN_MS, bookletRequestSchema, bookletStatusSchema, type BookletStatus } from '@/lib/schemas/booklet-builds'
 
 const PAPER_LABELS: Record<(typeof PAPER_NAMES)[number], string> = { letter: 'Letter', legal: 'Legal', tabloid: 'Tabloid', a4: 'A4', a3: 'A3' }
 
@@ -32,16 +29,17 @@ export function GetBooklet({ licenceId, patternName }: { licenceId: string; patt
       .catch(() => setColorways([]))
   }, [open, colorways, licenceId])
 
-  const follow = (id: string) => {
+  /** Asks how the build is going after the wait the server asked for (BOOKLET_ASK_AGAIN_MS). */
+  const follow = (id: string, waitMs: number) => {
     clearTimeout(timer.current)
     timer.current = setTimeout(() => {
       apiFetch(`/api/booklets/${id}`, { schema: bookletStatusSchema })
         .then((next) => {
           setStatus(next)
-          if (next.state === 'queued' || next.state === 'building') follow(id)
+          if (next.state === 'queued' || next.state === 'building') follow(id, next.askAgainMs ?? BOOKLET_ASK_AGAIN_MS.building)
         })
         .catch((error: unknown) => setProblem(error instanceof ApiError ? error.message : 'The server could not be reached.'))
-    }, POLL_MS)
+    }, waitMs)
   }
 
   const submit = async (event: FormEvent<HTMLFormElement>) => {
@@ -63,7 +61,7 @@ export function GetBooklet({ licenceId, patternName }: { licenceId: string; patt
     try {
       const answer = await apiFetch(`/api/licences/${licenceId}/booklets`, { method: 'POST', json: parsed.data, schema: bookletStatusSchema })
       setStatus(answer)
-      if (answer.state === 'queued' || answer.state === 'building') follow(answer.id)
+      if (answer.state === 'queued' || answer.state === 'building') follow(answer.id, answer.askAgainMs ?? BOOKLET_ASK_AGAIN_MS.building)
     } catch (error) {
       setProblem(error instanceof ApiError ? [error.message, ...error.issues.map((issue) => `${issue.path}: ${issue.message}`)].join(' ') : 'The server could not be reached.')
     } finally {
