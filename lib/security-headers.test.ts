@@ -1,7 +1,8 @@
 import { NextRequest } from 'next/server'
 import { afterEach, describe, expect, it, vi } from 'vitest'
-import { proxy } from '@/proxy'
-import { contentSecurityPolicy, HSTS_VALUE, newNonce, securityOptionsFromEnv } from './security-headers'
+import nextConfig from '@/next.config.mjs'
+import { config as proxyConfig, proxy } from '@/proxy'
+import { API_CONTENT_SECURITY_POLICY, contentSecurityPolicy, HSTS_VALUE, newNonce, securityOptionsFromEnv } from './security-headers'
 
 /** The policy as a map from directive name to its source list. */
 function directives(policy: string): Map<string, string[]> {
@@ -91,11 +92,22 @@ describe('the proxy (proxy.ts)', () => {
     expect(response.headers.get('strict-transport-security')).toBe(HSTS_VALUE)
   })
 
-  it('sends no HSTS over plain http, and API answers a policy that loads nothing', () => {
+  it('sends no HSTS over plain http', () => {
     vi.stubEnv('NODE_ENV', 'production')
     vi.stubEnv('PUBLIC_URL', 'http://127.0.0.1:3000')
-    const response = proxy(new NextRequest('http://127.0.0.1:3000/api/patterns'))
+    const response = proxy(new NextRequest('http://127.0.0.1:3000/shop'))
     expect(response.headers.get('strict-transport-security')).toBeNull()
-    expect(response.headers.get('content-security-policy')).toBe("default-src 'none'; frame-ancestors 'none'")
+  })
+
+  it('runs for pages, not for the API, whose answers get the closed policy from next.config.mjs', async () => {
+    const [matcher] = proxyConfig.matcher
+    const runsFor = (path: string) => new RegExp(`^${matcher!.source}$`).test(path)
+    expect(runsFor('/shop')).toBe(true)
+    expect(runsFor('/')).toBe(true)
+    expect(runsFor('/api/patterns')).toBe(false)
+    expect(runsFor('/_next/static/chunks/app.js')).toBe(false)
+    const rules = await nextConfig.headers!()
+    const api = rules.find((rule) => rule.source === '/api/:path*')
+    expect(api?.headers.find((header) => header.key === 'Content-Security-Policy')?.value).toBe(API_CONTENT_SECURITY_POLICY)
   })
 })
