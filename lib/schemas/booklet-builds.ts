@@ -52,16 +52,33 @@ export const bookletStatusSchema = z.object({
   urlExpiresAt: z.string().optional(),
   /** Why it failed, in words for the buyer. */
   error: z.string().optional(),
-  /** While it is queued or building: when to ask again, in milliseconds (BOOKLET_ASK_AGAIN_MS). */
+  /** While it is queued or building: when to ask again, in milliseconds (askAgainMs). */
   askAgainMs: z.number().int().positive().optional(),
 })
 
 /**
- * How long the library page waits before asking again how a build is going. A build being written
+ * How long the library page waits, on average, before asking again how a build is going (the
+ * server's answer names the wait: askAgainMs). A build being written
  * moves a page every few tenths of a second, so its progress is worth following closely; a queued
  * one waits for the builds ahead of it, and on a sale day every buyer's page asking often would
  * only load the web app that answers them.
  */
 export const BOOKLET_ASK_AGAIN_MS = { queued: 2000, building: 700 } as const
+
+/** How far a wait may stray from BOOKLET_ASK_AGAIN_MS either way, as a share of it. */
+const ASK_AGAIN_SPREAD = 0.25
+
+/**
+ * The wait to tell a page: BOOKLET_ASK_AGAIN_MS of the state, moved at random by up to a quarter
+ * either way, so that buyers who asked at the same moment (a sale opening, a newsletter going out)
+ * do not all ask again at the same moment, every time.
+ *
+ * @example askAgainMs('queued', () => 0.5) // 2000
+ * @example askAgainMs('building', () => 0) // 525
+ */
+export function askAgainMs(state: keyof typeof BOOKLET_ASK_AGAIN_MS, random: () => number = Math.random): number {
+  const middle = BOOKLET_ASK_AGAIN_MS[state]
+  return Math.round(middle * (1 - ASK_AGAIN_SPREAD + 2 * ASK_AGAIN_SPREAD * random()))
+}
 
 export type BookletStatus = z.infer<typeof bookletStatusSchema>

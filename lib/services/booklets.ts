@@ -12,7 +12,7 @@ import { BOOKLETS_QUEUE, queueJob } from '@/lib/jobs/queue'
 import { getObject, objectKey, putObject } from '@/lib/object-store'
 import { countBookletBuild } from '@/lib/rate-limits'
 import { bookletOptionsSchema, type BookletOptionsInput } from '@/lib/schemas/booklet'
-import { BOOKLET_ASK_AGAIN_MS, bookletOptionsOf, type BookletRequest, type BookletStatus } from '@/lib/schemas/booklet-builds'
+import { askAgainMs, bookletOptionsOf, type BookletRequest, type BookletStatus } from '@/lib/schemas/booklet-builds'
 import { parseDesign } from '@/lib/schemas/design'
 import type { Design } from '@/geometry'
 import { BookletBuild, Licence, Pattern, PatternRevision, User } from '@/models'
@@ -87,7 +87,7 @@ function statusOf(build: BookletBuild, userId: string): BookletStatus {
   const status: BookletStatus = { id: build.id, state: build.state }
   if (build.state === 'queued' || build.state === 'building') {
     status.progress = { pages: build.pagesDone, of: build.pageCount }
-    status.askAgainMs = build.state === 'queued' ? BOOKLET_ASK_AGAIN_MS.queued : BOOKLET_ASK_AGAIN_MS.building
+    status.askAgainMs = askAgainMs(build.state === 'queued' ? 'queued' : 'building')
   }
   if (build.state === 'ready') {
     const settings = bookletSettings()
