@@ -49,13 +49,15 @@ async function quilterWithTheWreath(name: string) {
 
 /**
  * Starts a project of the licence and waits for its page; returns its id. The library links each
- * licence to its start page; on a phone the project is started from the sewing room's own list
- * (the library's table is wider than a phone's screen).
+ * licence to its start page, and fits the screen, a phone's too (nothing to scroll sideways); the
+ * project is started from the sewing room's own list, which names the same start page.
  */
 async function startFromLibrary(page: Page, licenceId: string, name: string): Promise<string> {
   await page.goto(`${baseUrl()}/library`)
   const link = page.locator(`[data-testid="licence-row"] a[href="/sewing-room/new?licence=${licenceId}"]`)
   expect(await link.textContent()).toBe('Sewing room')
+  expect(await link.isVisible()).toBe(true)
+  expect(await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth)).toBeLessThanOrEqual(0)
   await page.goto(`${baseUrl()}/sewing-room`)
   await page.locator(`[data-testid="startable"] a[href="/sewing-room/new?licence=${licenceId}"]`).click()
   await page.getByRole('heading', { name: /Start a project: Hollyberry Wreath/ }).waitFor()

@@ -78,7 +78,7 @@ export function GetBooklet({ licenceId, patternName }: { licenceId: string; patt
   }
   const building = status?.state === 'queued' || status?.state === 'building'
   return (
-    <div className="mt-2 space-y-2 rounded border border-linen-200 bg-white p-3" data-testid="get-booklet">
+    <div className="mt-2 basis-full space-y-2 rounded border border-linen-200 bg-white p-3" data-testid="get-booklet">
       <form onSubmit={submit} className="flex flex-wrap items-end gap-3" aria-label={`Booklet of ${patternName}`}>
         <label className="flex flex-col gap-1 text-xs text-stone-700">
           Paper

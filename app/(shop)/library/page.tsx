@@ -23,9 +23,10 @@ export default async function LibraryPage() {
           <thead className="border-b border-linen-200 text-left text-stone-600">
             <tr>
               <th scope="col" className="px-2 py-2">Pattern</th>
-              <th scope="col" className="px-2 py-2">Designer</th>
-              <th scope="col" className="px-2 py-2">Licence</th>
-              <th scope="col" className="px-2 py-2">Bought</th>
+              {/* On a phone the designer, licence and date go under the pattern's name (below). */}
+              <th scope="col" className="hidden px-2 py-2 sm:table-cell">Designer</th>
+              <th scope="col" className="hidden px-2 py-2 sm:table-cell">Licence</th>
+              <th scope="col" className="hidden px-2 py-2 sm:table-cell">Bought</th>
               <th scope="col" className="px-2 py-2"><span className="sr-only">Actions</span></th>
             </tr>
           </thead>
@@ -35,18 +36,23 @@ export default async function LibraryPage() {
                 <td className="px-2 py-2 font-medium text-stone-800">
                   {licence.patternName}
                   {licence.patternState === 'retired' && <span className="ml-2 text-xs text-stone-500">(no longer sold; yours to print)</span>}
+                  <span className="mt-1 block text-xs font-normal text-stone-600 sm:hidden">
+                    {licence.designer} · <span className="font-mono">{licence.number}</span> · {licence.grantedAt.slice(0, 10)}
+                  </span>
                 </td>
-                <td className="px-2 py-2">{licence.designer}</td>
-                <td className="px-2 py-2 font-mono">{licence.number}</td>
-                <td className="px-2 py-2 whitespace-nowrap">{licence.grantedAt.slice(0, 10)}</td>
+                <td className="hidden px-2 py-2 sm:table-cell">{licence.designer}</td>
+                <td className="hidden px-2 py-2 font-mono sm:table-cell">{licence.number}</td>
+                <td className="hidden px-2 py-2 whitespace-nowrap sm:table-cell">{licence.grantedAt.slice(0, 10)}</td>
                 <td className="px-2 py-2">
-                  <Link href={`/library/${licence.id}/print`} className="text-thread-700 hover:underline">
-                    Print
-                  </Link>
-                  <Link href={`/sewing-room/new?licence=${licence.id}`} className="ml-3 text-thread-700 hover:underline">
-                    Sewing room
-                  </Link>
-                  <GetBooklet licenceId={licence.id} patternName={licence.patternName} />
+                  <div className="flex flex-wrap items-baseline gap-x-3 gap-y-1">
+                    <Link href={`/library/${licence.id}/print`} className="text-thread-700 hover:underline">
+                      Print
+                    </Link>
+                    <Link href={`/sewing-room/new?licence=${licence.id}`} className="text-thread-700 hover:underline">
+                      Sewing room
+                    </Link>
+                    <GetBooklet licenceId={licence.id} patternName={licence.patternName} />
+                  </div>
                 </td>
               </tr>
             ))}
