@@ -195,6 +195,8 @@ export function afterClaimPath(patternIds: readonly string[]): string | null {
 
 /** A pattern on the tester's list. */
 export interface PatternToTest {
+  /** The live, accepted invitation: what a tester's sewing project is started under. */
+  readonly invitationId: string
   readonly patternId: string
   readonly name: string
   readonly state: PatternState
@@ -226,6 +228,7 @@ export async function listPatternsToTest(actor: Actor): Promise<PatternToTest[]>
   return rows.map((row) => {
     const pattern = (row as Invitation & { Pattern: Pattern & { owner?: User | null } }).Pattern
     return {
+      invitationId: row.id,
       patternId: pattern.id,
       name: pattern.name,
       state: pattern.state,

@@ -2,15 +2,17 @@ import { randomUUID } from 'node:crypto'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { closeDatabase, database } from '@/lib/db'
-import { Licence, Order, Pattern } from '@/models'
+import type { DesignFile } from '@/lib/schemas/design'
+import { Invitation, Licence, Order, Pattern } from '@/models'
 import { baseUrl, launchBrowser, signInThroughPage } from '../support/browser'
-import { createUser, TEST_PASSWORD } from '../support/factories'
+import { createPatternRow, createUser, TEST_PASSWORD } from '../support/factories'
 
 /**
  * The sewing room in the browser, against the built app: a quilter who bought the demo wreath
  * starts a project on a phone-sized page, ticks steps, sees them on a second device (another
  * browser context, signed in on its own), and a tick made while the connection fails waits in the
- * page (and across a reload) as "not saved yet" until it is saved.
+ * page (and across a reload) as "not saved yet" until it is saved; a tester starts one from their
+ * invitation to a pattern in testing, which nobody else can.
  */
 
 /** A phone held in one hand (an iPhone 12–15 sized window, common practice for mobile checks). */
@@ -183,5 +185,34 @@ describe('the sewing room', () => {
     const detail = (await server.json()) as { steps: { id: string; done: boolean }[] }
     expect(detail.steps.find((step) => step.id === stepId)?.done).toBe(true)
     expect(await page.evaluate(() => Object.keys(localStorage).filter((key) => key.startsWith('wreathwright.sewing-room.pending.')))).toEqual([])
+  })
+
+  it('lets a tester start a project from their invitation to a pattern in testing, and nobody else', async () => {
+    const demo = await Pattern.findOne({ where: { name: 'Hollyberry Wreath' } })
+    if (!demo) throw new Error('the demo data has no Hollyberry Wreath')
+    const stamp = Date.now()
+    const designer = await createUser({ displayName: 'Ines Testbed', roles: ['designer', 'quilter'], email: `ines-${stamp}@example.test` })
+    const pattern = await createPatternRow(designer, { name: `Rosehip Test Ring ${stamp}`, state: 'testing', design: demo.design as DesignFile })
+    const tester = await createUser({ displayName: 'Tove Tester', email: `tove-${stamp}@example.test` })
+    const invitation = await Invitation.create({
+      patternId: pattern.id, email: tester.email, invitedById: designer.id, userId: tester.id, acceptedAt: new Date(), withdrawnAt: null, expiresAt: new Date(Date.now() + 7 * 86_400_000),
+    })
+    const page = await (await newContext(PHONE)).newPage()
+    await signInThroughPage(page, tester.email, TEST_PASSWORD)
+    await page.goto(`${baseUrl()}/sewing-room/new?testing=${pattern.id}`)
+    await page.getByRole('heading', { name: `Start a project: ${pattern.name}` }).waitFor()
+    await page.getByRole('button', { name: 'Start the project' }).click()
+    await page.waitForURL(/\/sewing-room\/[0-9a-f-]{36}$/)
+    await page.getByTestId('next-step').waitFor()
+    const projectId = page.url().split('/').at(-1)!
+    const detail = (await (await page.request.get(`${baseUrl()}/api/sewing-room/projects/${projectId}`)).json()) as { project: { invitationId: string | null; licenceId: string | null } }
+    expect(detail.project).toMatchObject({ invitationId: invitation.id, licenceId: null })
+
+    // A quilter without an invitation finds no such page.
+    const stranger = await createUser({ displayName: 'Una Uninvited', email: `una-${stamp}@example.test` })
+    const other = await (await newContext()).newPage()
+    await signInThroughPage(other, stranger.email, TEST_PASSWORD)
+    const answer = await other.goto(`${baseUrl()}/sewing-room/new?testing=${pattern.id}`)
+    expect(answer?.status()).toBe(404)
   })
 })

@@ -6,10 +6,10 @@ import { StartProjectForm, type ColorwayChoice } from '@/components/sewing-room/
 import { requireUser } from '@/lib/auth/current-user'
 import { NotFoundError, StoredDesignError } from '@/lib/errors'
 import type { DesignFile } from '@/lib/schemas/design'
+import { listPatternsToTest } from '@/lib/services/invitations'
 import { getLicensedPattern } from '@/lib/services/licences'
 import { getPatternForPrint } from '@/lib/services/patterns'
 import { unitsPerInch } from '@/lib/units'
-import { liveInvitationIdOf } from './tester-invitation'
 
 export const metadata: Metadata = { title: 'Start a project' }
 
@@ -31,7 +31,8 @@ export default async function StartProjectPage({ searchParams }: { searchParams:
       loaded = { grant: { licenceId: licence }, name: pattern.name, design: pattern.design, back: { href: '/library', label: 'My library' } }
     } else if (testing) {
       const { pattern, asTester } = await getPatternForPrint(user, testing)
-      const invitationId = asTester ? await liveInvitationIdOf(user.id, pattern.id) : null
+      // The tester's pages know the pattern; the project is started under the live invitation to it.
+      const invitationId = asTester ? (await listPatternsToTest(user)).find((entry) => entry.patternId === pattern.id && entry.open)?.invitationId : undefined
       if (!invitationId) notFound()
       loaded = { grant: { invitationId }, name: pattern.name, design: pattern.design, back: { href: `/testing/${pattern.id}`, label: pattern.name } }
     } else notFound()
