@@ -1,6 +1,7 @@
 import 'server-only'
-import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, PutObjectCommand, S3Client } from '@aws-sdk/client-s3'
+import { DeleteObjectCommand, GetObjectCommand, NoSuchKey, PutObjectCommand, type S3Client } from '@aws-sdk/client-s3'
 import { objectStoreSettings, type ObjectStoreSettings } from '@/lib/env'
+import { s3ClientFor } from '@/lib/s3-client'
 import { ServiceError } from '@/lib/errors'
 
 /**
@@ -16,17 +17,7 @@ function store(): { client: S3Client; settings: ObjectStoreSettings } {
   if (!globalForStore.wreathwrightS3) {
     const settings = objectStoreSettings()
     if (!settings) throw new ServiceError('Uploads are not set up on this server (no object store is configured).', 503)
-    const client = new S3Client({
-      endpoint: settings.endpoint,
-      region: settings.region,
-      credentials: settings.credentials,
-      // Path-style addresses (endpoint/bucket/key) work with every S3-compatible server.
-      forcePathStyle: true,
-      // Checksums only where S3 requires them: S3-compatible servers differ in the newer ones.
-      requestChecksumCalculation: 'WHEN_REQUIRED',
-      responseChecksumValidation: 'WHEN_REQUIRED',
-      maxAttempts: 2,
-    })
+    const client = s3ClientFor(settings, { maxAttempts: 2 })
     globalForStore.wreathwrightS3 = { client, settings }
   }
   return globalForStore.wreathwrightS3

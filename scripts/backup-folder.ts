@@ -14,8 +14,9 @@ import { spawn } from 'node:child_process'
 import { createHash } from 'node:crypto'
 import fs from 'node:fs'
 import path from 'node:path'
-import { S3Client } from '@aws-sdk/client-s3'
+import type { S3Client } from '@aws-sdk/client-s3'
 import { objectStoreSettings, serverEnv } from '../lib/env'
+import { s3ClientFor } from '../lib/s3-client'
 import { postgresBinaries } from './postgres'
 
 export const MANIFEST_FILE = 'manifest.json'
@@ -100,14 +101,7 @@ export function backupSources(): { databaseUrl: string; store: { client: S3Clien
   // The SDK's notice that its releases after January 2027 need Node 22 is about versions this
   // project does not use (package.json pins it): kept off stderr, which holds the one error line.
   process.env.AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED ??= 'true'
-  const client = new S3Client({
-    endpoint: settings.endpoint,
-    region: settings.region,
-    credentials: settings.credentials,
-    forcePathStyle: true,
-    requestChecksumCalculation: 'WHEN_REQUIRED',
-    responseChecksumValidation: 'WHEN_REQUIRED',
-  })
+  const client = s3ClientFor(settings)
   return { databaseUrl: env.DATABASE_URL, store: { client, bucket: settings.bucket, keyPrefix: settings.keyPrefix } }
 }
 

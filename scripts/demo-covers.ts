@@ -7,10 +7,11 @@
  * server-only code). A pattern that already has a cover keeps it.
  */
 import { randomUUID } from 'node:crypto'
-import { PutObjectCommand, S3Client } from '@aws-sdk/client-s3'
+import { PutObjectCommand } from '@aws-sdk/client-s3'
 import sharp from 'sharp'
 import { Op, type Transaction } from 'sequelize'
 import { objectStoreSettings } from '../lib/env'
+import { s3ClientFor } from '../lib/s3-client'
 import { Pattern, Upload } from '../models'
 
 /** The side of a demo cover, pixels: lib/images.ts MAX_COVER_SIDE, the size an uploaded cover is stored at. */
@@ -57,7 +58,7 @@ export async function seedDemoCovers(transaction: Transaction): Promise<number> 
     transaction,
   })
   if (patterns.length === 0) return 0
-  const client = new S3Client({ endpoint: settings.endpoint, region: settings.region, credentials: settings.credentials, forcePathStyle: true, maxAttempts: 2 })
+  const client = s3ClientFor(settings, { maxAttempts: 2 })
   try {
     for (const pattern of patterns) {
       const cover = DEMO_COVERS.find((candidate) => candidate.pattern === pattern.name)!

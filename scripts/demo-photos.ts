@@ -6,10 +6,11 @@
  * script (run by tsx, outside Next.js) cannot import.
  */
 import { randomUUID } from 'node:crypto'
-import { PutObjectCommand, S3Client } from '@aws-sdk/client-s3'
+import { PutObjectCommand } from '@aws-sdk/client-s3'
 import sharp from 'sharp'
 import type { Transaction } from 'sequelize'
 import { objectStoreSettings } from '../lib/env'
+import { s3ClientFor } from '../lib/s3-client'
 import { Upload } from '../models'
 
 export interface DemoPhoto {
@@ -33,7 +34,7 @@ async function demoImage(photo: DemoPhoto): Promise<Buffer> {
 export async function storeDemoPhotos(ownerId: string, photos: readonly DemoPhoto[], transaction: Transaction): Promise<string[] | null> {
   const settings = objectStoreSettings()
   if (!settings) return null
-  const client = new S3Client({ endpoint: settings.endpoint, region: settings.region, credentials: settings.credentials, forcePathStyle: true, maxAttempts: 2 })
+  const client = s3ClientFor(settings, { maxAttempts: 2 })
   try {
     const ids: string[] = []
     for (const photo of photos) {

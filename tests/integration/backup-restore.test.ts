@@ -9,7 +9,7 @@ import { spawn } from 'node:child_process'
 import fs from 'node:fs'
 import os from 'node:os'
 import path from 'node:path'
-import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, S3Client } from '@aws-sdk/client-s3'
+import { DeleteObjectCommand, GetObjectCommand, PutObjectCommand, type S3Client } from '@aws-sdk/client-s3'
 import sharp from 'sharp'
 import { QueryTypes } from 'sequelize'
 import { afterAll, beforeEach, describe, expect, it } from 'vitest'
@@ -17,6 +17,7 @@ import { PATCH as updatePattern } from '@/app/api/patterns/[id]/route'
 import { POST as postUpload } from '@/app/api/uploads/route'
 import { database } from '@/lib/db'
 import { objectStoreSettings } from '@/lib/env'
+import { s3ClientFor } from '@/lib/s3-client'
 import { emptyDesign } from '@/lib/new-design'
 import { Pattern, Upload, User } from '@/models'
 import { hollyberryWreath } from '@/scripts/demo-wreath'
@@ -51,14 +52,7 @@ function runScript(script: 'backup' | 'restore', args: string[]): Promise<{ code
 
 function s3(): { client: S3Client; bucket: string } {
   const settings = objectStoreSettings()!
-  const client = new S3Client({
-    endpoint: settings.endpoint,
-    region: settings.region,
-    credentials: settings.credentials,
-    forcePathStyle: true,
-    requestChecksumCalculation: 'WHEN_REQUIRED',
-    responseChecksumValidation: 'WHEN_REQUIRED',
-  })
+  const client = s3ClientFor(settings)
   return { client, bucket: settings.bucket }
 }
 

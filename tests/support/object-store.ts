@@ -1,5 +1,6 @@
-import { DeleteObjectsCommand, ListObjectsV2Command, S3Client } from '@aws-sdk/client-s3'
+import { DeleteObjectsCommand, ListObjectsV2Command, type S3Client } from '@aws-sdk/client-s3'
 import { objectStoreSettings } from '@/lib/env'
+import { s3ClientFor } from '@/lib/s3-client'
 
 /**
  * The test run's object store (started by scripts/run-tests.ts), looked at through the S3 SDK as
@@ -8,14 +9,7 @@ import { objectStoreSettings } from '@/lib/env'
 function store(): { client: S3Client; bucket: string } {
   const settings = objectStoreSettings()
   if (!settings) throw new Error('S3_ENDPOINT and S3_BUCKET are not set: run integration tests through `npm test`')
-  const client = new S3Client({
-    endpoint: settings.endpoint,
-    region: settings.region,
-    credentials: settings.credentials,
-    forcePathStyle: true,
-    requestChecksumCalculation: 'WHEN_REQUIRED',
-    responseChecksumValidation: 'WHEN_REQUIRED',
-  })
+  const client = s3ClientFor(settings)
   return { client, bucket: settings.bucket }
 }
 
