@@ -13,6 +13,7 @@ import fs from 'node:fs'
 import os from 'node:os'
 import path from 'node:path'
 import { Worker } from 'node:worker_threads'
+import { BOOKLET_ASK_AGAIN_MS } from '../lib/schemas/booklet-builds'
 import { percentile } from './bench-app'
 import { startObjectStore, type ObjectStore } from './object-store'
 import { startCluster, type Cluster } from './postgres'
@@ -135,7 +136,7 @@ try {
       })
       if (answer.status !== 202) throw new Error(`asking for a booklet: HTTP ${answer.status} ${await answer.text()}`)
       const { id, askAgainMs } = (await answer.json()) as { id: string; askAgainMs?: number }
-      return { id, cookie, waitMs: askAgainMs ?? 700 }
+      return { id, cookie, waitMs: askAgainMs ?? BOOKLET_ASK_AGAIN_MS.building }
     }),
   )
   const askMs = performance.now() - asked
@@ -147,7 +148,7 @@ try {
         await sleep(wait)
         const status = (await (await fetch(`${base}/api/booklets/${id}`, { headers: { cookie } })).json()) as { state: string; askAgainMs?: number }
         if (status.state === 'ready' || status.state === 'failed') return { id, state: status.state, ms: performance.now() - asked }
-        wait = status.askAgainMs ?? 700
+        wait = status.askAgainMs ?? BOOKLET_ASK_AGAIN_MS.building
       }
       return { id, state: 'timed out', ms: performance.now() - asked }
     }),
