@@ -1,19 +1,14 @@
 import type { Browser, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { DEMO_PASSWORD } from '@/scripts/demo-data'
-import { boardDesign, clickAt, createPatternFromPage, dragSeam, screenPointOf } from '../support/board'
-import { baseUrl, launchBrowser, signInThroughPage } from '../support/browser'
+import { boardDesign, clickAt, createPatternFromPage, designerAtTheBoard, dragSeam, screenPointOf } from '../support/board'
+import { baseUrl } from '../support/browser'
 
 let browser: Browser
 let page: Page
-const pageErrors: string[] = []
+let pageErrors: string[]
 
 beforeAll(async () => {
-  browser = await launchBrowser()
-  const context = await browser.newContext({ viewport: { width: 1280, height: 800 } })
-  page = await context.newPage()
-  page.on('pageerror', (error) => pageErrors.push(String(error)))
-  await signInThroughPage(page, 'marguerite@bramblelane.example', DEMO_PASSWORD)
+  ;({ browser, page, pageErrors } = await designerAtTheBoard())
 })
 afterAll(async () => {
   await browser?.close()

@@ -1,4 +1,6 @@
-import type { Page } from 'playwright-core'
+import type { Browser, Page } from 'playwright-core'
+import { DEMO_PASSWORD } from '@/scripts/demo-data'
+import { launchBrowser, signInThroughPage } from './browser'
 
 type Point = readonly [number, number]
 
@@ -44,4 +46,23 @@ export async function createPatternFromPage(page: Page, name: string, design?: u
     const answer = (await response.json()) as { pattern: { id: string } }
     return answer.pattern.id
   }, JSON.stringify(design === undefined ? { name } : { name, design }))
+}
+
+/** A desktop browser signed in as the demo designer, for the board's tests, and the page's errors. */
+export interface DesignerAtTheBoard {
+  readonly browser: Browser
+  readonly page: Page
+  /** Every uncaught error of the page, to be empty at the end of a test. */
+  readonly pageErrors: string[]
+}
+
+/** Launches Chromium, opens a 1280 × 800 page and signs in as the demo designer Marguerite. */
+export async function designerAtTheBoard(): Promise<DesignerAtTheBoard> {
+  const browser = await launchBrowser()
+  const context = await browser.newContext({ viewport: { width: 1280, height: 800 } })
+  const page = await context.newPage()
+  const pageErrors: string[] = []
+  page.on('pageerror', (error) => pageErrors.push(String(error)))
+  await signInThroughPage(page, 'marguerite@bramblelane.example', DEMO_PASSWORD)
+  return { browser, page, pageErrors }
 }
