@@ -7,7 +7,7 @@
  * LOAD_SKIP_BUILD=1 to reuse a build of this checkout) and started with `next start`, one process.
  * Then autocannon, in this process, asks each target at 50 and then 200 connections for 20 s
  * (LOAD_SECONDS), each run also capped at MAX_REQUESTS_PER_RUN requests, the whole script at
- * DEADLINE_MS. The targets:
+ * DEADLINE_MS. LOAD_ONLY=a,b measures only the named targets beside the bare handler. The targets:
  *   - bare          GET /api/health/bare, a constant: the framework's own cost per request;
  *   - shop list     GET /api/shop/patterns, the shop's first page, no session;
  *   - shop page     GET /shop, the same page as HTML;
@@ -41,7 +41,12 @@ import { startObjectStore, type ObjectStore } from './object-store'
 import { startCluster, type Cluster } from './postgres'
 import { freePort, run, startProcess, stopProcess, waitForHttp } from './processes'
 
-const CONNECTIONS = [50, 200] as const
+/** The connection counts of issue 17; LOAD_CONNECTIONS=50 (a comma list) measures only those. */
+const CONNECTIONS = process.env.LOAD_CONNECTIONS ? process.env.LOAD_CONNECTIONS.split(',').map(Number) : [50, 200]
+if (CONNECTIONS.some((count) => !Number.isInteger(count) || count < 1)) {
+  console.error(`load: LOAD_CONNECTIONS must list whole numbers of connections, e.g. 50,200 (got ${process.env.LOAD_CONNECTIONS})`)
+  process.exit(2)
+}
 const SECONDS = Number(process.env.LOAD_SECONDS ?? 20)
 /** A cap on each run besides its time (the bare handler answers a few thousand a second here). */
 const MAX_REQUESTS_PER_RUN = 200_000
@@ -290,6 +295,13 @@ try {
     },
   ]
 
+  // LOAD_ONLY=name,name measures only those targets (and the bare handler, the baseline).
+  const only = process.env.LOAD_ONLY?.split(',').map((name) => name.trim())
+  if (only) {
+    const unknown = only.filter((name) => !targets.some((target) => target.name === name))
+    if (unknown.length > 0) throw new Error(`LOAD_ONLY names no target ${unknown.join(', ')} (there are ${targets.map((target) => target.name).join(', ')})`)
+    targets.splice(0, targets.length, ...targets.filter((target) => target.kind === 'bare' || only.includes(target.name)))
+  }
   const loadAverage = () => os.loadavg().map((value) => value.toFixed(1)).join(' ')
   console.log(`\nload: ${base}, next start (one process), ${os.cpus().length} cores; each run ${SECONDS} s, at most ${MAX_REQUESTS_PER_RUN} requests`)
   // The machine's load before measuring: other work on its cores lowers every figure below.

@@ -57,16 +57,39 @@ for (const signal of ['SIGINT', 'SIGTERM'] as const) {
   process.on(signal, () => void cleanUp().then(() => process.exit(130)))
 }
 
+interface VitestReport {
+  numPassedTests: number
+  numFailedTests: number
+  numPendingTests: number
+  numTodoTests: number
+  testResults: {
+    name: string
+    status: string
+    message?: string
+    assertionResults: { status: string; fullName: string; failureMessages: string[] }[]
+  }[]
+}
+
+/**
+ * The failed tests of a vitest JSON report, a line each with the first line of its failure, so that
+ * the end of a long run (all a CI log may keep) still says what failed.
+ */
+function failureLines(file: string): string[] {
+  if (!fs.existsSync(file)) return []
+  const report = JSON.parse(fs.readFileSync(file, 'utf8')) as VitestReport
+  const firstLine = (text: string | undefined) => (text ?? '').split('\n').find((line) => line.trim() !== '')?.trim() ?? ''
+  return report.testResults.flatMap((result) => {
+    const where = path.relative(process.cwd(), result.name)
+    const failedTests = result.assertionResults.filter((test) => test.status === 'failed')
+    if (failedTests.length === 0) return result.status === 'failed' ? [`${where}: ${firstLine(result.message)}`] : []
+    return failedTests.map((test) => `${where} > ${test.fullName}: ${firstLine(test.failureMessages[0])}`.slice(0, 400))
+  })
+}
+
 /** Counts from vitest's JSON report, so the run can end on one plain "N passed, N failed" line. */
 function readCounts(file: string): { passed: number; failed: number; skipped: number } {
   if (!fs.existsSync(file)) return { passed: 0, failed: 1, skipped: 0 }
-  const report = JSON.parse(fs.readFileSync(file, 'utf8')) as {
-    numPassedTests: number
-    numFailedTests: number
-    numPendingTests: number
-    numTodoTests: number
-    testResults: { status: string }[]
-  }
+  const report = JSON.parse(fs.readFileSync(file, 'utf8')) as VitestReport
   // A file that failed to load has no failed test but must still count as a failure.
   const brokenFiles = report.testResults.filter((result) => result.status === 'failed').length
   return {
@@ -149,7 +172,9 @@ try {
   failedSteps.push('setup')
 }
 
-const counts = [path.join(reports, 'unit.json'), path.join(reports, 'e2e.json')]
+const reportFiles = [path.join(reports, 'unit.json'), path.join(reports, 'e2e.json')]
+const failures = reportFiles.flatMap(failureLines)
+const counts = reportFiles
   .filter((file) => fs.existsSync(file))
   .map(readCounts)
   .reduce((sum, c) => ({ passed: sum.passed + c.passed, failed: sum.failed + c.failed, skipped: sum.skipped + c.skipped }), {
@@ -158,6 +183,7 @@ const counts = [path.join(reports, 'unit.json'), path.join(reports, 'e2e.json')]
     skipped: 0,
   })
 await cleanUp()
+if (failures.length > 0) console.error(`\ntests: what failed:\n${failures.map((line) => `  ${line}`).join('\n')}`)
 if (failedSteps.length > 0) console.error(`\ntests: failed steps: ${failedSteps.join(', ')}`)
 const failed = counts.failed || (failedSteps.length > 0 ? 1 : 0)
 console.log(`\n${counts.passed} passed, ${failed} failed${counts.skipped ? `, ${counts.skipped} skipped` : ''}`)
