@@ -1,4 +1,5 @@
 import type { Sequelize } from 'sequelize'
+import { watchListingChanges } from '@/lib/shop/listing-changes'
 import { AdminAuditEntry, initAdminAuditEntry } from './admin-audit-entry'
 import { AccountToken, initAccountToken } from './account-token'
 import { BookletBuild, initBookletBuild } from './booklet-build'
@@ -71,4 +72,7 @@ export function initModels(sequelize: Sequelize): void {
   Licence.belongsTo(Pattern, { foreignKey: 'patternId', as: 'pattern' })
   Licence.belongsTo(Order, { foreignKey: 'orderId', as: 'order' })
   BookletBuild.belongsTo(Licence, { foreignKey: 'licenceId', as: 'licence' })
+
+  // What the shop keeps of its pages is dropped on any write to what a listing is made of.
+  watchListingChanges([Pattern, User, Upload])
 }

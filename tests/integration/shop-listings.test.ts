@@ -1,5 +1,5 @@
 import { QueryTypes } from 'sequelize'
-import { afterAll, beforeEach, describe, expect, it } from 'vitest'
+import { afterAll, beforeEach, describe, expect, it, vi } from 'vitest'
 import { PATCH as setVisibility } from '@/app/api/admin/listings/[id]/route'
 import { GET as getOne } from '@/app/api/shop/patterns/[id]/route'
 import { GET as listPatterns } from '@/app/api/shop/patterns/route'
@@ -10,7 +10,8 @@ import type { Role } from '@/lib/roles'
 import type { DesignFile } from '@/lib/schemas/design'
 import type { PatternCurrency, PatternState } from '@/lib/schemas/pattern'
 import { SHOP_PAGE_SIZE } from '@/lib/schemas/shop-listings'
-import { setSkillNotes, shopCovers } from '@/lib/services/shop-listings'
+import { noteListingChange } from '@/lib/shop/listing-changes'
+import { listShopPatterns, setSkillNotes, SHOP_PAGE_FRESH_MS, shopCovers } from '@/lib/services/shop-listings'
 import { AdminAuditEntry, Pattern } from '@/models'
 import { emptyAdminLogs } from '../support/audit-log'
 import { closeDatabase, freshDatabase } from '../support/database'
@@ -316,5 +317,60 @@ describe('the migration that adds the listing columns', () => {
         hidden_at: null,
       },
     ])
+  })
+})
+
+describe('the pages the shop keeps', () => {
+  it('show a change made through the models at once, inside a transaction once it commits', async () => {
+    const owner = await designer()
+    const listed = await pattern(owner, { name: 'Kept ring' })
+    expect(await names()).toEqual(['Kept ring'])
+    await listed.update({ name: 'Renamed ring' })
+    expect(await names()).toEqual(['Renamed ring'])
+    await database().transaction(async (transaction) => {
+      await Pattern.update({ hiddenAt: new Date() }, { where: { id: listed.id }, transaction })
+      // Not committed yet: the shop still lists it, and must not keep that past the commit.
+      expect(await names()).toEqual(['Renamed ring'])
+    })
+    expect(await names()).toEqual([])
+  })
+
+  it('show a change made in plain SQL once the kept page is SHOP_PAGE_FRESH_MS old, as another web instance’s change', async () => {
+    const owner = await designer()
+    const listed = await pattern(owner, { name: 'Kept ring' })
+    const now = Date.now()
+    const clock = vi.spyOn(Date, 'now').mockReturnValue(now)
+    try {
+      expect(await names()).toEqual(['Kept ring'])
+      await database().query("UPDATE patterns SET name = 'Changed elsewhere' WHERE id = :id", { replacements: { id: listed.id } })
+      clock.mockReturnValue(now + SHOP_PAGE_FRESH_MS - 1)
+      expect(await names()).toEqual(['Kept ring'])
+      clock.mockReturnValue(now + SHOP_PAGE_FRESH_MS)
+      expect(await names()).toEqual(['Changed elsewhere'])
+    } finally {
+      clock.mockRestore()
+    }
+  })
+
+  it('read once for many who ask together, and keep no failed read', async () => {
+    const owner = await designer()
+    await pattern(owner, { name: 'Kept ring' })
+    noteListingChange()
+    const read = await Promise.all(Array.from({ length: 20 }, () => listShopPatterns({ sort: 'name', page: 1 })))
+    expect(new Set(read).size).toBe(1)
+    const sequelize = database()
+    const count = vi.spyOn(sequelize, 'query')
+    noteListingChange()
+    await Promise.all(Array.from({ length: 20 }, () => listShopPatterns({ sort: 'name', page: 1 })))
+    const statements = count.mock.calls.length
+    count.mockRestore()
+    // findAndCountAll: one count and one select, for twenty who asked.
+    expect(statements).toBe(2)
+
+    const failing = vi.spyOn(Pattern, 'findAndCountAll').mockRejectedValueOnce(new Error('connection lost'))
+    noteListingChange()
+    await expect(listShopPatterns({ sort: 'name', page: 1 })).rejects.toThrow('connection lost')
+    expect((await listShopPatterns({ sort: 'name', page: 1 })).patterns.map((listing) => listing.name)).toEqual(['Kept ring'])
+    failing.mockRestore()
   })
 })

@@ -1,5 +1,6 @@
 import { closeDatabase, database } from '@/lib/db'
 import { createMigrator } from '@/lib/migrator'
+import { noteListingChange } from '@/lib/shop/listing-changes'
 
 /**
  * Brings the test database (DATABASE_URL, started by scripts/run-tests.ts) to the latest schema
@@ -10,6 +11,8 @@ export async function freshDatabase(): Promise<void> {
   const sequelize = database()
   await createMigrator(sequelize).up()
   await sequelize.query('TRUNCATE users, sessions, patterns, pattern_revisions, rate_limits, uploads RESTART IDENTITY CASCADE')
+  // Plain SQL passes the models' hooks: the shop's kept pages must go with the rows.
+  noteListingChange()
 }
 
 export { closeDatabase }
