@@ -72,6 +72,9 @@ export function initModels(sequelize: Sequelize): void {
   Licence.belongsTo(Pattern, { foreignKey: 'patternId', as: 'pattern' })
   Licence.belongsTo(Order, { foreignKey: 'orderId', as: 'order' })
   BookletBuild.belongsTo(Licence, { foreignKey: 'licenceId', as: 'licence' })
+  SewingProject.belongsTo(Pattern, { foreignKey: 'patternId', as: 'pattern' })
+  SewingProject.belongsTo(Licence, { foreignKey: 'licenceId', as: 'licence' })
+  SewingProject.belongsTo(Invitation, { foreignKey: 'invitationId', as: 'invitation' })
 
   // What the shop keeps of its pages is dropped on any write to what a listing is made of.
   watchListingChanges([Pattern, User, Upload])

@@ -4,8 +4,12 @@ import {
   type CreationOptional,
   type InferAttributes,
   type InferCreationAttributes,
+  type NonAttribute,
   type Sequelize,
 } from 'sequelize'
+import type { Invitation } from './invitation'
+import type { Licence } from './licence'
+import type { Pattern } from './pattern'
 
 /**
  * A quilter's make of one pattern in the sewing room (migrations/20261202-0150-…): under a licence
@@ -26,6 +30,10 @@ export class SewingProject extends Model<InferAttributes<SewingProject>, InferCr
   declare name: string | null
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
+  /** Present when loaded with `include` (lib/services/sewing-room.ts loadProject). */
+  declare pattern?: NonAttribute<Pattern | null>
+  declare licence?: NonAttribute<Licence | null>
+  declare invitation?: NonAttribute<Invitation | null>
 }
 
 export function initSewingProject(sequelize: Sequelize): void {

@@ -29,9 +29,16 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i
 /** A project with what the rules and the answers need. */
 export interface LoadedProject {
   readonly project: SewingProject
+  /** PROJECT_PATTERN_COLUMNS only. */
   readonly pattern: Pattern
   readonly facts: SewingProjectFacts
+  /** The pattern's designer's name as the answers show it. */
+  readonly designer: string
 }
+
+/** What a loaded project reads of its pattern. */
+const PROJECT_PATTERN_COLUMNS = ['id', 'name', 'ownerId', 'state'] satisfies (keyof Pattern)[]
+type PatternWithOwner = Pattern & { owner?: User | null }
 
 // ---- the checklist of a revision, made once per (revision, colourway, diameter) ----
 
@@ -110,14 +117,25 @@ function factsOf(ownerId: string, pattern: Pattern, grant: { licence: Licence | 
 export async function loadProject(actor: Actor, projectId: string, action: 'sewing-room:read' | 'sewing-room:update' | 'sewing-room:delete'): Promise<LoadedProject> {
   authorize(actor, 'sewing-room:list')
   database()
-  const project = UUID.test(projectId) ? await SewingProject.findByPk(projectId) : null
+  // One statement: the project, its pattern (never the design: each revision's is read once, for
+  // its checklist) with the designer's name, and its grant. Every read and tick of the sewing room
+  // starts here (`npm run load`: plan and tick).
+  const project = UUID.test(projectId)
+    ? await SewingProject.findByPk(projectId, {
+      include: [
+        { model: Pattern, as: 'pattern', attributes: PROJECT_PATTERN_COLUMNS, include: [{ model: User, as: 'owner', attributes: ['displayName'] }] },
+        { model: Licence, as: 'licence' },
+        { model: Invitation, as: 'invitation' },
+      ],
+    })
+    : null
   // Someone else's project is not looked into further: it is not found.
-  const pattern = project && project.ownerId === actor.id ? await Pattern.findByPk(project.patternId) : null
+  const pattern = project && project.ownerId === actor.id ? (project.pattern as PatternWithOwner | null | undefined) : null
   if (!project || !pattern) throw new NotFoundError('No such project.')
-  const grant = project.licenceId !== null ? { licence: await Licence.findByPk(project.licenceId) } : { invitation: await Invitation.findByPk(project.invitationId!) }
+  const grant = project.licenceId !== null ? { licence: project.licence ?? null } : { invitation: project.invitation ?? null }
   const facts = factsOf(project.ownerId, pattern, grant)
   authorize(actor, action, facts)
-  return { project, pattern, facts }
+  return { project, pattern, facts, designer: pattern.owner?.displayName ?? FORMER_DESIGNER }
 }
 
 // ---- answers ----
@@ -173,7 +191,9 @@ export async function listProjects(actor: Actor): Promise<ProjectSummary[]> {
   authorize(actor, 'sewing-room:list')
   database()
   const projects = await SewingProject.findAll({ where: { ownerId: actor.id }, order: [['updatedAt', 'DESC'], ['id', 'ASC']] })
-  const patterns = new Map((await Pattern.findAll({ where: { id: { [Op.in]: [...new Set(projects.map((p) => p.patternId))] } } })).map((pattern) => [pattern.id, pattern]))
+  const patterns = new Map(
+    (await Pattern.findAll({ where: { id: { [Op.in]: [...new Set(projects.map((p) => p.patternId))] } }, attributes: PROJECT_PATTERN_COLUMNS })).map((pattern) => [pattern.id, pattern]),
+  )
   const licenceIds = projects.flatMap((p) => (p.licenceId ? [p.licenceId] : []))
   const invitationIds = projects.flatMap((p) => (p.invitationId ? [p.invitationId] : []))
   const licences = new Map((licenceIds.length > 0 ? await Licence.findAll({ where: { id: { [Op.in]: licenceIds } } }) : []).map((l) => [l.id, l]))
@@ -260,10 +280,10 @@ export async function startProject(actor: Actor, input: NewProjectInput): Promis
 
 /** `GET /api/sewing-room/projects/:id`: the project, its groups with progress, every step with its own, the next step and the picture. */
 export async function projectDetail(loaded: LoadedProject): Promise<ProjectDetail> {
-  const { project, pattern } = loaded
+  const { project, pattern, designer } = loaded
   const entry = await workedFor(project, pattern)
   entry.picture ??= sewingPicture(entry.model)
-  const rows = await SewingStep.findAll({ where: { projectId: project.id } })
+  const rows = await SewingStep.findAll({ where: { projectId: project.id }, attributes: ['stepId', 'done', 'note', 'updatedAt'] })
   const progress = new Map(rows.map((row) => [row.stepId, row]))
   const steps: ProjectStep[] = entry.checklist.steps.map((step) => {
     const row = progress.get(step.id)
@@ -274,9 +294,8 @@ export async function projectDetail(loaded: LoadedProject): Promise<ProjectDetai
     const ofGroup = steps.filter((step) => step.group === group.id)
     return { ...group, done: ofGroup.filter((step) => step.done).length, total: ofGroup.length }
   })
-  const names = await designerNames([pattern])
   return {
-    project: summaryOf(project, pattern, pattern.ownerId ? (names.get(pattern.ownerId) ?? FORMER_DESIGNER) : FORMER_DESIGNER, entry, done),
+    project: summaryOf(project, pattern, designer, entry, done),
     groups,
     steps,
     nextStepId: steps.find((step) => !step.done)?.id ?? null,
