@@ -16,7 +16,7 @@ import {
   type UpdatePatternInput,
 } from '@/lib/schemas/pattern'
 import { Pattern, PatternRevision, PatternStateChange, User } from '@/models'
-import { testerIdsOf } from './testers'
+import { LIVE_TESTER_IDS, liveTesterIdsOf, testerIdsOf } from './testers'
 
 // The answers' shapes are the schemas the browser parses them with (lib/schemas/pattern.ts).
 export type { PatternSummary, PatternView }
@@ -121,7 +121,8 @@ export async function createPattern(actor: Actor, input: CreatePatternInput): Pr
 
 async function findPattern(id: string, transaction?: Transaction): Promise<Pattern> {
   if (!patternIdSchema.safeParse(id).success) throw new NotFoundError('No such pattern.')
-  const pattern = await Pattern.findByPk(id, { transaction, lock: transaction ? Transaction.LOCK.UPDATE : undefined })
+  // With its testers now, in the same statement (patternFacts reads them from it).
+  const pattern = await Pattern.findByPk(id, { transaction, lock: transaction ? Transaction.LOCK.UPDATE : undefined, attributes: { include: [LIVE_TESTER_IDS] } })
   if (!pattern) throw new NotFoundError('No such pattern.')
   return pattern
 }
@@ -133,7 +134,7 @@ async function findPattern(id: string, transaction?: Transaction): Promise<Patte
  * @example authorize(user, 'print-pattern', await patternFacts(pattern))
  */
 export async function patternFacts(pattern: Pattern, transaction?: Transaction): Promise<PatternFacts> {
-  return { ownerId: pattern.ownerId, state: pattern.state, testerIds: await testerIdsOf(pattern.id, { transaction }) }
+  return { ownerId: pattern.ownerId, state: pattern.state, testerIds: liveTesterIdsOf(pattern) ?? (await testerIdsOf(pattern.id, { transaction })) }
 }
 
 /**

@@ -1,5 +1,5 @@
 import 'server-only'
-import { Op, QueryTypes, type Transaction } from 'sequelize'
+import { literal, Op, QueryTypes, type Transaction } from 'sequelize'
 import type { PatternFacts } from '@/lib/authorization'
 import { database } from '@/lib/db'
 import { Invitation } from '@/models'
@@ -13,6 +13,26 @@ import { Invitation } from '@/models'
 /** The conditions of an invitation that makes its person a tester now: claimed, not withdrawn, not expired. */
 function liveAndAccepted(now: Date) {
   return { userId: { [Op.ne]: null }, acceptedAt: { [Op.ne]: null }, withdrawnAt: null, expiresAt: { [Op.gt]: now } }
+}
+
+/** The same conditions in SQL, for an invitation row named `alias`. */
+const liveAndAcceptedSql = (alias: string) =>
+  `${alias}.user_id IS NOT NULL AND ${alias}.accepted_at IS NOT NULL AND ${alias}.withdrawn_at IS NULL AND ${alias}.expires_at > now()`
+
+/**
+ * testerIdsOf as a column of a query of patterns (`attributes: { include: [LIVE_TESTER_IDS] }`),
+ * read back with `liveTesterIdsOf`: one statement for a pattern and its testers, as every request
+ * about a pattern makes (lib/services/patterns.ts readablePattern).
+ */
+export const LIVE_TESTER_IDS: [ReturnType<typeof literal>, string] = [
+  literal(`ARRAY(SELECT DISTINCT i.user_id FROM pattern_invitations i WHERE i.pattern_id = "Pattern"."id" AND ${liveAndAcceptedSql('i')})`),
+  'liveTesterIds',
+]
+
+/** The tester ids a pattern was read with (LIVE_TESTER_IDS), or undefined if it was read without. */
+export function liveTesterIdsOf(pattern: { get(key: string): unknown }): string[] | undefined {
+  const ids = pattern.get('liveTesterIds')
+  return Array.isArray(ids) ? (ids as string[]) : undefined
 }
 
 /**
@@ -58,7 +78,7 @@ export async function testedPatternsShowing(userId: string, uploadId: string): P
   const rows = await database().query<{ id: string; owner_id: string | null }>(
     `SELECT DISTINCT p.id, p.owner_id FROM patterns p
        JOIN pattern_invitations i ON i.pattern_id = p.id
-      WHERE i.user_id = :userId AND i.accepted_at IS NOT NULL AND i.withdrawn_at IS NULL AND i.expires_at > now()
+      WHERE i.user_id = :userId AND ${liveAndAcceptedSql('i')}
         AND p.state = 'testing' AND strpos(p.design::text, :uploadId) > 0`,
     { replacements: { userId, uploadId }, type: QueryTypes.SELECT },
   )
