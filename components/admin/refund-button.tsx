@@ -8,19 +8,22 @@ import { ApiError, apiFetch } from '@/lib/api-client'
  * "Refund…" on the payment log's orders: asks first, naming the amount and the buyer, then asks
  * the payment provider to refund the order in full (`POST /api/admin/orders/:id/refund`). The
  * licence is revoked when the provider's refund event arrives, so the row says the refund is on
- * its way until then.
+ * its way until then. Once asked, the button is not offered again, not even while the page refreshes.
  */
 export function RefundButton({ orderId, amount, buyer, pattern }: { orderId: string; amount: string; buyer: string; pattern: string }) {
   const router = useRouter()
   const [confirming, setConfirming] = useState(false)
   const [busy, setBusy] = useState(false)
   const [message, setMessage] = useState<string | null>(null)
+  // Set once the provider took the request: the refreshed row says so, but until it arrives this must not offer "Refund…" again.
+  const [asked, setAsked] = useState(false)
 
   async function refund() {
     setBusy(true)
     setMessage(null)
     try {
       await apiFetch(`/api/admin/orders/${orderId}/refund`, { method: 'POST' })
+      setAsked(true)
       setConfirming(false)
       router.refresh()
     } catch (error) {
@@ -31,6 +34,7 @@ export function RefundButton({ orderId, amount, buyer, pattern }: { orderId: str
   }
 
   const quiet = 'rounded border border-stone-300 px-3 py-1 text-sm hover:bg-linen-100 disabled:opacity-50'
+  if (asked) return <span className="text-stone-600">Refund asked; waiting for the provider</span>
   return (
     <div className="space-y-2">
       {confirming ? (
