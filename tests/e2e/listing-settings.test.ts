@@ -81,7 +81,8 @@ describe('the designer’s listing settings', () => {
     // A visitor, not signed in: the card and the pattern's page show the uploaded cover and the notes.
     const visitor = await (await browser.newContext()).newPage()
     await visitor.goto(`${baseUrl()}/shop?q=${encodeURIComponent(PATTERN_NAME)}`)
-    const card = visitor.getByTestId('listing-card').filter({ hasText: PATTERN_NAME })
+    // The card linking to this pattern (other tests list patterns whose names start the same way).
+    const card = visitor.getByTestId('listing-card').filter({ has: visitor.locator(`a[href="/shop/${pattern.id}"]`) })
     await card.waitFor()
     await expect(card.getByTestId('uploaded-cover').getAttribute('src')).resolves.toBe(`/api/shop/covers/${coverUploadId}`)
     await expect.poll(() => card.getByTestId('uploaded-cover').evaluate((image) => (image as HTMLImageElement).naturalWidth)).toBeGreaterThan(0)
