@@ -4,7 +4,8 @@
  *
  * On loopback, in a throwaway PostgreSQL cluster and object store (as `npm run bench` does): the
  * database is migrated and seeded with the demo data, the app is built (`next build`; set
- * LOAD_SKIP_BUILD=1 to reuse a build of this checkout) and started with `next start`, one process.
+ * LOAD_SKIP_BUILD=1 to reuse a build of this checkout) and started with `next start` through
+ * scripts/serve.ts, one process unless LOAD_WEB_PROCESSES says more.
  * Then autocannon, in this process, asks each target at 50 and then 200 connections for 20 s
  * (LOAD_SECONDS), each run also capped at MAX_REQUESTS_PER_RUN requests, the whole script at
  * DEADLINE_MS. LOAD_ONLY=a,b measures only the named targets beside the bare handler. The targets:
@@ -47,6 +48,16 @@ import { freePort, run, startProcess, stopProcess, waitForHttp } from './process
 const CONNECTIONS = process.env.LOAD_CONNECTIONS ? process.env.LOAD_CONNECTIONS.split(',').map(Number) : [50, 200]
 if (CONNECTIONS.some((count) => !Number.isInteger(count) || count < 1)) {
   console.error(`load: LOAD_CONNECTIONS must list whole numbers of connections, e.g. 50,200 (got ${process.env.LOAD_CONNECTIONS})`)
+  process.exit(2)
+}
+/**
+ * The app's web processes (scripts/serve.ts), LOAD_WEB_PROCESSES: by default one, the figures the
+ * README keeps; on this machine's two cores, shared with PostgreSQL and autocannon, two raised
+ * every target's requests/s but not its share of the bare handler's (README, "Load test").
+ */
+const WEB_PROCESSES = Number(process.env.LOAD_WEB_PROCESSES ?? 1)
+if (!Number.isInteger(WEB_PROCESSES) || WEB_PROCESSES < 1) {
+  console.error(`load: LOAD_WEB_PROCESSES must be a whole number of processes (got ${process.env.LOAD_WEB_PROCESSES})`)
   process.exit(2)
 }
 const SECONDS = Number(process.env.LOAD_SECONDS ?? 20)
@@ -206,7 +217,7 @@ try {
   for (const args of [['tsx', 'scripts/migrate.ts', 'up'], ['tsx', 'scripts/seed-demo.ts'], ...build]) {
     if ((await run('npx', args, env)) !== 0) throw new Error(`${args.join(' ')} failed`)
   }
-  app = startProcess('npx', ['next', 'start', '--hostname', '127.0.0.1', '--port', String(port)], env, { quiet: true })
+  app = startProcess('npx', ['tsx', 'scripts/serve.ts', '--hostname', '127.0.0.1', '--port', String(port)], { ...env, WEB_PROCESSES: String(WEB_PROCESSES) }, { quiet: true })
   await waitForHttp(`${base}/api/health`)
 
   // This process reads and writes the same database as the app, to find the demo's pattern and
@@ -330,7 +341,7 @@ try {
     targets.splice(0, targets.length, ...targets.filter((target) => target.kind === 'bare' || only.includes(target.name)))
   }
   const loadAverage = () => os.loadavg().map((value) => value.toFixed(1)).join(' ')
-  console.log(`\nload: ${base}, next start (one process), ${os.cpus().length} cores; each run ${SECONDS} s, at most ${MAX_REQUESTS_PER_RUN} requests`)
+  console.log(`\nload: ${base}, next start in ${WEB_PROCESSES} web process${WEB_PROCESSES === 1 ? '' : 'es'} (scripts/serve.ts), ${os.cpus().length} cores; each run ${SECONDS} s, at most ${MAX_REQUESTS_PER_RUN} requests`)
   // The machine's load before measuring: other work on its cores lowers every figure below.
   console.log(`  load average (1, 5, 15 min) before measuring: ${loadAverage()}`)
   for (const target of targets) console.log(`  ${target.name.padEnd(12)} ${target.label}`)
