@@ -11,6 +11,8 @@
  * DEADLINE_MS. LOAD_ONLY=a,b measures only the named targets beside the bare handler. The targets:
  *   - bare          GET /api/health/bare, a constant: the framework's own cost per request;
  *   - shop list     GET /api/shop/patterns, the shop's first page, no session;
+ *   - one statement GET /api/health, whose only work is `SELECT 1` through the app's Sequelize: what
+ *                   one round trip to PostgreSQL costs (a probe, held to no errors only);
  *   - shop page     GET /shop, the same page as HTML (a page: held to no errors only);
  *   - pattern read  GET /api/patterns/:id as its designer (the demo's Hollyberry Wreath);
  *   - plan          GET /api/sewing-room/projects/:id, the sewing plan of a quilter's project
@@ -82,9 +84,10 @@ const READ_SHARE_GOAL = 0.4
 /**
  * 'read': an API read issue 17 names (the shop list, a pattern, a plan), held to the read goals;
  * 'page': a server-rendered page, measured beside them and held to no errors (each is rendered
- * anew by React: a page's CSP nonce is its own); 'write': held to no errors.
+ * anew by React: a page's CSP nonce is its own); 'write': held to no errors; 'probe': a yardstick
+ * between the bare handler and the reads, held to no errors.
  */
-type Kind = 'bare' | 'read' | 'page' | 'write'
+type Kind = 'bare' | 'probe' | 'read' | 'page' | 'write'
 interface Target {
   readonly name: string
   readonly kind: Kind
@@ -267,6 +270,7 @@ try {
   const targets: Target[] = [
     { name: 'bare', kind: 'bare', label: 'GET /api/health/bare', options: { url: `${base}/api/health/bare` } },
     { name: 'shop list', kind: 'read', label: 'GET /api/shop/patterns', options: { url: `${base}/api/shop/patterns` } },
+    { name: 'one statement', kind: 'probe', label: 'GET /api/health (SELECT 1: one round trip to PostgreSQL)', options: { url: `${base}/api/health` } },
     { name: 'shop page', kind: 'page', label: 'GET /shop, the shop list as HTML', options: { url: `${base}/shop` } },
     { name: 'pattern read', kind: 'read', label: `GET /api/patterns/:id (Hollyberry Wreath, as its designer)`, options: { url: `${base}/api/patterns/${pattern.id}`, headers: { cookie: designerCookie } } },
     {
@@ -344,7 +348,7 @@ try {
   console.log(`\nload: ${base}, next start in ${WEB_PROCESSES} web process${WEB_PROCESSES === 1 ? '' : 'es'} (scripts/serve.ts), ${os.cpus().length} cores; each run ${SECONDS} s, at most ${MAX_REQUESTS_PER_RUN} requests`)
   // The machine's load before measuring: other work on its cores lowers every figure below.
   console.log(`  load average (1, 5, 15 min) before measuring: ${loadAverage()}`)
-  for (const target of targets) console.log(`  ${target.name.padEnd(12)} ${target.label}`)
+  for (const target of targets) console.log(`  ${target.name.padEnd(13)} ${target.label}`)
   // Warm up: the first requests to a route load its bundle, and V8 compiles what runs hot.
   for (const target of targets) {
     const warm = await measure(base, target, 10, WARM_UP_SECONDS)
