@@ -58,7 +58,9 @@ async function applyCheckoutCompleted(session: Stripe.Checkout.Session, transact
     await revoke(order, transaction)
     return `licence ${licence.number} granted and revoked at once: the payment was already refunded`
   }
-  const [buyer, pattern] = await Promise.all([User.findByPk(order.buyerId, { transaction }), Pattern.findByPk(order.patternId, { transaction, attributes: ['id', 'name', 'ownerId'] })])
+  // One after another: a transaction is one connection, which runs one statement at a time.
+  const buyer = await User.findByPk(order.buyerId, { transaction })
+  const pattern = await Pattern.findByPk(order.patternId, { transaction, attributes: ['id', 'name', 'ownerId'] })
   const amount = formatPrice(order.amountCents, order.currency)
   if (buyer && pattern) {
     await queueMail(

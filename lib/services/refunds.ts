@@ -113,11 +113,10 @@ export async function refundOrder(actor: Actor, orderId: string): Promise<Refund
       throw new ConflictError('A refund of this order was asked for already; the licence is revoked when the payment provider confirms it.', { refundRequestedAt: order.refundRequestedAt.toISOString() })
     }
     if (order.state !== 'paid' || !order.paymentIntentId) throw new ConflictError('This order was never paid: there is nothing to refund.')
-    const [admin, buyer, pattern] = await Promise.all([
-      User.findByPk(actor.id, { transaction }),
-      order.buyerId ? User.findByPk(order.buyerId, { attributes: ['displayName', 'email'], transaction }) : null,
-      Pattern.findByPk(order.patternId, { attributes: ['name'], transaction }),
-    ])
+    // One after another: a transaction is one connection, which runs one statement at a time.
+    const admin = await User.findByPk(actor.id, { transaction })
+    const buyer = order.buyerId ? await User.findByPk(order.buyerId, { attributes: ['displayName', 'email'], transaction }) : null
+    const pattern = await Pattern.findByPk(order.patternId, { attributes: ['name'], transaction })
     if (!admin) throw new NotFoundError('Your account no longer exists.')
     try {
       await paymentProvider().refunds.create(

@@ -121,10 +121,9 @@ function roleIn(actor: NonNullable<Actor>, facts: PatternFacts): ReportAuthorRol
 async function toViews(reports: readonly Report[], pattern: Pattern, transaction?: Transaction): Promise<ReportView[]> {
   if (reports.length === 0) return []
   const ids = reports.map((report) => report.id)
-  const [messages, photos] = await Promise.all([
-    ReportMessage.findAll({ where: { reportId: { [Op.in]: ids } }, order: [['createdAt', 'ASC'], ['id', 'ASC']], transaction }),
-    ReportPhoto.findAll({ where: { reportId: { [Op.in]: ids } }, order: [['position', 'ASC']], transaction }),
-  ])
+  // One after another: inside a transaction both would share its one connection.
+  const messages = await ReportMessage.findAll({ where: { reportId: { [Op.in]: ids } }, order: [['createdAt', 'ASC'], ['id', 'ASC']], transaction })
+  const photos = await ReportPhoto.findAll({ where: { reportId: { [Op.in]: ids } }, order: [['position', 'ASC']], transaction })
   const personIds = [...new Set([...reports.map((r) => r.testerId), ...messages.map((m) => m.authorId)].filter((id): id is string => id !== null))]
   const people = new Map((await User.findAll({ where: { id: { [Op.in]: personIds } }, attributes: ['id', 'displayName'], transaction })).map((u) => [u.id, u.displayName]))
   const person = (id: string | null) => (id && people.has(id) ? { id, displayName: people.get(id)! } : null)
