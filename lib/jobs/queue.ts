@@ -1,11 +1,11 @@
 import 'server-only'
 import type PgBoss from 'pg-boss'
 import type { Transaction } from 'sequelize'
-import { senderBoss, sendInTransaction } from '@/lib/mail/queue'
+import { senderFor, sendInTransaction } from './boss'
 
 /**
  * The app's background jobs beside mail, on the same durable queue (pg-boss in the app's
- * PostgreSQL, lib/mail/queue.ts). Each kind of job has its queue and retry policy here; workers
+ * PostgreSQL, lib/jobs/boss.ts). Each kind of job has its queue and retry policy here; workers
  * are in lib/jobs/worker.ts.
  */
 
@@ -48,23 +48,12 @@ export async function ensureBookletQueue(boss: PgBoss): Promise<void> {
   await boss.updateQueue(BOOKLETS_QUEUE, BOOKLETS_QUEUE_OPTIONS)
 }
 
-/** The payment queue is made once per sending instance (a closed sender is replaced by a new one). */
-const readyFor = new WeakMap<Promise<PgBoss>, Promise<PgBoss>>()
-
-/** The mail queue's sending instance, with the job queues made on it. */
+/** The sending instance, with the job queues made on it. */
 function jobSender(): Promise<PgBoss> {
-  const sender = senderBoss()
-  let ready = readyFor.get(sender)
-  if (!ready) {
-    ready = sender.then(async (boss) => {
-      await ensurePaymentQueue(boss)
-      await ensureBookletQueue(boss)
-      return boss
-    })
-    ready.catch(() => readyFor.delete(sender))
-    readyFor.set(sender, ready)
-  }
-  return ready
+  return senderFor('jobs', async (boss) => {
+    await ensurePaymentQueue(boss)
+    await ensureBookletQueue(boss)
+  })
 }
 
 /**

@@ -3,7 +3,8 @@ import type { Transaction } from 'sequelize'
 import { database } from '@/lib/db'
 import { OutgoingMail } from '@/models'
 import { MAIL_KINDS, MAIL_QUEUE, type MailData, type MailJob, type MailKind } from './kinds'
-import { senderBoss, sendInTransaction } from './queue'
+import { senderFor, sendInTransaction } from '@/lib/jobs/boss'
+import { ensureMailQueue } from './queue'
 
 /**
  * Queues a message: a row in the mail log (`outgoing_mails`) and a job on the durable queue, both
@@ -21,7 +22,7 @@ export async function queueMail<K extends MailKind>(
   if (!(MAIL_KINDS as readonly string[]).includes(message.kind)) throw new Error(`queueMail: unknown kind ${message.kind}`)
   // Binds this bundle's copy of the models to the shared connection (see lib/db.ts).
   const sequelize = database()
-  const boss = await senderBoss()
+  const boss = await senderFor('mail', (sender) => ensureMailQueue(sender))
   const write = async (transaction: Transaction) => {
     const row = await OutgoingMail.create({ toAddress: message.to, kind: message.kind, userId: message.userId ?? null }, { transaction })
     const job: MailJob<K> = { mailId: row.id, to: message.to, kind: message.kind, data: message.data }

@@ -8,7 +8,7 @@ import { GET as listRequests } from '@/app/api/admin/designer-requests/route'
 import { GET as listMail } from '@/app/api/admin/mail/route'
 import { PATCH as updateUser } from '@/app/api/admin/users/[id]/route'
 import { POST as signIn } from '@/app/api/auth/sign-in/route'
-import { closeMailQueue } from '@/lib/mail/queue'
+import { closeQueueSender } from '@/lib/jobs/boss'
 import type { Role } from '@/lib/roles'
 import { AdminAuditEntry, Order, OutgoingMail, Session } from '@/models'
 import { emptyAdminLogs } from '../support/audit-log'
@@ -21,7 +21,7 @@ beforeEach(async () => {
   await emptyAdminLogs()
 })
 afterAll(async () => {
-  await closeMailQueue()
+  await closeQueueSender()
   await closeDatabase()
 })
 

@@ -3,7 +3,7 @@ import { afterAll, afterEach, beforeEach, describe, expect, it, vi } from 'vites
 import { closeDatabase, database } from '@/lib/db'
 import { createMigrator } from '@/lib/migrator'
 import { queueMail } from '@/lib/mail/outbox'
-import { closeMailQueue, QUEUE_SCHEMA } from '@/lib/mail/queue'
+import { closeQueueSender, QUEUE_SCHEMA } from '@/lib/jobs/boss'
 import { startMailWorker, stopMailWorker } from '@/lib/mail/worker'
 import { OutgoingMail } from '@/models'
 import { freePort } from '@/scripts/processes'
@@ -60,7 +60,7 @@ beforeEach(async () => {
 })
 afterEach(async () => {
   await stopMailWorker()
-  await closeMailQueue()
+  await closeQueueSender()
 })
 afterAll(closeDatabase)
 
@@ -104,7 +104,7 @@ describe('queueMail and the mail worker', () => {
     await queueMail({ to: 'later@example.com', kind: 'password-reset', data: { displayName: 'Later', resetUrl: 'http://127.0.0.1:3000/reset-password?token=r' } })
     expect((await rowTo('later@example.com')).state).toBe('queued')
     // The "app" ends: its queue connection and database pool close before anything was sent.
-    await closeMailQueue()
+    await closeQueueSender()
     await closeDatabase()
     expect(await caughtMails()).toEqual([])
 

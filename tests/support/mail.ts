@@ -2,7 +2,7 @@ import { QueryTypes } from 'sequelize'
 import { afterAll, beforeAll } from 'vitest'
 import { database } from '@/lib/db'
 import type { MailKind } from '@/lib/mail/kinds'
-import { closeMailQueue, QUEUE_SCHEMA } from '@/lib/mail/queue'
+import { closeQueueSender, QUEUE_SCHEMA } from '@/lib/jobs/boss'
 import { KIND_HEADER, startMailWorker, stopMailWorker } from '@/lib/mail/worker'
 
 /**
@@ -118,7 +118,7 @@ export function useMailWorker(): void {
   })
   afterAll(async () => {
     await stopMailWorker()
-    await closeMailQueue()
+    await closeQueueSender()
   })
 }
 

@@ -3,7 +3,7 @@ import { afterAll, beforeAll } from 'vitest'
 import Stripe from 'stripe'
 import { database } from '@/lib/db'
 import { paymentSettings } from '@/lib/env'
-import { closeMailQueue } from '@/lib/mail/queue'
+import { closeQueueSender } from '@/lib/jobs/boss'
 import { startPaymentWorker, stopPaymentWorker } from '@/lib/jobs/worker'
 import { POST as webhook } from '@/app/api/webhooks/payments/route'
 
@@ -102,7 +102,7 @@ export function usePaymentFake(): void {
   })
   afterAll(async () => {
     await stopPaymentWorker()
-    await closeMailQueue()
+    await closeQueueSender()
     await new Promise((resolve) => server?.close(resolve))
   })
 }
