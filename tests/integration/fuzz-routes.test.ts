@@ -14,19 +14,15 @@
 import fs from 'node:fs'
 import path from 'node:path'
 import { fileURLToPath } from 'node:url'
-import { randomUUID } from 'node:crypto'
 import fc from 'fast-check'
 import type { z } from 'zod'
 import { afterAll, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest'
-import { POST as fileReportRoute } from '@/app/api/patterns/[id]/reports/route'
-import { POST as startProjectRoute } from '@/app/api/sewing-room/projects/route'
 import { buildArrangement } from '@/geometry/arrangement'
 import { planDesign } from '@/geometry/plan'
 import { database } from '@/lib/db'
 import { BODY_LIMITS, MAX_JSON_DEPTH } from '@/lib/http'
 import { MAX_SEAMS } from '@/lib/limits'
 import { MAX_UPLOAD_BYTES } from '@/lib/images'
-import type { Role } from '@/lib/roles'
 import {
   accountDeletionSchema, displayNameChangeSchema, emailChangeSchema, passwordChangeSchema, passwordResetConfirmSchema,
   passwordResetRequestSchema, signInSchema, signUpSchema, verifyEmailSchema,
@@ -41,10 +37,10 @@ import { createReportSchema, reportMessageSchema, updateReportSchema } from '@/l
 import { newProjectSchema, stepUpdateSchema } from '@/lib/schemas/sewing-room'
 import { checkoutSchema } from '@/lib/schemas/shop'
 import { listingVisibilitySchema } from '@/lib/schemas/shop-listings'
-import { Invitation, Licence, Order } from '@/models'
 import { DEMO_PATTERNS } from '@/scripts/demo-data'
+import { buildWorld, type World } from '../support/authorization-world'
 import { closeDatabase, freshDatabase } from '../support/database'
-import { createPatternRow, createUser, sessionCookieFor, TEST_PASSWORD } from '../support/factories'
+import { TEST_PASSWORD } from '../support/factories'
 import { badBodies } from '../support/fuzz'
 import { call } from '../support/requests'
 
@@ -63,23 +59,6 @@ const RUNS = 25
 
 type Handler = (request: Request, context: { params: Promise<Record<string, string>> }) => Promise<Response>
 type Who = 'stranger' | 'quilter' | 'designer' | 'tester' | 'buyer' | 'admin'
-
-/** The people and rows the routes act on, made once: the fuzzing must leave them as they are. */
-interface World {
-  readonly cookies: Record<Exclude<Who, 'stranger'>, string>
-  /** The designer's pattern in testing, with the tester invited. */
-  readonly patternId: string
-  /** A published pattern (the shop's, the buyer's licence's). */
-  readonly listedId: string
-  readonly reportId: string
-  readonly licenceId: string
-  /** The buyer's paid order of the listed pattern. */
-  readonly orderId: string
-  /** The buyer's sewing project of the listed pattern. */
-  readonly projectId: string
-  /** A quilter waiting for a designer account, for the admin's routes. */
-  readonly personId: string
-}
 
 interface JsonEntry {
   readonly body: 'json'
@@ -235,48 +214,21 @@ function expectedStatus(schema: z.ZodType, text: string, limit: number): number 
   return schema.safeParse(json).success ? null : 422
 }
 
+/**
+ * The people and rows the routes act on (tests/support/authorization-world.ts, as the authorization
+ * matrix uses them), made once: the fuzzing must leave them as they are. "designer" here is the
+ * designer who owns the patterns (the matrix's "owner").
+ */
 let world: World
+/** One session per person for the whole file. */
+let cookies: Record<Exclude<Who, 'stranger'>, string>
 let routes: Awaited<ReturnType<typeof apiRoutes>>
 
 beforeAll(async () => {
   await freshDatabase()
-  const person = async (roles: Role[]) => {
-    const user = await createUser({ roles })
-    return { user, cookie: await sessionCookieFor(user) }
-  }
-  const designer = await person(['designer', 'quilter'])
-  const quilter = await person(['quilter'])
-  const tester = await person(['quilter'])
-  const buyer = await person(['quilter'])
-  const admin = await person(['admin'])
-  const waiting = await createUser({ roles: ['quilter'] })
-  await waiting.update({ designerRequestedAt: new Date() })
-  const pattern = await createPatternRow(designer.user, { name: 'Lantern Medallion', state: 'testing', design: LANTERN })
-  const listed = await createPatternRow(designer.user, { name: 'Listed ring', state: 'published', design: LANTERN })
-  await listed.update({ priceCents: 1200, currency: 'GBP' })
-  await Invitation.create({
-    patternId: pattern.id, email: tester.user.email, invitedById: designer.user.id, userId: tester.user.id,
-    acceptedAt: new Date(), withdrawnAt: null, expiresAt: new Date(Date.now() + 7 * 24 * 3600 * 1000),
-  })
-  const report = await call(fileReportRoute, {
-    method: 'POST', cookie: tester.cookie, params: { id: pattern.id },
-    body: { kind: 'cutting', severity: 'minor', text: 'The rough-cut piece is short.', place: { page: 1 } },
-  })
-  expect(report.status).toBe(201)
-  const order = await Order.create({ id: randomUUID(), buyerId: buyer.user.id, patternId: listed.id, amountCents: 1200, currency: 'GBP', checkoutSessionId: `cs_test_${randomUUID()}`, state: 'paid' })
-  const licence = await Licence.create({ userId: buyer.user.id, patternId: listed.id, orderId: order.id })
-  const project = await call(startProjectRoute, { method: 'POST', cookie: buyer.cookie, body: { licenceId: licence.id, colorway: 0, diameterIn: 18, paper: 'letter' } })
-  expect(project.status).toBe(201)
-  world = {
-    cookies: { designer: designer.cookie, quilter: quilter.cookie, tester: tester.cookie, buyer: buyer.cookie, admin: admin.cookie },
-    patternId: pattern.id,
-    listedId: listed.id,
-    reportId: (report.json!.report as { id: string }).id,
-    licenceId: licence.id,
-    orderId: order.id,
-    projectId: (project.json!.project as { id: string }).id,
-    personId: waiting.id,
-  }
+  world = await buildWorld()
+  const roleOf = { designer: 'owner', quilter: 'quilter', tester: 'tester', buyer: 'buyer', admin: 'admin' } as const
+  cookies = Object.fromEntries(await Promise.all(Object.entries(roleOf).map(async ([who, role]) => [who, (await world.cookie(role))!]))) as typeof cookies
   routes = await apiRoutes()
 }, 120_000)
 afterAll(closeDatabase)
@@ -292,7 +244,7 @@ async function send(handler: Handler, method: string, entry: Entry, text: string
   return call(handler, {
     method,
     path: `/x${query}`,
-    cookie: entry.who === 'stranger' ? undefined : world.cookies[entry.who],
+    cookie: entry.who === 'stranger' ? undefined : cookies[entry.who],
     params,
     ...(typeof body === 'string' ? { rawBody: body, headers: { 'content-type': 'application/json' } } : { stream: body, headers }),
   })
@@ -370,7 +322,7 @@ describe('a body of nested brackets', () => {
     // 1,000,000 levels, 2 MB: JSON.parse alone took about 10 s of the web process for this.
     const text = `{"revision":1,"design":${'['.repeat(1_000_000)}${']'.repeat(1_000_000)}}`
     const before = await checksums()
-    const response = await call(handler, { method: 'PATCH', cookie: world.cookies.designer, params: { id: world.patternId }, rawBody: text })
+    const response = await call(handler, { method: 'PATCH', cookie: cookies.designer, params: { id: world.patternId }, rawBody: text })
     expect(response.status).toBe(400)
     expect(response.json?.error?.message).toContain(`deeper than ${MAX_JSON_DEPTH} levels`)
     expect(await checksums()).toEqual(before)
@@ -383,7 +335,7 @@ describe('a design over the seam limit', () => {
     const seams = Array.from({ length: MAX_SEAMS + 1 }, (_, i) => ({ id: `s${i}`, from: [1 + (i % 7), 0], to: [0, 2 + (i % 5)] }))
     const before = await checksums()
     const response = await call(handler, {
-      method: 'PATCH', cookie: world.cookies.designer, params: { id: world.patternId },
+      method: 'PATCH', cookie: cookies.designer, params: { id: world.patternId },
       body: { revision: 1, design: { ...LANTERN, leaves: [], seams } },
     })
     expect(response.status).toBe(422)
