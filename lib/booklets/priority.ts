@@ -73,7 +73,7 @@ export function lowerThisThread(niceness: number = WORKER_NICENESS): void {
  * Answers whether the group was lowered; false where there is no autogroup (not Linux, autogroup
  * off, some containers), where the threads' niceness is all there is.
  *
- * @example lowerAutogroup(19) // true on Linux with autogroup on
+ * @example lowerAutogroup(19) // answers true on Linux with autogroup on, false where there is none
  */
 export function lowerAutogroup(niceness: number = WORKER_NICENESS): boolean {
   try {
