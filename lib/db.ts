@@ -2,6 +2,7 @@ import { ConnectionRefusedError, ConnectionTimedOutError, HostNotFoundError, Hos
 import pg from 'pg'
 import { initModels } from '@/models'
 import { serverEnv } from '@/lib/env'
+import { noteWritesOf } from '@/lib/row-changes'
 
 /**
  * The one connection to PostgreSQL. Created on first use and kept on globalThis so that the dev
@@ -108,7 +109,7 @@ export const pgWithErrorListeners: typeof pg = { ...pg, Client: ListenedClient }
 
 export function createSequelize(databaseUrl: string, options: { log?: boolean; readUrls?: readonly string[] } = {}): Sequelize {
   const readUrls = options.readUrls ?? []
-  return new Sequelize(databaseUrl, {
+  const sequelize = new Sequelize(databaseUrl, {
     dialect: 'postgres',
     // Handing Sequelize the module directly keeps it working when the app is bundled; its Client
     // listens for errors from the start (ListenedClient).
@@ -126,6 +127,9 @@ export function createSequelize(databaseUrl: string, options: { log?: boolean; r
         }
       : {}),
   })
+  // Writes through the models drop the answers this process kept of their rows (lib/row-changes.ts).
+  noteWritesOf(sequelize)
+  return sequelize
 }
 
 /** DATABASE_READ_URLS as a list. */

@@ -1,6 +1,7 @@
 import type { Adapter, DatabaseSession, DatabaseUser } from 'lucia'
 import { Op, QueryTypes } from 'sequelize'
 import { database } from '@/lib/db'
+import { KeptAnswers } from '@/lib/row-changes'
 import { Session } from '@/models'
 
 /** What lucia keeps of a user next to the session: enough to decide permissions without a query. */
@@ -38,33 +39,45 @@ interface SessionAndUserRow {
   disabled_at: Date | string | null
 }
 
+/**
+ * Sessions read lately, with their users, by session id: at most this many in a web process (about
+ * a kilobyte each). Every write to a session or a user through the models drops it here at once,
+ * and in other processes when the row change notice arrives.
+ */
+const keptSessions = new KeptAnswers<[DatabaseSession | null, DatabaseUser | null]>(50_000)
+
 /** Lucia's storage, over our own Sequelize models so the app has one connection pool. */
 export class SequelizeSessionAdapter implements Adapter {
   /**
-   * The one read every signed-in request makes: one plain statement, the session and the few user
-   * columns lucia keeps, without building model instances (`npm run load` measured the model path
-   * at about a third of a millisecond of the web process's time per request). A disabled account
-   * has no user, so its sessions are refused (lib/auth/session.ts).
+   * The one read every signed-in request makes: kept in this process until the session or its user
+   * changes (lib/row-changes.ts) or the session ends; read in one plain statement, the session and
+   * the few user columns lucia keeps, without building model instances (`npm run load` measured the
+   * model path at about a third of a millisecond of the web process's time per request). A disabled
+   * account has no user, so its sessions are refused (lib/auth/session.ts). An unknown id is not
+   * kept (forged cookies must not fill the memory).
    */
   async getSessionAndUser(sessionId: string): Promise<[DatabaseSession | null, DatabaseUser | null]> {
-    const [row] = await database().query<SessionAndUserRow>(
-      `SELECT s.id, s.user_id, s.expires_at, s.user_agent, s.last_seen_at,
-              u.email, u.display_name, u.roles, u.email_verified_at, u.disabled_at
-         FROM sessions s JOIN users u ON u.id = s.user_id
-        WHERE s.id = :sessionId`,
-      { replacements: { sessionId }, type: QueryTypes.SELECT },
-    )
-    if (!row) return [null, null]
-    const attributes: SessionAttributes = { userAgent: row.user_agent, lastSeenAt: new Date(row.last_seen_at) }
-    const session: DatabaseSession = { id: row.id, userId: row.user_id, expiresAt: new Date(row.expires_at), attributes }
-    if (row.disabled_at !== null) return [session, null]
-    const user: SessionUserAttributes = {
-      email: row.email,
-      displayName: row.display_name,
-      roles: row.roles,
-      emailVerifiedAt: row.email_verified_at === null ? null : new Date(row.email_verified_at),
-    }
-    return [session, { id: row.user_id, attributes: user }]
+    return keptSessions.answer(sessionId, async () => {
+      const [row] = await database().query<SessionAndUserRow>(
+        `SELECT s.id, s.user_id, s.expires_at, s.user_agent, s.last_seen_at,
+                u.email, u.display_name, u.roles, u.email_verified_at, u.disabled_at
+           FROM sessions s JOIN users u ON u.id = s.user_id
+          WHERE s.id = :sessionId`,
+        { replacements: { sessionId }, type: QueryTypes.SELECT },
+      )
+      if (!row) return { value: [null, null], tags: null }
+      const attributes: SessionAttributes = { userAgent: row.user_agent, lastSeenAt: new Date(row.last_seen_at) }
+      const session: DatabaseSession = { id: row.id, userId: row.user_id, expiresAt: new Date(row.expires_at), attributes }
+      const tags = [`sessions:${row.id}`, `users:${row.user_id}`]
+      if (row.disabled_at !== null) return { value: [session, null], tags, until: session.expiresAt }
+      const user: SessionUserAttributes = {
+        email: row.email,
+        displayName: row.display_name,
+        roles: row.roles,
+        emailVerifiedAt: row.email_verified_at === null ? null : new Date(row.email_verified_at),
+      }
+      return { value: [session, { id: row.user_id, attributes: user }], tags, until: session.expiresAt }
+    })
   }
 
   async getUserSessions(userId: string): Promise<DatabaseSession[]> {

@@ -5,6 +5,7 @@ import { database } from '@/lib/db'
 import { ConflictError, NotFoundError, StoredDesignError, UnauthenticatedError, ValidationError } from '@/lib/errors'
 import { emptyDesign } from '@/lib/new-design'
 import { readinessProblems } from '@/lib/pattern-readiness'
+import { KeptAnswers } from '@/lib/row-changes'
 import { parseDesign, type DesignFile } from '@/lib/schemas/design'
 import {
   PATTERN_STATE_CHANGES,
@@ -16,7 +17,7 @@ import {
   type UpdatePatternInput,
 } from '@/lib/schemas/pattern'
 import { Pattern, PatternRevision, PatternStateChange, User } from '@/models'
-import { LIVE_TESTER_IDS, liveTesterIdsOf, testerIdsOf } from './testers'
+import { LIVE_TESTER_IDS, liveTesterIdsOf, testerIdsOf, testersLiveUntil } from './testers'
 
 // The answers' shapes are the schemas the browser parses them with (lib/schemas/pattern.ts).
 export type { PatternSummary, PatternView }
@@ -79,13 +80,8 @@ function storedDesign(pattern: Pattern): DesignFile {
   return parsed.file
 }
 
-/**
- * A pattern as the API answers it, design included, from a row already loaded and authorized (by
- * `readablePattern`), so that a read loads the pattern once.
- *
- * @example Response.json({ pattern: toView((await readablePattern(user, id)).pattern) })
- */
-export function toView(pattern: Pattern): PatternView {
+/** A pattern as the API answers it, design included, from a row already loaded and authorized. */
+function toView(pattern: Pattern): PatternView {
   return { ...toSummary(pattern), ownerId: pattern.ownerId, design: storedDesign(pattern) }
 }
 
@@ -150,6 +146,32 @@ export async function readablePattern(actor: Actor, id: string, transaction?: Tr
   const facts = await patternFacts(pattern, transaction)
   authorize(actor, 'read-pattern', facts)
   return { pattern, facts }
+}
+
+/**
+ * Pattern answers (`GET /api/patterns/:id`'s JSON) read lately, with the facts that decide who may
+ * read them, by pattern: kept until the pattern or one of its invitations changes or a tester's
+ * invitation expires (lib/row-changes.ts); at most KEPT_DESIGN_CHARACTERS of JSON in all.
+ */
+const keptPatternAnswers = new KeptAnswers<{ readonly facts: PatternFacts; readonly json: string }>(KEPT_DESIGN_CHARACTERS, (answer) => answer.json.length)
+
+/**
+ * `GET /api/patterns/:id`'s answer as JSON text, for an actor who may read the pattern (else 404, as
+ * for a missing one), from what this process kept when it can (a pattern read asks PostgreSQL
+ * nothing then: `npm run load`, pattern read).
+ *
+ * @example new Response(await patternAnswer(user, id), { headers: { 'content-type': 'application/json' } })
+ */
+export async function patternAnswer(actor: Actor, id: string): Promise<string> {
+  if (!actor) throw new UnauthenticatedError()
+  database()
+  const { facts, json } = await keptPatternAnswers.answer(id, async () => {
+    const pattern = await findPattern(id)
+    const [facts, until] = await Promise.all([patternFacts(pattern), testersLiveUntil(id)])
+    return { value: { facts, json: JSON.stringify({ pattern: toView(pattern) }) }, tags: [`patterns:${id}`], until }
+  })
+  authorize(actor, 'read-pattern', facts)
+  return json
 }
 
 /**

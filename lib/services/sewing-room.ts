@@ -8,6 +8,7 @@ import { database } from '@/lib/db'
 import { ConflictError, NotFoundError, StoredDesignError, ValidationError } from '@/lib/errors'
 import { MAX_SEWING_PROJECTS_PER_PERSON } from '@/lib/limits'
 import { countSewingProjectStart, countStepChange } from '@/lib/rate-limits'
+import { KeptAnswers, type ChangeTag } from '@/lib/row-changes'
 import { parseDesign } from '@/lib/schemas/design'
 import type { NewProjectInput, ProjectDetail, ProjectStep, ProjectSummary, SewingPicture, StepProgress, StepUpdateInput } from '@/lib/schemas/sewing-room'
 import { checklistOfModel, sewingModel, type Checklist } from '@/lib/sewing-room/checklist'
@@ -279,7 +280,7 @@ export async function startProject(actor: Actor, input: NewProjectInput): Promis
 }
 
 /** `GET /api/sewing-room/projects/:id`: the project, its groups with progress, every step with its own, the next step and the picture. */
-export async function projectDetail(loaded: LoadedProject): Promise<ProjectDetail> {
+async function projectDetail(loaded: LoadedProject): Promise<ProjectDetail> {
   const { project, pattern, designer } = loaded
   const entry = await workedFor(project, pattern)
   entry.picture ??= sewingPicture(entry.model)
@@ -301,6 +302,39 @@ export async function projectDetail(loaded: LoadedProject): Promise<ProjectDetai
     nextStepId: steps.find((step) => !step.done)?.id ?? null,
     picture: entry.picture,
   }
+}
+
+/**
+ * Sewing plans (`GET /api/sewing-room/projects/:id`'s JSON, about 60 kB for the demo wreath) read
+ * lately, with who may read them, by project: kept until the project, a tick, its pattern, the
+ * designer's name or its grant changes, or the invitation expires (lib/row-changes.ts).
+ */
+const keptPlans = new KeptAnswers<{ readonly ownerId: string; readonly facts: SewingProjectFacts; readonly json: string }>(
+  32 * 1024 * 1024,
+  (plan) => plan.json.length,
+)
+
+/**
+ * `GET /api/sewing-room/projects/:id`'s answer as JSON text, for the project's owner while they hold
+ * its grant (else 404), from what this process kept when it can (`npm run load`, plan).
+ *
+ * @example new Response(await projectAnswer(user, id), { headers: { 'content-type': 'application/json' } })
+ */
+export async function projectAnswer(actor: Actor, projectId: string): Promise<string> {
+  authorize(actor, 'sewing-room:list')
+  const plan = await keptPlans.answer(projectId, async () => {
+    const loaded = await loadProject(actor, projectId, 'sewing-room:read')
+    const { project, pattern, facts } = loaded
+    const tags: ChangeTag[] = [`sewing_projects:${project.id}`, `patterns:${pattern.id}`]
+    if (pattern.ownerId) tags.push(`users:${pattern.ownerId}`)
+    tags.push(project.licenceId !== null ? `licences:${project.licenceId}` : `pattern_invitations:${project.invitationId}`)
+    const json = JSON.stringify(await projectDetail(loaded))
+    return { value: { ownerId: project.ownerId, facts, json }, tags, until: project.invitation?.expiresAt ?? null }
+  })
+  // Someone else's project is not found, as in loadProject.
+  if (plan.ownerId !== actor.id) throw new NotFoundError('No such project.')
+  authorize(actor, 'sewing-room:read', plan.facts)
+  return plan.json
 }
 
 /**

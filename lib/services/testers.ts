@@ -52,6 +52,20 @@ export async function testerIdsOf(patternId: string, options: { transaction?: Tr
 }
 
 /**
+ * When the first of the pattern's testers stops being one by the clock alone (the earliest expiry
+ * of its live, accepted invitations), or null: until then its testers change only with a row.
+ *
+ * @example const until = await testersLiveUntil(pattern.id)
+ */
+export async function testersLiveUntil(patternId: string): Promise<Date | null> {
+  const [row] = await database().query<{ until: Date | string | null }>(
+    `SELECT min(i.expires_at) AS until FROM pattern_invitations i WHERE i.pattern_id = :patternId AND ${liveAndAcceptedSql('i')}`,
+    { replacements: { patternId }, type: QueryTypes.SELECT },
+  )
+  return row?.until ? new Date(row.until) : null
+}
+
+/**
  * Whether the person holds a live, accepted invitation to test the pattern (whatever the pattern's
  * state: lib/authorization.ts adds that testers see a pattern only while it is in testing).
  *

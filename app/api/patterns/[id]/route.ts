@@ -1,12 +1,12 @@
 import { BODY_LIMITS, route } from '@/lib/http'
 import { updatePatternSchema } from '@/lib/schemas/pattern'
-import { authorizePatternAction, deletePattern, readablePattern, toView, updatePattern } from '@/lib/services/patterns'
+import { authorizePatternAction, deletePattern, patternAnswer, updatePattern } from '@/lib/services/patterns'
 
-// The permission step loads and authorizes the pattern; the answer is made from that row, so a
-// read loads the pattern (its design) and its testers once, not twice (seen in `npm run load`).
+// The permission step reads and authorizes the pattern's answer (kept by this process while it is
+// unchanged: lib/row-changes.ts), so a read asks for the pattern once, or not at all.
 export const GET = route(
-  { params: ['id'], bodyLimit: BODY_LIMITS.none, session: 'required', permit: ({ user, params }) => readablePattern(user, params.id) },
-  async ({ resource }) => Response.json({ pattern: toView(resource.pattern) }),
+  { params: ['id'], bodyLimit: BODY_LIMITS.none, session: 'required', permit: ({ user, params }) => patternAnswer(user, params.id) },
+  async ({ resource }) => new Response(resource, { headers: { 'content-type': 'application/json' } }),
 )
 
 export const PATCH = route(
