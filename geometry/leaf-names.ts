@@ -47,15 +47,33 @@ interface LeafKey {
   readonly id: string
   readonly over: string | null
   readonly basted: [section: string, step: number]
-  readonly angle: number
+  /** The rank of the leaf's angle round the centre (angleRanks). */
+  readonly angleRank: number
   readonly radius: number
 }
 
-/** Angles this close are one angle: leaves on one ray are then ordered outward, not by rounding noise. */
-const compareAngles = (a: number, b: number): number => (Math.abs(a - b) <= ANGLE_NOISE_RADIANS ? 0 : a - b)
+/**
+ * Each angle's rank among the distinct angles, angles within ANGLE_NOISE_RADIANS of their
+ * neighbour counting as one (leaves on one ray are then ordered outward, not by rounding noise).
+ * Ranks, unlike "equal when within the noise", order transitively, so a sort by them does not
+ * depend on the order it is given its items in: three angles 0.6e-9 apart are one rank, not two
+ * equal pairs and an unequal one.
+ *
+ * @example angleRanks([0.3, 0, 0.3 + 1e-12]) // [1, 0, 1]
+ */
+export function angleRanks(angles: readonly number[]): number[] {
+  const order = angles.map((angle, index) => ({ angle, index })).sort((a, b) => a.angle - b.angle)
+  const ranks = new Array<number>(angles.length)
+  let rank = 0
+  order.forEach(({ angle, index }, position) => {
+    if (position > 0 && angle - order[position - 1]!.angle > ANGLE_NOISE_RADIANS) rank += 1
+    ranks[index] = rank
+  })
+  return ranks
+}
 
 const compareKeys = (a: LeafKey, b: LeafKey): number =>
-  a.basted[0].localeCompare(b.basted[0]) || a.basted[1] - b.basted[1] || compareAngles(a.angle, b.angle) || a.radius - b.radius
+  a.basted[0].localeCompare(b.basted[0]) || a.basted[1] - b.basted[1] || a.angleRank - b.angleRank || a.radius - b.radius
   // Two leaves at one place: only then does the id decide, so the numbering stays total.
   || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0)
 
@@ -66,7 +84,7 @@ const compareKeys = (a: LeafKey, b: LeafKey): number =>
  * @example leafNames(design, plan).get('l7') // 'leaf 2 of A3'
  */
 export function leafNames(design: { readonly leaves: readonly Leaf[]; readonly seams: readonly Seam[] }, plan: { readonly areas: readonly PlanArea[] }): ReadonlyMap<string, string> {
-  const keys: LeafKey[] = []
+  const keys: (Omit<LeafKey, 'angleRank'> & { angle: number })[] = []
   for (const leaf of design.leaves) {
     const seam = design.seams.find((s) => s.id === leaf.seam)
     const over = seam ? areaUnderLeaf(leaf, seam, plan.areas) : null
@@ -83,9 +101,10 @@ export function leafNames(design: { readonly leaves: readonly Leaf[]; readonly s
       radius: Math.hypot(base[0], base[1]),
     })
   }
+  const ranks = angleRanks(keys.map((key) => key.angle))
   const names = new Map<string, string>()
   const groups = new Map<string | null, LeafKey[]>()
-  for (const key of keys) groups.set(key.over, [...(groups.get(key.over) ?? []), key])
+  for (const key of keys.map((key, index): LeafKey => ({ ...key, angleRank: ranks[index]! }))) groups.set(key.over, [...(groups.get(key.over) ?? []), key])
   for (const [over, group] of groups) {
     group.sort(compareKeys).forEach((key, index) => names.set(key.id, over === null ? `leaf ${index + 1}` : `leaf ${index + 1} of ${over}`))
   }

@@ -193,6 +193,23 @@ describe('spreadLeafFabrics: properties', () => {
     )
   })
 
+  it('orders leaves whose angles lie within the noise of each other alike in any listing (a case fast-check found)', () => {
+    // Three leaves about 0.5e-9 rad apart: l0 and l1 within the noise, l1 and l2 within it, l0 and
+    // l2 just beyond it. "Equal within the noise" is then no order; ranks of the angles are.
+    const input: Parameters<typeof spreadLeafFabrics>[0] = {
+      ring: { repeatMode: 'rotate' },
+      seams: [{ id: 's0', from: [0.5, 5.000000000000001e-10], to: [0.5, 0] }, { id: 's2', from: [0.5, 0], to: [0.5, 0] }],
+      leaves: [
+        { id: 'l0', seam: 's0', at: 0, side: 'left', layers: ['a'] },
+        { id: 'l1', seam: 's0', at: 0.5, side: 'left', layers: ['a'] },
+        { id: 'l2', seam: 's2', at: 0, side: 'left', layers: ['a'] },
+      ],
+    }
+    const orders = [[0, 1, 2], [0, 2, 1], [1, 0, 2], [1, 2, 0], [2, 0, 1], [2, 1, 0]].map((permutation) =>
+      spreadLeafFabrics({ ...input, leaves: permutation.map((index) => input.leaves[index]!) }).leaves.map((leaf) => leaf.id))
+    for (const order of orders) expect(order).toEqual(orders[0])
+  })
+
   it('is deterministic, does not change its input, and does not depend on the order leaves are listed in', () => {
     fc.assert(
       fc.property(arbitraryInput, fc.integer({ min: 0, max: 11 }), ({ input }, shift) => {

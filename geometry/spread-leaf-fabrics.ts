@@ -15,7 +15,7 @@
  * each over the leaves that have that layer, and a leaf's layers are kept different from each
  * other where there are enough fabrics. A plan, not an effect: the caller applies it.
  */
-import { leafBaseOnSeam } from './leaf-names'
+import { angleRanks, leafBaseOnSeam } from './leaf-names'
 import { ANGLE_NOISE_RADIANS } from './tolerances'
 import type { Leaf, Ring, Seam } from './types'
 
@@ -46,9 +46,6 @@ interface Placed {
   readonly radius: number
 }
 
-/** Angles this close are one angle (as in leaf-names.ts): leaves on one ray go outward. */
-const compareAngles = (a: number, b: number): number => (Math.abs(a - b) <= ANGLE_NOISE_RADIANS ? 0 : a - b)
-
 /**
  * Repeat 0's leaves counter-clockwise round the centre, then outward, then by id (two leaves at
  * one place). Leaves on a missing seam are left out: they are not on the ring.
@@ -65,7 +62,11 @@ function ringOrder(input: SpreadInput): Placed[] {
     if (angle >= 2 * Math.PI - ANGLE_NOISE_RADIANS) angle = 0
     placed.push({ id: leaf.id, layers: leaf.layers, angle, radius: Math.hypot(base[0], base[1]) })
   }
-  return placed.sort((a, b) => compareAngles(a.angle, b.angle) || a.radius - b.radius || (a.id < b.id ? -1 : a.id > b.id ? 1 : 0))
+  // Angles within the noise are one angle (angleRanks, as in leaf-names.ts): leaves on one ray go outward.
+  const ranks = angleRanks(placed.map((leaf) => leaf.angle))
+  const ranked = placed.map((leaf, index) => ({ leaf, rank: ranks[index]! }))
+  ranked.sort((a, b) => a.rank - b.rank || a.leaf.radius - b.leaf.radius || (a.leaf.id < b.leaf.id ? -1 : a.leaf.id > b.leaf.id ? 1 : 0))
+  return ranked.map(({ leaf }) => leaf)
 }
 
 /**
