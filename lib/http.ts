@@ -163,6 +163,19 @@ export function isSameOrigin(request: Request, settings: OriginSettings = origin
   return settings.trustProxy && forwardedOrigin(request) === origin
 }
 
+/**
+ * A JSON answer already written as UTF-8 bytes (an answer a web process keeps, lib/row-changes.ts),
+ * sent with its length: neither serialised nor encoded again per request.
+ *
+ * @example return jsonBytesResponse(await projectAnswer(user, id))
+ */
+export function jsonBytesResponse(bytes: Uint8Array<ArrayBuffer>): Response {
+  return new Response(bytes, { headers: { 'content-type': 'application/json', 'content-length': String(bytes.byteLength) } })
+}
+
+/** `value` as JSON in UTF-8 bytes, for jsonBytesResponse. */
+export const jsonBytes = (value: unknown): Uint8Array<ArrayBuffer> => new TextEncoder().encode(JSON.stringify(value))
+
 export function jsonError(status: number, message: string, extra: Record<string, unknown> = {}): Response {
   return Response.json({ error: { message, ...extra } }, { status })
 }

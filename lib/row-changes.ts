@@ -25,10 +25,12 @@ export const ROW_CHANGE_CHANNEL = 'row_changes'
 export type ChangeTag = string
 
 /**
- * The longest any answer is kept, heard changes or not (our choice): a guard against a notice lost
- * in a way nobody noticed, short enough that such a loss shows for a minute, not a day.
+ * The longest any answer is kept, heard changes or not (our choice): a guard against a change no
+ * trigger saw (a restore that switched triggers off), short enough that it shows for minutes, not
+ * days, and long enough that answers kept in one burst (a sale's first minute) do not all fall due
+ * in another.
  */
-export const KEPT_AT_MOST_MS = 60_000
+export const KEPT_AT_MOST_MS = 10 * 60_000
 
 /** How many recent changes the feed remembers by tag, to refuse answers read while one happened. */
 const REMEMBERED_CHANGES = 50_000

@@ -60,6 +60,16 @@ async function changeElsewhere(tag: ChangeTag, sql: string, values: unknown[] = 
   }
 }
 
+/**
+ * Waits until every notice of a change committed so far has arrived: a listener gets notices in
+ * commit order (PostgreSQL docs, NOTIFY), so one sent now arrives after them. An answer read while
+ * the notice of an earlier write (a session just made) was on its way is rightly not kept.
+ */
+async function settle(): Promise<void> {
+  const tag = `test:${randomUUID()}`
+  await changeElsewhere(tag, `SELECT pg_notify('row_changes', $1)`, [tag])
+}
+
 /** How many statements this process sends to PostgreSQL while `run` runs. */
 async function statementsDuring<T>(run: () => Promise<T>): Promise<{ result: T; statements: number }> {
   let statements = 0
@@ -98,6 +108,7 @@ describe('a pattern read', () => {
     const designer = await createUser({ roles: ['quilter', 'designer'] })
     const pattern = await createPatternRow(designer, { name: 'Kept ring' })
     const cookie = await sessionCookieFor(designer)
+    await settle()
     expect((await readPattern(cookie, pattern.id)).json!.pattern.name).toBe('Kept ring')
     const again = await statementsDuring(() => readPattern(cookie, pattern.id))
     expect(again.result.status).toBe(200)
@@ -164,6 +175,7 @@ describe('a sewing plan', () => {
 
   it('shows a tick made elsewhere, a licence refunded elsewhere ends it, and it is never another quilter’s', async () => {
     const { licence, cookie, projectId } = await scene()
+    await settle()
     const first = (await readPlan(cookie, projectId)).json!
     const step = first.steps[0].id as string
     expect(first.steps[0].done).toBe(false)

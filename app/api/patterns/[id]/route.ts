@@ -1,4 +1,4 @@
-import { BODY_LIMITS, route } from '@/lib/http'
+import { BODY_LIMITS, jsonBytesResponse, route } from '@/lib/http'
 import { updatePatternSchema } from '@/lib/schemas/pattern'
 import { authorizePatternAction, deletePattern, patternAnswer, updatePattern } from '@/lib/services/patterns'
 
@@ -6,7 +6,7 @@ import { authorizePatternAction, deletePattern, patternAnswer, updatePattern } f
 // unchanged: lib/row-changes.ts), so a read asks for the pattern once, or not at all.
 export const GET = route(
   { params: ['id'], bodyLimit: BODY_LIMITS.none, session: 'required', permit: ({ user, params }) => patternAnswer(user, params.id) },
-  async ({ resource }) => new Response(resource, { headers: { 'content-type': 'application/json' } }),
+  async ({ resource }) => jsonBytesResponse(resource),
 )
 
 export const PATCH = route(

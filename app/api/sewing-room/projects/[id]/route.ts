@@ -1,4 +1,4 @@
-import { BODY_LIMITS, route } from '@/lib/http'
+import { BODY_LIMITS, jsonBytesResponse, route } from '@/lib/http'
 import { deleteProject, loadProject, projectAnswer } from '@/lib/services/sewing-room'
 
 /**
@@ -9,7 +9,7 @@ import { deleteProject, loadProject, projectAnswer } from '@/lib/services/sewing
  */
 export const GET = route(
   { params: ['id'], bodyLimit: BODY_LIMITS.none, session: 'required', permit: ({ user, params }) => projectAnswer(user, params.id) },
-  async ({ resource }) => new Response(resource, { headers: { 'content-type': 'application/json' } }),
+  async ({ resource }) => jsonBytesResponse(resource),
 )
 
 /** `DELETE /api/sewing-room/projects/:id` → `{ deleted: true }`: the owner deletes the project and its progress. */
