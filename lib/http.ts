@@ -170,7 +170,14 @@ export function isSameOrigin(request: Request, settings: OriginSettings = origin
  * @example return jsonBytesResponse(await projectAnswer(user, id))
  */
 export function jsonBytesResponse(bytes: Uint8Array<ArrayBuffer>): Response {
-  return new Response(bytes, { headers: { 'content-type': 'application/json', 'content-length': String(bytes.byteLength) } })
+  // A stream of the one kept chunk: a Uint8Array body would be copied for every answer.
+  const body = new ReadableStream<Uint8Array>({
+    start(controller) {
+      controller.enqueue(bytes)
+      controller.close()
+    },
+  })
+  return new Response(body, { headers: { 'content-type': 'application/json', 'content-length': String(bytes.byteLength) } })
 }
 
 /** `value` as JSON in UTF-8 bytes, for jsonBytesResponse. */
