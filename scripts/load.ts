@@ -349,15 +349,14 @@ try {
   // The machine's load before measuring: other work on its cores lowers every figure below.
   console.log(`  load average (1, 5, 15 min) before measuring: ${loadAverage()}`)
   for (const target of targets) console.log(`  ${target.name.padEnd(13)} ${target.label}`)
-  // Warm up: the first requests to a route load its bundle, and V8 compiles what runs hot.
-  for (const target of targets) {
-    const warm = await measure(base, target, 10, WARM_UP_SECONDS)
-    if (warm.errors > 0) console.log(`  warm-up of ${target.name}: ${warm.errors} errors (${warm.errorKinds})`)
-  }
-
   const all: Figures[] = []
   for (const connections of CONNECTIONS) {
     for (const target of targets) {
+      // Warm up right before each run: the first requests to a route load its bundle, V8 compiles
+      // what runs hot, and the web process keeps the answers a read makes (lib/row-changes.ts),
+      // which a target measured earlier may have changed (the tick drops its project's plan).
+      const warm = await measure(base, target, 10, WARM_UP_SECONDS)
+      if (warm.errors > 0) console.log(`  warm-up of ${target.name}: ${warm.errors} errors (${warm.errorKinds})`)
       const figures = await measure(base, target, connections, SECONDS)
       all.push(figures)
       console.log(`  ${target.name} at ${connections}: ${figures.requestsPerSecond.toFixed(0)} req/s, p50 ${figures.p50} ms, p99 ${figures.p99} ms, ${(figures.bytesPerAnswer / 1024).toFixed(1)} KiB an answer, ${figures.errors} errors${figures.errorKinds ? ` (${figures.errorKinds})` : ''}`)
