@@ -101,10 +101,15 @@ export class RowChangeFeed {
       await client.connect()
       await client.query(`LISTEN ${ROW_CHANGE_CHANNEL}`)
     } catch (error) {
-      broken(error as Error)
+      if (this.client === client) broken(error as Error)
+      else await client.end().catch(() => undefined)
       return
     }
-    if (this.client !== client) return
+    // Stopped (or started again) while this connection was being opened: it is not needed.
+    if (this.client !== client) {
+      await client.end().catch(() => undefined)
+      return
+    }
     // Whatever was kept before may have changed unheard.
     this.changed('*')
     this.retryMs = RECONNECT_FIRST_MS
