@@ -164,8 +164,10 @@ export function isSameOrigin(request: Request, settings: OriginSettings = origin
 }
 
 /**
- * A JSON answer already written as UTF-8 bytes (an answer a web process keeps, lib/row-changes.ts),
- * sent with its length: neither serialised nor encoded again per request.
+ * A JSON answer already written as UTF-8 bytes (an answer a web process keeps, lib/row-changes.ts):
+ * neither serialised nor encoded again per request. No Content-Length or Content-Encoding: Next.js
+ * drops both from a route's answer (next/dist/server/send-response.js) and sends it chunked, so a
+ * kept answer cannot go out gzipped either; a deployment's proxy compresses (README).
  *
  * @example return jsonBytesResponse(await projectAnswer(user, id))
  */
@@ -177,7 +179,7 @@ export function jsonBytesResponse(bytes: Uint8Array<ArrayBuffer>): Response {
       controller.close()
     },
   })
-  return new Response(body, { headers: { 'content-type': 'application/json', 'content-length': String(bytes.byteLength) } })
+  return new Response(body, { headers: { 'content-type': 'application/json' } })
 }
 
 /** `value` as JSON in UTF-8 bytes, for jsonBytesResponse. */
@@ -291,7 +293,7 @@ export function route<Param extends string = never, S extends SessionRule = Sess
       }
       response = await handler({ request, user, params, sessionId: check.session?.id ?? null, resource, body })
     } catch (error) {
-      response = errorResponse(error)
+      response = wentAway(request, error) ? clientWentAway() : errorResponse(error)
       // A body refused unread (too large, a stranger, no permission) is left to Node's server,
       // which drops what still comes, chunk by chunk, without keeping it. Closing the connection
       // instead lost the answer: a client still sending meets a reset before it reads the 413.
@@ -299,6 +301,24 @@ export function route<Param extends string = never, S extends SessionRule = Sess
     if (setCookie && !response.headers.has('set-cookie')) response.headers.append('set-cookie', setCookie)
     return response
   }
+}
+
+/**
+ * Whether the request failed because its client hung up (its body cut off mid-way: Node's server
+ * ends the stream with `aborted`, ECONNRESET, and Next.js aborts the request's signal). Nothing
+ * was read in full, so nothing was written; the client is not there to answer.
+ */
+function wentAway(request: Request, error: unknown): boolean {
+  return request.signal.aborted || (error as NodeJS.ErrnoException | null)?.code === 'ECONNRESET'
+}
+
+/**
+ * The answer to a client that hung up: 499, the status proxies log for "client closed request"
+ * (nginx's; no standard code exists), not logged as our fault. Without it every tick cut off by a
+ * closing browser tab was logged with its stack as an unexpected error.
+ */
+function clientWentAway(): Response {
+  return new Response(null, { status: 499 })
 }
 
 function errorResponse(error: unknown): Response {

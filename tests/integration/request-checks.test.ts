@@ -4,7 +4,7 @@
  * in that order (issue 10, items 1, 2 and 8).
  */
 import { randomUUID } from 'node:crypto'
-import { afterAll, beforeEach, describe, expect, it } from 'vitest'
+import { afterAll, beforeEach, describe, expect, it, vi } from 'vitest'
 import { POST as signIn } from '@/app/api/auth/sign-in/route'
 import { DELETE as deletePattern, GET as readPattern, PATCH as updatePattern } from '@/app/api/patterns/[id]/route'
 import { GET as listRevisions } from '@/app/api/patterns/[id]/revisions/route'
@@ -78,6 +78,47 @@ describe('body size, before anything else', () => {
     expect(await Pattern.count()).toBe(1)
     // An empty JSON object on a DELETE is within the tiny limit.
     expect((await call(deletePattern, { method: 'DELETE', cookie, params: { id: pattern.id }, body: {} })).status).toBe(204)
+  })
+})
+
+describe('a client that hangs up mid-body', () => {
+  /** Part of a JSON body, then the error Node's server gives the body stream when the socket closes. */
+  function cutOffStream() {
+    const aborted = Object.assign(new Error('aborted'), { code: 'ECONNRESET' })
+    return new ReadableStream<Uint8Array>({
+      start(controller) {
+        controller.enqueue(new TextEncoder().encode('{"name":"Half a na'))
+        controller.error(aborted)
+      },
+    })
+  }
+
+  it('gets 499, is not logged as our error, and nothing is changed', async () => {
+    const { user, cookie } = await designer()
+    const pattern = await createPatternRow(user, { name: 'Before' })
+    const logged = vi.spyOn(console, 'error').mockImplementation(() => undefined)
+    try {
+      const response = await call(updatePattern, { method: 'PATCH', cookie, stream: cutOffStream(), params: { id: pattern.id } })
+      expect(response.status).toBe(499)
+      expect(logged).not.toHaveBeenCalled()
+    } finally {
+      logged.mockRestore()
+    }
+    expect((await Pattern.findByPk(pattern.id))!.name).toBe('Before')
+  })
+
+  it('still logs and answers 500 for a body stream that fails for another reason', async () => {
+    const { user, cookie } = await designer()
+    const pattern = await createPatternRow(user, { name: 'Before' })
+    const broken = new ReadableStream<Uint8Array>({ start: (controller) => controller.error(new Error('disk on fire')) })
+    const logged = vi.spyOn(console, 'error').mockImplementation(() => undefined)
+    try {
+      const response = await call(updatePattern, { method: 'PATCH', cookie, stream: broken, params: { id: pattern.id } })
+      expect(response.status).toBe(500)
+      expect(logged).toHaveBeenCalledOnce()
+    } finally {
+      logged.mockRestore()
+    }
   })
 })
 
