@@ -43,26 +43,50 @@ export interface ApiRequest<T> extends RequestInit {
  * @example const { pattern } = await apiFetch(`/api/patterns/${id}`, { schema: patternAnswerSchema })
  */
 export async function apiFetch<T>(url: string, init: ApiRequest<T> = {}): Promise<T> {
+  return (await apiFetchTagged(url, null, init)).value
+}
+
+/** An answer with the entity tag it came with (null when the server sent none). */
+export interface Tagged<T> {
+  readonly value: T
+  readonly etag: string | null
+}
+
+/**
+ * As apiFetch, asking with the tag of the answer already `known` (If-None-Match, RFC 9110
+ * §13.1.2) and returning `known` itself when the server answers 304 Not Modified: a page that asks
+ * again whether something changed receives the body only when it did.
+ *
+ * @example known = await apiFetchTagged(`/api/sewing-room/projects/${id}`, known)
+ */
+export async function apiFetchTagged<T>(url: string, known: Tagged<T> | null, init: ApiRequest<T> = {}): Promise<Tagged<T>> {
   const { json, headers, schema, fetch: send = (input, options) => globalThis.fetch(input, options), ...rest } = init
   const response = await send(url, {
     ...rest,
-    headers: { accept: 'application/json', ...(json !== undefined ? { 'content-type': 'application/json' } : {}), ...headers },
+    headers: {
+      accept: 'application/json',
+      ...(json !== undefined ? { 'content-type': 'application/json' } : {}),
+      ...(known?.etag ? { 'if-none-match': known.etag } : {}),
+      ...headers,
+    },
     body: json !== undefined ? JSON.stringify(json) : rest.body,
     credentials: 'same-origin',
   })
-  if (response.status === 204) return undefined as T
+  if (response.status === 304 && known) return known
+  const etag = response.headers.get('etag')
+  if (response.status === 204) return { value: undefined as T, etag }
   const body = (await response.json().catch(() => ({}))) as Record<string, unknown>
   if (!response.ok) {
     const error = (body?.error ?? {}) as { message?: string; issues?: ApiIssue[] }
     throw new ApiError(error.message ?? `Request failed (${response.status})`, response.status, error.issues ?? [], error)
   }
-  if (!schema) return body as T
+  if (!schema) return { value: body as T, etag }
   const parsed = schema.safeParse(body)
   if (!parsed.success) {
     const issues = parsed.error.issues.map((issue) => ({ path: issue.path.map(String).join('.') || '(body)', message: issue.message }))
     throw new ApiError(MALFORMED_ANSWER, response.status, issues)
   }
-  return parsed.data
+  return { value: parsed.data, etag }
 }
 
 /**

@@ -163,28 +163,6 @@ export function isSameOrigin(request: Request, settings: OriginSettings = origin
   return settings.trustProxy && forwardedOrigin(request) === origin
 }
 
-/**
- * A JSON answer already written as UTF-8 bytes (an answer a web process keeps, lib/row-changes.ts):
- * neither serialised nor encoded again per request. No Content-Length or Content-Encoding: Next.js
- * drops both from a route's answer (next/dist/server/send-response.js) and sends it chunked, so a
- * kept answer cannot go out gzipped either; a deployment's proxy compresses (README).
- *
- * @example return jsonBytesResponse(await projectAnswer(user, id))
- */
-export function jsonBytesResponse(bytes: Uint8Array<ArrayBuffer>): Response {
-  // A stream of the one kept chunk: a Uint8Array body would be copied for every answer.
-  const body = new ReadableStream<Uint8Array>({
-    start(controller) {
-      controller.enqueue(bytes)
-      controller.close()
-    },
-  })
-  return new Response(body, { headers: { 'content-type': 'application/json' } })
-}
-
-/** `value` as JSON in UTF-8 bytes, for jsonBytesResponse. */
-export const jsonBytes = (value: unknown): Uint8Array<ArrayBuffer> => new TextEncoder().encode(JSON.stringify(value))
-
 export function jsonError(status: number, message: string, extra: Record<string, unknown> = {}): Response {
   return Response.json({ error: { message, ...extra } }, { status })
 }

@@ -1,7 +1,7 @@
 'use client'
 
 import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from 'react'
-import { ApiError } from '@/lib/api-client'
+import { ApiError, type Tagged } from '@/lib/api-client'
 import type { ProjectDetail, ProjectStep } from '@/lib/schemas/sewing-room'
 import { fetchProject, patchStep } from '@/lib/sewing-room-client/api'
 import { applySaved, mergeServerSteps, overlayPending, type ShownStep } from '@/lib/sewing-room-client/merge'
@@ -50,6 +50,8 @@ export function useProjectRoom(projectId: string): ProjectRoom {
   const [history, setHistory] = useState<Tick[]>([])
   const [sync, setSync] = useState<StepSync | null>(null)
   const loading = useRef(false)
+  /** The last answer with its tag: a refresh is answered 304, without the body, while it holds. */
+  const lastAnswer = useRef<Tagged<ProjectDetail> | null>(null)
 
   useEffect(() => {
     const created = createStepSync({
@@ -76,10 +78,15 @@ export function useProjectRoom(projectId: string): ProjectRoom {
     if (loading.current) return
     loading.current = true
     try {
-      const answer = await fetchProject(projectId)
+      const previous = lastAnswer.current
+      const tagged = await fetchProject(projectId, previous)
+      lastAnswer.current = tagged
+      setLoadProblem(null)
+      // Unchanged since the last answer (304): nothing to merge.
+      if (tagged === previous) return
+      const answer = tagged.value
       setDetail(answer)
       setServerSteps((known) => mergeServerSteps(known, answer.steps))
-      setLoadProblem(null)
     } catch (error) {
       setLoadProblem(error instanceof ApiError ? { message: error.message, status: error.status } : { message: 'The server could not be reached.', status: 0 })
     } finally {

@@ -3,7 +3,7 @@ import { Transaction } from 'sequelize'
 import { authorize, can, type Actor, type PatternFacts } from '@/lib/authorization'
 import { database } from '@/lib/db'
 import { ConflictError, NotFoundError, StoredDesignError, UnauthenticatedError, ValidationError } from '@/lib/errors'
-import { jsonBytes } from '@/lib/http'
+import { keptJson, keptJsonSize, type KeptJson } from '@/lib/kept-json'
 import { emptyDesign } from '@/lib/new-design'
 import { readinessProblems } from '@/lib/pattern-readiness'
 import { KeptAnswers } from '@/lib/row-changes'
@@ -154,22 +154,22 @@ export async function readablePattern(actor: Actor, id: string, transaction?: Tr
  * read them, by pattern: kept until the pattern or one of its invitations changes or a tester's
  * invitation expires (lib/row-changes.ts); at most KEPT_DESIGN_CHARACTERS of JSON in all.
  */
-const keptPatternAnswers = new KeptAnswers<{ readonly facts: PatternFacts; readonly json: Uint8Array<ArrayBuffer> }>(KEPT_DESIGN_CHARACTERS, (answer) => answer.json.byteLength)
+const keptPatternAnswers = new KeptAnswers<{ readonly facts: PatternFacts; readonly json: KeptJson }>(KEPT_DESIGN_CHARACTERS, (answer) => keptJsonSize(answer.json))
 
 /**
- * `GET /api/patterns/:id`'s answer as JSON (UTF-8 bytes), for an actor who may read the pattern (else 404, as
+ * `GET /api/patterns/:id`'s answer as kept JSON (lib/kept-json.ts), for an actor who may read the pattern (else 404, as
  * for a missing one), from what this process kept when it can (a pattern read asks PostgreSQL
  * nothing then: `npm run load`, pattern read).
  *
- * @example jsonBytesResponse(await patternAnswer(user, id))
+ * @example keptJsonResponse(request, await patternAnswer(user, id))
  */
-export async function patternAnswer(actor: Actor, id: string): Promise<Uint8Array<ArrayBuffer>> {
+export async function patternAnswer(actor: Actor, id: string): Promise<KeptJson> {
   if (!actor) throw new UnauthenticatedError()
   database()
   const { facts, json } = await keptPatternAnswers.answer(id, async () => {
     const pattern = await findPattern(id)
     const [facts, until] = await Promise.all([patternFacts(pattern), testersLiveUntil(id)])
-    return { value: { facts, json: jsonBytes({ pattern: toView(pattern) }) }, tags: [`patterns:${id}`], until }
+    return { value: { facts, json: keptJson({ pattern: toView(pattern) }) }, tags: [`patterns:${id}`], until }
   })
   authorize(actor, 'read-pattern', facts)
   return json

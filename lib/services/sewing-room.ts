@@ -6,7 +6,7 @@ import { authorize, type Actor, type SewingProjectFacts } from '@/lib/authorizat
 import type { BookletModel } from '@/lib/booklet/model'
 import { database } from '@/lib/db'
 import { ConflictError, NotFoundError, StoredDesignError, ValidationError } from '@/lib/errors'
-import { jsonBytes } from '@/lib/http'
+import { keptJson, keptJsonSize, type KeptJson } from '@/lib/kept-json'
 import { MAX_SEWING_PROJECTS_PER_PERSON } from '@/lib/limits'
 import { countSewingProjectStart, countStepChange } from '@/lib/rate-limits'
 import { KeptAnswers, type ChangeTag } from '@/lib/row-changes'
@@ -310,18 +310,18 @@ async function projectDetail(loaded: LoadedProject): Promise<ProjectDetail> {
  * lately, with who may read them, by project: kept until the project, a tick, its pattern, the
  * designer's name or its grant changes, or the invitation expires (lib/row-changes.ts).
  */
-const keptPlans = new KeptAnswers<{ readonly ownerId: string; readonly facts: SewingProjectFacts; readonly json: Uint8Array<ArrayBuffer> }>(
+const keptPlans = new KeptAnswers<{ readonly ownerId: string; readonly facts: SewingProjectFacts; readonly json: KeptJson }>(
   32 * 1024 * 1024,
-  (plan) => plan.json.byteLength,
+  (plan) => keptJsonSize(plan.json),
 )
 
 /**
- * `GET /api/sewing-room/projects/:id`'s answer as JSON (UTF-8 bytes), for the project's owner while they hold
+ * `GET /api/sewing-room/projects/:id`'s answer as kept JSON (lib/kept-json.ts), for the project's owner while they hold
  * its grant (else 404), from what this process kept when it can (`npm run load`, plan).
  *
- * @example jsonBytesResponse(await projectAnswer(user, id))
+ * @example keptJsonResponse(request, await projectAnswer(user, id))
  */
-export async function projectAnswer(actor: Actor, projectId: string): Promise<Uint8Array<ArrayBuffer>> {
+export async function projectAnswer(actor: Actor, projectId: string): Promise<KeptJson> {
   authorize(actor, 'sewing-room:list')
   const plan = await keptPlans.answer(projectId, async () => {
     const loaded = await loadProject(actor, projectId, 'sewing-room:read')
@@ -329,7 +329,7 @@ export async function projectAnswer(actor: Actor, projectId: string): Promise<Ui
     const tags: ChangeTag[] = [`sewing_projects:${project.id}`, `patterns:${pattern.id}`]
     if (pattern.ownerId) tags.push(`users:${pattern.ownerId}`)
     tags.push(project.licenceId !== null ? `licences:${project.licenceId}` : `pattern_invitations:${project.invitationId}`)
-    const json = jsonBytes(await projectDetail(loaded))
+    const json = keptJson(await projectDetail(loaded))
     return { value: { ownerId: project.ownerId, facts, json }, tags, until: project.invitation?.expiresAt ?? null }
   })
   // Someone else's project is not found, as in loadProject.

@@ -2,7 +2,7 @@
  * The sewing room's requests, from the browser. Inputs go through the server's own schemas
  * (lib/schemas/sewing-room.ts) before they leave, so the page and the route refuse the same things.
  */
-import { apiFetch } from '@/lib/api-client'
+import { apiFetch, apiFetchTagged, type Tagged } from '@/lib/api-client'
 import {
   newProjectSchema,
   stepUpdateSchema,
@@ -20,9 +20,12 @@ export async function fetchProjects(): Promise<ProjectSummary[]> {
   return (await apiFetch<{ projects: ProjectSummary[] }>(PROJECTS, { cache: 'no-store' })).projects
 }
 
-/** One project with its checklist, progress and picture. */
-export function fetchProject(projectId: string): Promise<ProjectDetail> {
-  return apiFetch<ProjectDetail>(`${PROJECTS}/${encodeURIComponent(projectId)}`, { cache: 'no-store' })
+/**
+ * One project with its checklist, progress and picture; given the answer already `known`, the
+ * server sends the body again only if something changed (304 otherwise, and `known` comes back).
+ */
+export function fetchProject(projectId: string, known: Tagged<ProjectDetail> | null = null): Promise<Tagged<ProjectDetail>> {
+  return apiFetchTagged<ProjectDetail>(`${PROJECTS}/${encodeURIComponent(projectId)}`, known, { cache: 'no-store' })
 }
 
 /** Starts a project (throws the schema's ZodError before sending anything it would refuse). */

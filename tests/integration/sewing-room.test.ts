@@ -146,6 +146,24 @@ describe('a project and its steps', () => {
     expect(detail.nextStepId).toBe('leaves:leaf-light')
   })
 
+  it('answers a page asking again with the tag of what it has 304, without the plan, until a tick changes it', async () => {
+    const { buyerCookie, otherCookie, projectId } = await started()
+    const first = await read(buyerCookie, projectId)
+    const etag = first.headers.get('etag')!
+    expect(etag).toMatch(/^"[\w-]+"$/)
+    const again = (cookie: string, tag: string) => call(projectRoute, { cookie, params: { id: projectId }, headers: { 'if-none-match': tag } })
+    const unchanged = await again(buyerCookie, etag)
+    expect(unchanged.status).toBe(304)
+    expect(unchanged.text).toBe('')
+    // The tag opens nothing: someone else asking with it is still told there is no such project.
+    expect((await again(otherCookie, etag)).status).toBe(404)
+    await patch(buyerCookie, projectId, { stepId: 'r1:area:A1', done: true })
+    const changed = await again(buyerCookie, etag)
+    expect(changed.status).toBe(200)
+    expect(changed.headers.get('etag')).not.toBe(etag)
+    expect(changed.json!.project.done).toBe(1)
+  })
+
   it('keeps both of two ticks of different steps sent at once', async () => {
     const { buyerCookie, projectId } = await started()
     const ids = ['r1:area:A1', 'r1:area:A2', 'r2:area:B3', 'finish:binding', 'cut:background', 'ring:join:2']

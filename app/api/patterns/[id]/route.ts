@@ -1,4 +1,5 @@
-import { BODY_LIMITS, jsonBytesResponse, route } from '@/lib/http'
+import { BODY_LIMITS, route } from '@/lib/http'
+import { keptJsonResponse } from '@/lib/kept-json'
 import { updatePatternSchema } from '@/lib/schemas/pattern'
 import { authorizePatternAction, deletePattern, patternAnswer, updatePattern } from '@/lib/services/patterns'
 
@@ -6,7 +7,7 @@ import { authorizePatternAction, deletePattern, patternAnswer, updatePattern } f
 // unchanged: lib/row-changes.ts), so a read asks for the pattern once, or not at all.
 export const GET = route(
   { params: ['id'], bodyLimit: BODY_LIMITS.none, session: 'required', permit: ({ user, params }) => patternAnswer(user, params.id) },
-  async ({ resource }) => jsonBytesResponse(resource),
+  async ({ request, resource }) => keptJsonResponse(request, resource),
 )
 
 export const PATCH = route(
