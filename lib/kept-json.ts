@@ -28,14 +28,18 @@ export const keptJsonSize = (kept: KeptJson): number => kept.bytes.byteLength
 
 /**
  * The answer with a kept JSON: 304 with no body when the request's If-None-Match names its tag
- * (RFC 9110 §13.1.2, judged by the `fresh` package), else 200 with the bytes; its ETag either way.
+ * (RFC 9110 §13.1.2, compared by the `fresh` package), else 200 with the bytes; its ETag either way.
  * No Content-Length or Content-Encoding: Next.js drops both from a route's answer
  * (next/dist/server/send-response.js) and sends it chunked.
  *
  * @example return keptJsonResponse(request, await projectAnswer(user, id))
  */
 export function keptJsonResponse(request: Request, kept: KeptJson): Response {
-  const asked = { 'if-none-match': request.headers.get('if-none-match') ?? undefined, 'cache-control': request.headers.get('cache-control') ?? undefined }
+  // If-None-Match alone: a request's Cache-Control: no-cache is addressed to caches on the way
+  // (RFC 9111 §5.2.1.4), not to us, and browsers add it to every conditional request a page makes
+  // with fetch's cache: 'no-store' (Fetch standard, HTTP-network-or-cache fetch); `fresh` would
+  // read it as "send the body again".
+  const asked = { 'if-none-match': request.headers.get('if-none-match') ?? undefined }
   if (fresh(asked, { etag: kept.etag })) return new Response(null, { status: 304, headers: { etag: kept.etag } })
   // A stream of the one kept chunk: a Uint8Array body would be copied for every answer.
   const body = new ReadableStream<Uint8Array>({
