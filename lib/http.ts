@@ -282,12 +282,15 @@ export function route<Param extends string = never, S extends SessionRule = Sess
 }
 
 /**
- * Whether the request failed because its client hung up (its body cut off mid-way: Node's server
- * ends the stream with `aborted`, ECONNRESET, and Next.js aborts the request's signal). Nothing
- * was read in full, so nothing was written; the client is not there to answer.
+ * Whether the request failed because its client hung up: its body cut off mid-way (Node's server
+ * ends the stream with `aborted`, ECONNRESET), or an abort of the request's signal, which Next.js
+ * gives when the connection closes. Nothing was read in full, so nothing was written, and the
+ * client is not there to answer. Any other failure, even of a request whose client has gone, is
+ * ours and logged.
  */
 function wentAway(request: Request, error: unknown): boolean {
-  return request.signal.aborted || (error as NodeJS.ErrnoException | null)?.code === 'ECONNRESET'
+  const failure = error as (Error & { code?: string }) | null
+  return failure?.code === 'ECONNRESET' || (request.signal.aborted && failure?.name === 'AbortError')
 }
 
 /**

@@ -107,15 +107,25 @@ describe('a client that hangs up mid-body', () => {
     expect((await Pattern.findByPk(pattern.id))!.name).toBe('Before')
   })
 
-  it('still logs and answers 500 for a body stream that fails for another reason', async () => {
+  it('still logs and answers 500 for a body stream that fails for another reason, even once the client has gone', async () => {
     const { user, cookie } = await designer()
     const pattern = await createPatternRow(user, { name: 'Before' })
-    const broken = new ReadableStream<Uint8Array>({ start: (controller) => controller.error(new Error('disk on fire')) })
     const logged = vi.spyOn(console, 'error').mockImplementation(() => undefined)
     try {
-      const response = await call(updatePattern, { method: 'PATCH', cookie, stream: broken, params: { id: pattern.id } })
-      expect(response.status).toBe(500)
-      expect(logged).toHaveBeenCalledOnce()
+      for (const gone of [false, true]) {
+        const broken = new ReadableStream<Uint8Array>({ start: (controller) => controller.error(new Error('disk on fire')) })
+        const signal = gone ? AbortSignal.abort() : undefined
+        const request = new Request(`${TEST_ORIGIN}/api/patterns/${pattern.id}`, {
+          method: 'PATCH',
+          headers: { cookie, origin: TEST_ORIGIN, 'content-type': 'application/json' },
+          body: broken,
+          signal,
+          duplex: 'half',
+        } as RequestInit)
+        const response = await updatePattern(request, { params: Promise.resolve({ id: pattern.id }) })
+        expect(response.status).toBe(500)
+      }
+      expect(logged).toHaveBeenCalledTimes(2)
     } finally {
       logged.mockRestore()
     }
