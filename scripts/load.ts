@@ -27,8 +27,8 @@
  *                   steps in turn;
  *   - sign-in       POST /api/auth/sign-in, the right password, through argon2.
  * For each it prints requests/s, p50 and p99 latency and errors (connection errors, time-outs and
- * any answer that is not 2xx, or not the target's own status), beside the bare handler's figures at the same connections, as a
- * ratio. Goals (issue 17): no errors anywhere; for reads at 50 connections a p99 under 100 ms and
+ * any answer that is not 2xx, or not the target's own status), beside the bare handler's figures
+ * at the same connections, as a ratio. Goals (issue 17): no errors anywhere; for reads at 50 connections a p99 under 100 ms and
  * at least 40 % of the bare handler's requests/s.
  *
  * Sign-in's limits (lib/rate-limits.ts) count every attempt from its start and give a successful
@@ -318,7 +318,9 @@ try {
         for (const project of projects) {
           const answer = await fetch(`${base}/api/sewing-room/projects/${project.id}`, { headers: { cookie: project.cookie } })
           await answer.arrayBuffer()
-          planTags.set(project.id, answer.headers.get('etag') ?? '')
+          const etag = answer.headers.get('etag')
+          if (answer.status !== 200 || !etag) throw new Error(`plan refresh: project ${project.id} answered HTTP ${answer.status} ${etag ? '' : 'without an ETag'}`.trim())
+          planTags.set(project.id, etag)
         }
       },
       options: {
@@ -401,8 +403,8 @@ try {
       // which a target measured earlier may have changed (the tick drops its project's plan).
       await target.prepare?.()
       const warm = await measure(base, target, 10, WARM_UP_SECONDS)
-      const rounds = target.rotation ? target.rotation * WEB_PROCESSES * WARM_UP_ROUNDS_PER_PROCESS - warm.total : 0
-      const more = rounds > 0 ? await measure(base, target, 10, TIMEOUT_SECONDS, rounds) : undefined
+      const stillToWarm = target.rotation ? target.rotation * WEB_PROCESSES * WARM_UP_ROUNDS_PER_PROCESS - warm.total : 0
+      const more = stillToWarm > 0 ? await measure(base, target, 10, TIMEOUT_SECONDS, stillToWarm) : undefined
       for (const run of [warm, more]) if (run && run.errors > 0) console.log(`  warm-up of ${target.name}: ${run.errors} errors (${run.errorKinds})`)
       const figures = await measure(base, target, connections, SECONDS)
       all.push(figures)

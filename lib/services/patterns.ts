@@ -157,9 +157,9 @@ export async function readablePattern(actor: Actor, id: string, transaction?: Tr
 const keptPatternAnswers = new KeptAnswers<{ readonly facts: PatternFacts; readonly json: KeptJson }>(KEPT_DESIGN_CHARACTERS, (answer) => keptJsonSize(answer.json))
 
 /**
- * `GET /api/patterns/:id`'s answer as kept JSON (lib/kept-json.ts), for an actor who may read the pattern (else 404, as
- * for a missing one), from what this process kept when it can (a pattern read asks PostgreSQL
- * nothing then: `npm run load`, pattern read).
+ * `GET /api/patterns/:id`'s answer as kept JSON (lib/kept-json.ts), for an actor who may read the
+ * pattern (else 404, as for a missing one), from what this process kept when it can (a pattern
+ * read asks PostgreSQL nothing then: `npm run load`, pattern read).
  *
  * @example keptJsonResponse(request, await patternAnswer(user, id))
  */

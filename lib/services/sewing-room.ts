@@ -316,8 +316,9 @@ const keptPlans = new KeptAnswers<{ readonly ownerId: string; readonly facts: Se
 )
 
 /**
- * `GET /api/sewing-room/projects/:id`'s answer as kept JSON (lib/kept-json.ts), for the project's owner while they hold
- * its grant (else 404), from what this process kept when it can (`npm run load`, plan).
+ * `GET /api/sewing-room/projects/:id`'s answer as kept JSON (lib/kept-json.ts), for the project's
+ * owner while they hold its grant (else 404), from what this process kept when it can (`npm run
+ * load`, plan).
  *
  * @example keptJsonResponse(request, await projectAnswer(user, id))
  */
