@@ -2,7 +2,7 @@
 
 import Link from 'next/link'
 import { useMemo, useState } from 'react'
-import { areasOfStep, finishingShown, groupsWithProgress, nextStepOf, progressOf, sewnAreas } from '@/lib/sewing-room-client/merge'
+import { areasCount, areasOfStep, groupsWithProgress, nextStepOf, overlaysShown, progressOf, sewnAreas } from '@/lib/sewing-room-client/merge'
 import { formatInches } from '@/lib/units'
 import { ChecklistGroup } from './checklist-group'
 import { NextStepCard } from './next-step-card'
@@ -25,13 +25,15 @@ export function ProjectRoom({ projectId }: { projectId: string }) {
   const view = useMemo(() => {
     if (!detail) return null
     const next = nextStepOf(steps)
+    const sewn = sewnAreas(steps, detail.picture)
     return {
       next,
       progress: progressOf(steps),
       groups: groupsWithProgress(detail.groups, steps),
-      sewn: sewnAreas(steps, detail.picture),
+      sewn,
+      areas: areasCount(detail.picture, sewn),
       nextAreas: areasOfStep(next, detail.picture),
-      finishing: finishingShown(detail.picture, steps),
+      overlays: overlaysShown(detail.picture, steps),
       waiting: steps.filter((step) => step.saveState === 'waiting').length,
       refused: steps.filter((step) => step.saveState === 'refused').length,
     }
@@ -54,8 +56,7 @@ export function ProjectRoom({ projectId }: { projectId: string }) {
   const { project } = detail
   const nextGroup = view.next ? detail.groups.find((group) => group.id === view.next!.group) : null
   const isOpen = (groupId: string) => toggled[groupId] ?? groupId === nextGroup?.id
-  const areasTotal = detail.picture.areas.length
-  const areasSewn = detail.picture.areas.filter((area) => view.sewn.has(`${area.repeat}:${area.id}`)).length
+  const { done: areasSewn, total: areasTotal } = view.areas
   const title = project.name ?? project.patternName
 
   return (
@@ -89,7 +90,7 @@ export function ProjectRoom({ projectId }: { projectId: string }) {
               picture={detail.picture}
               sewn={view.sewn}
               next={view.nextAreas}
-              finishing={view.finishing}
+              overlays={view.overlays}
               caption={`The ring so far: ${areasSewn} of ${areasTotal} areas sewn${view.next ? `; the next step is outlined` : ''}.`}
             />
             <figcaption className="mt-2 text-center text-sm text-stone-600">

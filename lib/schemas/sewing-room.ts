@@ -5,7 +5,7 @@
  *
  *   GET    /api/sewing-room/projects              → { projects: ProjectSummary[] }
  *   POST   /api/sewing-room/projects              { licenceId | invitationId, colorway, diameterIn, paper, name? } → 201 { project: ProjectSummary }
- *   GET    /api/sewing-room/projects/:id          → ProjectDetail
+ *   GET    /api/sewing-room/projects/:id          → PlanAnswer (read as a ProjectDetail)
  *   PATCH  /api/sewing-room/projects/:id/steps    { stepId, done?, note? } → { step: StepProgress }
  *   DELETE /api/sewing-room/projects/:id          → { deleted: true }
  */
@@ -121,35 +121,65 @@ export interface ProjectStep extends ChecklistStep {
   readonly updatedAt?: string | null
 }
 
+/** An SVG transform matrix [a, b, c, d, e, f]: (x, y) goes to (a x + c y + e, b x + d y + f). */
+export type SvgMatrix = readonly [number, number, number, number, number, number]
+
+/** How a drawing over the areas looks: an SVG path; `fill` and `stroke` are colours or null (none). */
+export interface PictureMark {
+  readonly d: string
+  readonly fill: string | null
+  readonly stroke: string | null
+  /** The line's width in inches; without it, a line is drawn a fixed width on screen. */
+  readonly strokeWidthIn?: number
+}
+
+/**
+ * What is drawn over the areas, in drawing order: either once where it is, after the step `stepId`
+ * (a stem ring, the binding), or in every repeat's place (a leaf, a curl, a berry), given once in
+ * the frame of the repeat's shapes, after the step that `stepIds[k − 1]` names for repeat k (null:
+ * never drawn there).
+ */
+export type PictureOverlay = PictureMark & ({ readonly stepId: string } | { readonly stepIds: readonly (string | null)[] })
+
 /**
  * The ring to draw, in inches, in the screen's frame: the ring's centre at (0, 0), x to the right
- * and y DOWN (the design's y-up frame already flipped), so the points go into an SVG with this
- * viewBox as they are. Areas are in every repeat's place (rotated or mirrored).
+ * and y DOWN (the design's y-up frame already flipped). The shapes every repeat shares are given
+ * once, with each repeat's place as an SVG matrix (a turn about the centre, or a mirror image), so
+ * the picture of a ring of twelve is no larger than one of four.
  */
 export interface SewingPicture {
   /** [minX, minY, width, height], inches. */
   readonly viewBox: readonly [number, number, number, number]
-  /** Every area of every repeat; a step's `repeat` and `areas` name the ones it sews. */
-  readonly areas: readonly { readonly repeat: number; readonly id: string; readonly points: readonly (readonly [number, number])[]; readonly fill: string }[]
-  /**
-   * What is drawn over the areas once the step `stepId` is done: the leaves (with the area step or
-   * join that catches them), the stem ring, curls, berries and the binding. `fill` and `stroke` are
-   * colours or null (none).
-   */
-  readonly finishing: readonly {
-    readonly stepId: string
-    readonly d: string
-    readonly fill: string | null
-    readonly stroke: string | null
-    readonly strokeWidthIn?: number
-  }[]
+  /** Every repeat (from 1) with the matrix that places the shared shapes as that repeat. */
+  readonly repeats: readonly { readonly repeat: number; readonly matrix: SvgMatrix }[]
+  /** The areas, as one repeat before placing; a step's `repeat` and `areas` name the ones it sews. */
+  readonly areas: readonly { readonly id: string; readonly points: readonly (readonly [number, number])[]; readonly fill: string }[]
+  readonly overlays: readonly PictureOverlay[]
 }
 
-/** `GET /api/sewing-room/projects/:id`. */
+/** A project's sewing plan as the page uses it (`GET /api/sewing-room/projects/:id` sends it as a PlanAnswer). */
 export interface ProjectDetail {
   readonly project: ProjectSummary
   readonly groups: readonly (ChecklistGroup & { readonly done: number; readonly total: number })[]
   readonly steps: readonly ProjectStep[]
   readonly nextStepId: string | null
   readonly picture: SewingPicture
+}
+
+/**
+ * `GET /api/sewing-room/projects/:id` as sent (lib/sewing-room/plan-answer.ts writes and reads it):
+ * a ProjectDetail with each distinct instruction written once, in `words` (a ring's repeats say the
+ * same things), and a step's progress only when it differs from not done, no note.
+ */
+export interface PlanAnswer extends Omit<ProjectDetail, 'steps'> {
+  readonly words: readonly string[]
+  readonly steps: readonly PlanAnswerStep[]
+}
+
+export interface PlanAnswerStep extends Omit<ChecklistStep, 'instruction'> {
+  /** Where its instruction is in `words`; absent when the step has none. */
+  readonly instruction?: number
+  readonly done?: boolean
+  readonly note?: string | null
+  readonly updatedAt?: string | null
 }

@@ -14,6 +14,7 @@ import { parseDesign } from '@/lib/schemas/design'
 import type { NewProjectInput, ProjectDetail, ProjectStep, ProjectSummary, SewingPicture, StepProgress, StepUpdateInput } from '@/lib/schemas/sewing-room'
 import { checklistOfModel, sewingModel, type Checklist } from '@/lib/sewing-room/checklist'
 import { sewingPicture } from '@/lib/sewing-room/picture'
+import { planAnswer } from '@/lib/sewing-room/plan-answer'
 import { Invitation, Licence, Pattern, PatternRevision, SewingProject, SewingStep, User } from '@/models'
 
 /**
@@ -280,7 +281,7 @@ export async function startProject(actor: Actor, input: NewProjectInput): Promis
   return summaryOf(project, pattern, pattern.ownerId ? (names.get(pattern.ownerId) ?? FORMER_DESIGNER) : FORMER_DESIGNER, entry, new Set())
 }
 
-/** `GET /api/sewing-room/projects/:id`: the project, its groups with progress, every step with its own, the next step and the picture. */
+/** A project's plan: the project, its groups with progress, every step with its own, the next step and the picture. */
 async function projectDetail(loaded: LoadedProject): Promise<ProjectDetail> {
   const { project, pattern, designer } = loaded
   const entry = await workedFor(project, pattern)
@@ -306,7 +307,7 @@ async function projectDetail(loaded: LoadedProject): Promise<ProjectDetail> {
 }
 
 /**
- * Sewing plans (`GET /api/sewing-room/projects/:id`'s JSON, about 60 kB for the demo wreath) read
+ * Sewing plans (`GET /api/sewing-room/projects/:id`'s JSON, about 30 kB for the demo wreath) read
  * lately, with who may read them, by project: kept until the project, a tick, its pattern, the
  * designer's name or its grant changes, or the invitation expires (lib/row-changes.ts).
  */
@@ -330,7 +331,7 @@ export async function projectAnswer(actor: Actor, projectId: string): Promise<Ke
     const tags: ChangeTag[] = [`sewing_projects:${project.id}`, `patterns:${pattern.id}`]
     if (pattern.ownerId) tags.push(`users:${pattern.ownerId}`)
     tags.push(project.licenceId !== null ? `licences:${project.licenceId}` : `pattern_invitations:${project.invitationId}`)
-    const json = keptJson(await projectDetail(loaded))
+    const json = keptJson(planAnswer(await projectDetail(loaded)))
     return { value: { ownerId: project.ownerId, facts, json }, tags, until: project.invitation?.expiresAt ?? null }
   })
   // Someone else's project is not found, as in loadProject.

@@ -2,12 +2,13 @@ import { describe, expect, it } from 'vitest'
 import type { ProjectStep, SewingPicture } from '@/lib/schemas/sewing-room'
 import {
   applySaved,
+  areasCount,
   areasOfStep,
-  finishingShown,
   groupsWithProgress,
   mergeServerSteps,
   nextStepOf,
   overlayPending,
+  overlaysShown,
   percentOf,
   progressOf,
   sewnAreas,
@@ -27,12 +28,18 @@ const step = (overrides: Partial<ProjectStep> = {}): ProjectStep => ({
 })
 const pending = (overrides: Partial<PendingChange> = {}): PendingChange => ({ stepId: 'r1:area:A1', done: true, version: 1, failures: 0, notBefore: 0, ...overrides })
 
+const HALF_TURN = [-1, 0, 0, -1, 0, 0] as const
 const picture: SewingPicture = {
   viewBox: [-10, -10, 20, 20],
-  areas: [1, 2].flatMap((repeat) => ['A1', 'A2'].map((id) => ({ repeat, id, points: [[0, 0], [1, 0], [0, 1]] as [number, number][], fill: '#2f5540' }))),
-  finishing: [
+  repeats: [
+    { repeat: 1, matrix: [1, 0, 0, 1, 0, 0] },
+    { repeat: 2, matrix: HALF_TURN },
+  ],
+  areas: ['A1', 'A2'].map((id) => ({ id, points: [[0, 0], [1, 0], [0, 1]] as [number, number][], fill: '#2f5540' })),
+  overlays: [
+    { d: 'M 2 2', fill: '#2f5540', stroke: null, stepIds: ['r1:area:A2', null] },
     { stepId: 'finish:stem', d: 'M 0 0', fill: null, stroke: '#3f6b4f', strokeWidthIn: 0.25 },
-    { stepId: 'finish:berries', d: 'M 1 1', fill: '#a3392b', stroke: null },
+    { d: 'M 1 1', fill: '#a3392b', stroke: null, stepIds: ['finish:berries', 'finish:berries'] },
   ],
 }
 
@@ -111,7 +118,18 @@ describe('the picture', () => {
     expect(areasOfStep(null, picture).size).toBe(0)
   })
 
-  it('draws a finishing item once its step is done', () => {
-    expect(finishingShown(picture, [step({ id: 'finish:berries', done: true }), step({ id: 'finish:stem' })]).map((item) => item.stepId)).toEqual(['finish:berries'])
+  it('counts the areas of every repeat', () => {
+    expect(areasCount(picture, sewnAreas([step({ repeat: 2, areas: ['A2'], done: true })], picture))).toEqual({ done: 1, total: 4 })
+  })
+
+  it('draws what lies over the areas once its step is done, in each repeat whose step is', () => {
+    const shown = overlaysShown(picture, [step({ id: 'finish:berries', done: true }), step({ id: 'finish:stem' }), step({ id: 'r1:area:A2', done: true })])
+    expect(shown.map((item) => [item.stepId, item.matrix])).toEqual([
+      ['r1:area:A2', [1, 0, 0, 1, 0, 0]],
+      ['finish:berries', [1, 0, 0, 1, 0, 0]],
+      ['finish:berries', HALF_TURN],
+    ])
+    expect(new Set(shown.map((item) => item.key)).size).toBe(shown.length)
+    expect(overlaysShown(picture, [step({ id: 'finish:stem', done: true })])).toEqual([{ key: '1', stepId: 'finish:stem', matrix: null, d: 'M 0 0', fill: null, stroke: '#3f6b4f', strokeWidthIn: 0.25 }])
   })
 })

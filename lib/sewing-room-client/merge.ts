@@ -2,7 +2,7 @@
  * What the page shows: the server's steps with the quilter's unsaved changes laid over them, step
  * by step, and the progress, next step and picture that follow from that. Pure functions.
  */
-import type { ProjectStep, SewingPicture, StepProgress } from '@/lib/schemas/sewing-room'
+import type { PictureMark, ProjectStep, SewingPicture, StepProgress, SvgMatrix } from '@/lib/schemas/sewing-room'
 import type { PendingQueue } from './pending-queue'
 
 /** Where a step's latest change stands: on the server, waiting (or on its way), or refused by it. */
@@ -96,7 +96,7 @@ export const areaKey = (repeat: number, areaId: string) => `${repeat}:${areaId}`
  * ring (repeat null) that names areas sews them in every repeat.
  */
 export function sewnAreas(steps: readonly ProjectStep[], picture: SewingPicture): Set<string> {
-  const repeats = [...new Set(picture.areas.map((area) => area.repeat))]
+  const repeats = picture.repeats.map((place) => place.repeat)
   const sewn = new Set<string>()
   for (const step of steps) {
     if (!step.done) continue
@@ -113,10 +113,36 @@ export function areasOfStep(step: ProjectStep | null, picture: SewingPicture): S
   return sewnAreas([{ ...step, done: true }], picture)
 }
 
-/** The finishing drawings whose step is done, in the picture's order. */
-export function finishingShown(picture: SewingPicture, steps: readonly ProjectStep[]): SewingPicture['finishing'][number][] {
+/** Every area of every repeat in the picture, and how many of them are sewn. */
+export function areasCount(picture: SewingPicture, sewn: ReadonlySet<string>): Progress {
+  const keys = picture.repeats.flatMap(({ repeat }) => picture.areas.map((area) => areaKey(repeat, area.id)))
+  return { done: keys.filter((key) => sewn.has(key)).length, total: keys.length }
+}
+
+/** One drawing over the areas, where it is drawn: `matrix` places a repeat's shape (null: as it is). */
+export interface ShownOverlay extends PictureMark {
+  readonly key: string
+  readonly stepId: string
+  readonly matrix: SvgMatrix | null
+}
+
+/** The drawings over the areas whose step is done, each in every repeat whose step is, in the picture's order. */
+export function overlaysShown(picture: SewingPicture, steps: readonly ProjectStep[]): ShownOverlay[] {
   const done = new Set(steps.filter((step) => step.done).map((step) => step.id))
-  return picture.finishing.filter((item) => done.has(item.stepId))
+  const shown: ShownOverlay[] = []
+  picture.overlays.forEach((overlay, index) => {
+    const { d, fill, stroke, strokeWidthIn } = overlay
+    const mark = { d, fill, stroke, ...(strokeWidthIn !== undefined && { strokeWidthIn }) }
+    if ('stepId' in overlay) {
+      if (done.has(overlay.stepId)) shown.push({ ...mark, key: `${index}`, stepId: overlay.stepId, matrix: null })
+      return
+    }
+    for (const { repeat, matrix } of picture.repeats) {
+      const stepId = overlay.stepIds[repeat - 1]
+      if (stepId && done.has(stepId)) shown.push({ ...mark, key: `${index}:${repeat}`, stepId, matrix })
+    }
+  })
+  return shown
 }
 
 function timeOf(iso: string | null | undefined): number {

@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest'
-import { leafLayers } from '@/geometry'
+import { applyTransform, leafLayers, repeatTransforms } from '@/geometry'
 import { asymmetricFile, designFrom, medallionFile } from '@/lib/booklet/test-support/designs'
+import type { PictureOverlay, SvgMatrix } from '@/lib/schemas/sewing-room'
 import { hollyberryWreath } from '@/scripts/demo-wreath'
 import { checklistOfModel, sewingChecklist, sewingModel, STEP_CAUTIONS } from './checklist'
 import { sectionJoins } from './joins'
@@ -115,29 +116,58 @@ describe('the checklist of other rings', () => {
   })
 })
 
+/** SVG's matrix(a b c d e f) takes (x, y) to (a x + c y + e, b x + d y + f): SVG 1.1, section 7.4 "The 'transform' attribute". */
+const applySvgMatrix = ([a, b, c, d, e, f]: SvgMatrix, [x, y]: readonly [number, number]): [number, number] => [a * x + c * y + e, b * x + d * y + f]
+
 describe('the picture of a project', () => {
   const model = sewingModel(wreath, options)
   const picture = sewingPicture(model)
   const { steps } = checklistOfModel(model)
+  const placed = (repeat: number) => picture.areas.flatMap((area) => area.points.map((point) => applySvgMatrix(picture.repeats[repeat - 1]!.matrix, point)))
 
-  it('places every area of every repeat, in the screen frame round the centre', () => {
+  it('gives one repeat’s areas once, with each repeat’s place, in the screen frame round the centre', () => {
     expect(picture.viewBox).toEqual([-9, -9, 18, 18])
-    expect(picture.areas).toHaveLength(model.plan.areas.length * wreath.ring.repeats)
+    expect(picture.areas).toHaveLength(model.plan.areas.length)
+    expect(picture.repeats.map((place) => place.repeat)).toEqual([1, 2, 3, 4])
     // Repeat 1 is repeat 0 as drawn, y flipped: its areas lie in the upper right quarter of the screen.
-    const first = picture.areas.filter((area) => area.repeat === 1)
-    expect(first.every((area) => area.points.every(([x, y]) => x >= -1e-3 && y <= 1e-3))).toBe(true)
-    // Repeat 2 is turned a quarter counter-clockwise: the upper left.
-    const second = picture.areas.filter((area) => area.repeat === 2)
-    expect(second.every((area) => area.points.every(([x, y]) => x <= 1e-3 && y <= 1e-3))).toBe(true)
+    expect(picture.repeats[0]!.matrix).toEqual([1, 0, 0, 1, 0, 0])
+    expect(placed(1).every(([x, y]) => x >= -1e-3 && y <= 1e-3)).toBe(true)
+    // Repeat 2 is turned a quarter counter-clockwise as the quilt is seen: the upper left.
+    expect(placed(2).every(([x, y]) => x <= 1e-3 && y <= 1e-3)).toBe(true)
+    expect(placed(3).every(([x, y]) => x <= 1e-3 && y >= -1e-3)).toBe(true)
     expect(picture.areas.every((area) => /^#[0-9a-f]{6}$/.test(area.fill))).toBe(true)
   })
 
-  it('ties everything laid over the areas to a step of the checklist', () => {
+  it('places each repeat as the ring’s own transforms do, flipped to the screen', () => {
+    const transforms = repeatTransforms(wreath.ring)
+    picture.repeats.forEach(({ matrix }, index) => {
+      for (const area of model.plan.areas) {
+        const shown = picture.areas.find((candidate) => candidate.id === area.id)!
+        area.polygon.forEach((point, corner) => {
+          const [x, y] = applyTransform(transforms[index]!, point)
+          const [sx, sy] = applySvgMatrix(matrix, shown.points[corner]!)
+          expect(Math.abs(sx - x)).toBeLessThan(2e-3)
+          expect(Math.abs(sy + y)).toBeLessThan(2e-3)
+        })
+      }
+    })
+  })
+
+  it('draws a mirrored repeat as a mirror image', () => {
+    const medallion = sewingPicture(sewingModel(designFrom(medallionFile()), { colorway: 0, diameterIn: 20 }))
+    const determinant = ([a, b, c, d]: SvgMatrix) => a * d - b * c
+    expect(medallion.repeats.map(({ matrix }) => Math.round(determinant(matrix)))).toEqual([1, -1, 1, -1, 1, -1])
+  })
+
+  it('ties everything laid over the areas to a step of the checklist, repeat by repeat', () => {
     const ids = new Set(steps.map((step) => step.id))
-    expect(picture.finishing.every((item) => ids.has(item.stepId))).toBe(true)
+    const stepIdsOf = (overlay: PictureOverlay) => ('stepId' in overlay ? [overlay.stepId] : overlay.stepIds.filter((id) => id !== null))
+    expect(picture.overlays.flatMap(stepIdsOf).every((id) => ids.has(id))).toBe(true)
     // Each leaf's layers appear with the step that catches them, in every repeat.
-    expect(picture.finishing.filter((item) => item.stepId === 'r2:area:A2')).toHaveLength(2)
-    expect(picture.finishing.filter((item) => item.stepId === 'finish:berries')).toHaveLength(wreath.berries.length * wreath.ring.repeats)
-    expect(picture.finishing.filter((item) => item.stepId === 'finish:binding')).toHaveLength(1)
+    const repeated = picture.overlays.filter((overlay) => 'stepIds' in overlay)
+    expect(repeated.filter((overlay) => overlay.stepIds[1] === 'r2:area:A2')).toHaveLength(2)
+    expect(repeated.every((overlay) => overlay.stepIds.length === wreath.ring.repeats)).toBe(true)
+    expect(repeated.filter((overlay) => overlay.stepIds[0] === 'finish:berries')).toHaveLength(wreath.berries.length)
+    expect(picture.overlays.filter((overlay) => 'stepId' in overlay && overlay.stepId === 'finish:binding')).toHaveLength(1)
   })
 })

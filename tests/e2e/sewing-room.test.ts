@@ -3,6 +3,8 @@ import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { closeDatabase, database } from '@/lib/db'
 import type { DesignFile } from '@/lib/schemas/design'
+import type { PlanAnswer } from '@/lib/schemas/sewing-room'
+import { readPlan } from '@/lib/sewing-room/plan-answer'
 import { Invitation, Licence, Order, Pattern } from '@/models'
 import { baseUrl, launchBrowser, signInThroughPage } from '../support/browser'
 import { createPatternRow, createUser, TEST_PASSWORD } from '../support/factories'
@@ -189,7 +191,7 @@ describe('the sewing room', () => {
     await waitUntilAllSaved(page)
     await expect.poll(() => stepRow(page, stepId).getByTestId('step-save-state').textContent()).toMatch(/Saved/)
     const server = await page.request.get(`${baseUrl()}/api/sewing-room/projects/${projectId}`)
-    const detail = (await server.json()) as { steps: { id: string; done: boolean }[] }
+    const detail = readPlan((await server.json()) as PlanAnswer)
     expect(detail.steps.find((step) => step.id === stepId)?.done).toBe(true)
     expect(await page.evaluate(() => Object.keys(localStorage).filter((key) => key.startsWith('wreathwright.sewing-room.pending.')))).toEqual([])
   })

@@ -6,6 +6,8 @@ import { GET as projectRoute } from '@/app/api/sewing-room/projects/[id]/route'
 import { POST as startRoute } from '@/app/api/sewing-room/projects/route'
 import { database } from '@/lib/db'
 import { KEPT_AT_MOST_MS, KeptAnswers, rowChanges, type ChangeTag } from '@/lib/row-changes'
+import type { PlanAnswer } from '@/lib/schemas/sewing-room'
+import { readPlan } from '@/lib/sewing-room/plan-answer'
 import { Licence, Order } from '@/models'
 import { hollyberryWreath } from '@/scripts/demo-wreath'
 import { closeDatabase, freshDatabase } from '../support/database'
@@ -85,7 +87,7 @@ async function statementsDuring<T>(run: () => Promise<T>): Promise<{ result: T; 
 }
 
 const readPattern = (cookie: string, id: string) => call(patternRoute, { cookie, params: { id } })
-const readPlan = (cookie: string, id: string) => call(projectRoute, { cookie, params: { id } })
+const getPlan = (cookie: string, id: string) => call(projectRoute, { cookie, params: { id } })
 
 describe('the triggers', () => {
   it('notice a changed row by its table and id, a child row by its parent, and an emptied table by its name', async () => {
@@ -176,28 +178,28 @@ describe('a sewing plan', () => {
   it('shows a tick made elsewhere, a licence refunded elsewhere ends it, and it is never another quilter’s', async () => {
     const { licence, cookie, projectId } = await scene()
     await settle()
-    const first = (await readPlan(cookie, projectId)).json!
-    const step = first.steps[0].id as string
-    expect(first.steps[0].done).toBe(false)
-    expect((await statementsDuring(() => readPlan(cookie, projectId))).statements).toBe(0)
-    expect((await readPlan(await sessionCookieFor(await createUser()), projectId)).status).toBe(404)
+    const first = readPlan((await getPlan(cookie, projectId)).json! as PlanAnswer)
+    const step = first.steps[0]!.id
+    expect(first.steps[0]!.done).toBe(false)
+    expect((await statementsDuring(() => getPlan(cookie, projectId))).statements).toBe(0)
+    expect((await getPlan(await sessionCookieFor(await createUser()), projectId)).status).toBe(404)
 
     await changeElsewhere(
       `sewing_projects:${projectId}`,
       'INSERT INTO sewing_steps (project_id, step_id, done, updated_at) VALUES ($1, $2, true, now())',
       [projectId, step],
     )
-    expect((await readPlan(cookie, projectId)).json!.steps[0].done).toBe(true)
+    expect(readPlan((await getPlan(cookie, projectId)).json! as PlanAnswer).steps[0]!.done).toBe(true)
 
     await changeElsewhere(`licences:${licence.id}`, 'UPDATE licences SET revoked_at = now() WHERE id = $1', [licence.id])
-    expect((await readPlan(cookie, projectId)).status).toBe(404)
+    expect((await getPlan(cookie, projectId)).status).toBe(404)
   })
 
   it('shows the designer’s new name once it changes elsewhere', async () => {
     const { designer, cookie, projectId } = await scene()
-    expect((await readPlan(cookie, projectId)).json!.project.designerName).toBe('Oona Bright')
+    expect((await getPlan(cookie, projectId)).json!.project.designerName).toBe('Oona Bright')
     await changeElsewhere(`users:${designer.id}`, 'UPDATE users SET display_name = $1 WHERE id = $2', ['Oona Bright-Hale', designer.id])
-    expect((await readPlan(cookie, projectId)).json!.project.designerName).toBe('Oona Bright-Hale')
+    expect((await getPlan(cookie, projectId)).json!.project.designerName).toBe('Oona Bright-Hale')
   })
 })
 

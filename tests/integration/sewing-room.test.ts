@@ -4,6 +4,8 @@ import { DELETE as deleteRoute, GET as projectRoute } from '@/app/api/sewing-roo
 import { PATCH as stepRoute } from '@/app/api/sewing-room/projects/[id]/steps/route'
 import { GET as listRoute, POST as startRoute } from '@/app/api/sewing-room/projects/route'
 import { MAX_SEWING_NOTE_LENGTH } from '@/lib/limits'
+import type { PlanAnswer } from '@/lib/schemas/sewing-room'
+import { readPlan } from '@/lib/sewing-room/plan-answer'
 import { Invitation, Licence, Order, SewingProject, SewingStep, User } from '@/models'
 import { seedDemoData } from '@/scripts/demo-data'
 import { DEMO_SEWING } from '@/scripts/demo-season'
@@ -38,6 +40,8 @@ async function grantLicence(user: { id: string }, patternId: string) {
 const start = (cookie: string, body: Record<string, unknown>) => call(startRoute, { method: 'POST', cookie, body })
 const patch = (cookie: string, id: string, body: Record<string, unknown>) => call(stepRoute, { method: 'PATCH', cookie, params: { id }, body })
 const read = (cookie: string | undefined, id: string) => call(projectRoute, { cookie, params: { id } })
+/** The plan as the page reads it. */
+const plan = async (cookie: string, id: string) => readPlan((await read(cookie, id)).json! as PlanAnswer)
 
 describe('starting a project', () => {
   it('lets the licence holder start one (twice for one pattern) and lists only their own', async () => {
@@ -113,12 +117,15 @@ describe('a project and its steps', () => {
     const { buyerCookie, otherCookie, designer, projectId } = await started()
     const detail = await read(buyerCookie, projectId)
     expect(detail.status).toBe(200)
-    const { groups, steps, picture, nextStepId } = detail.json!
+    const { groups, steps, picture, nextStepId } = readPlan(detail.json! as PlanAnswer)
     expect(groups.map((group: { id: string }) => group.id)).toEqual(['prepare-leaves', 'cut', 'repeat-1', 'repeat-2', 'repeat-3', 'repeat-4', 'join-sections', 'join-repeats', 'finishing'])
-    expect(nextStepId).toBe(steps[0].id)
-    expect(steps.find((step: { id: string }) => step.id === 'r3:area:A4')).toMatchObject({ group: 'repeat-3', repeat: 3, done: false, note: null, areas: [expect.stringMatching(/^area-/)] })
+    expect(nextStepId).toBe(steps[0]!.id)
+    expect(steps.find((step) => step.id === 'r3:area:A4')).toMatchObject({ group: 'repeat-3', repeat: 3, done: false, note: null, areas: [expect.stringMatching(/^area-/)] })
     expect(picture.viewBox).toEqual([-9, -9, 18, 18])
-    expect(picture.areas.length).toBe(11 * 4)
+    expect(picture.areas.length).toBe(11)
+    expect(picture.repeats.length).toBe(4)
+    // Each instruction is sent once: the four repeats say the same things.
+    expect(detail.json!.words.length).toBeLessThan(steps.length / 2)
     // Another quilter, the designer (not even they), and nobody signed in.
     expect((await read(otherCookie, projectId)).status).toBe(404)
     expect((await read(await sessionCookieFor(designer), projectId)).status).toBe(404)
@@ -169,11 +176,11 @@ describe('a project and its steps', () => {
     const ids = ['r1:area:A1', 'r1:area:A2', 'r2:area:B3', 'finish:binding', 'cut:background', 'ring:join:2']
     const answers = await Promise.all(ids.map((stepId) => patch(buyerCookie, projectId, { stepId, done: true })))
     expect(answers.map((answer) => answer.status)).toEqual(ids.map(() => 200))
-    const detail = (await read(buyerCookie, projectId)).json!
-    expect(detail.steps.filter((step: { done: boolean }) => step.done).map((step: { id: string }) => step.id).sort()).toEqual([...ids].sort())
+    const detail = await plan(buyerCookie, projectId)
+    expect(detail.steps.filter((step) => step.done).map((step) => step.id).sort()).toEqual([...ids].sort())
     // The same step from two devices: one state, the last write's.
     await Promise.all([patch(buyerCookie, projectId, { stepId: 'r1:area:A3', done: true }), patch(buyerCookie, projectId, { stepId: 'r1:area:A3', note: 'pressed twice' })])
-    const a3 = (await read(buyerCookie, projectId)).json!.steps.find((step: { id: string }) => step.id === 'r1:area:A3')
+    const a3 = (await plan(buyerCookie, projectId)).steps.find((step) => step.id === 'r1:area:A3')
     expect(a3).toMatchObject({ done: true, note: 'pressed twice' })
   })
 
@@ -220,15 +227,15 @@ describe('the demo', () => {
     const cookie = await sessionCookieFor(elsie!)
     const { projects } = (await call(listRoute, { cookie })).json!
     expect(projects).toEqual([expect.objectContaining({ patternName: DEMO_SEWING.pattern, name: DEMO_SEWING.name, diameterIn: 18 })])
-    const detail = (await read(cookie, projects[0].id)).json!
+    const detail = await plan(cookie, projects[0].id)
     // The leaves and the cutting done, then the first three areas of repeat 1; the fourth is next.
     expect(detail.groups.slice(0, 3)).toEqual([
       expect.objectContaining({ id: 'prepare-leaves', done: 2, total: 2 }),
-      expect.objectContaining({ id: 'cut', done: detail.groups[1].total }),
+      expect.objectContaining({ id: 'cut', done: detail.groups[1]!.total }),
       expect.objectContaining({ id: 'repeat-1', done: 3 }),
     ])
     expect(detail.nextStepId).toBe('r1:area:A4')
-    expect(detail.steps.find((step: { id: string }) => step.id === DEMO_SEWING.note.stepId).note).toBe(DEMO_SEWING.note.text)
+    expect(detail.steps.find((step) => step.id === DEMO_SEWING.note.stepId)!.note).toBe(DEMO_SEWING.note.text)
     // Loading the demo again adds nothing.
     await seedDemoData()
     expect(await SewingProject.count()).toBe(1)
