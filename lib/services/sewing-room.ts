@@ -307,7 +307,7 @@ async function projectDetail(loaded: LoadedProject): Promise<ProjectDetail> {
 }
 
 /**
- * Sewing plans (`GET /api/sewing-room/projects/:id`'s JSON, about 30 kB for the demo wreath) read
+ * Sewing plans (`GET /api/sewing-room/projects/:id`'s JSON, about 32 kB for the demo wreath) read
  * lately, with who may read them, by project: kept until the project, a tick, its pattern, the
  * designer's name or its grant changes, or the invitation expires (lib/row-changes.ts).
  */

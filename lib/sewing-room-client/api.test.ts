@@ -1,26 +1,11 @@
 import { afterEach, describe, expect, it, vi } from 'vitest'
 import { ApiError, MALFORMED_ANSWER } from '@/lib/api-client'
 import type { PlanAnswer } from '@/lib/schemas/sewing-room'
+import { projectSummary } from '@/lib/sewing-room/test-support/project'
 import { fetchProject } from './api'
 
 const answer: PlanAnswer = {
-  project: {
-    id: '6f1c2b3a-0000-4000-8000-000000000001',
-    name: null,
-    patternId: '6f1c2b3a-0000-4000-8000-000000000002',
-    patternName: 'A ring',
-    designerName: 'Someone',
-    colorway: { index: 0, name: null },
-    diameterIn: 18,
-    paper: 'letter',
-    licenceId: null,
-    invitationId: null,
-    done: 1,
-    total: 2,
-    nextStepLabel: 'Sew A2',
-    createdAt: '2026-12-01T09:00:00.000Z',
-    updatedAt: '2026-12-03T10:00:00.000Z',
-  },
+  project: projectSummary({ done: 1, total: 2, nextStepLabel: 'Sew A2' }),
   groups: [{ id: 'repeat-1', label: 'Repeat 1', done: 1, total: 2 }],
   words: ['Sew along the line.'],
   steps: [

@@ -6,6 +6,7 @@ import { hollyberryWreath } from '@/scripts/demo-wreath'
 import { checklistOfModel, sewingModel } from './checklist'
 import { sewingPicture } from './picture'
 import { planAnswer, readPlan } from './plan-answer'
+import { projectSummary } from './test-support/project'
 
 /** A plan as the server makes it, with some steps' progress stored. */
 function detailOf(design: Parameters<typeof sewingModel>[0], options: { colorway: number; diameterIn: number }): ProjectDetail {
@@ -17,23 +18,12 @@ function detailOf(design: Parameters<typeof sewingModel>[0], options: { colorway
     return { ...step, done: false, note: null, updatedAt: null }
   })
   return {
-    project: {
-      id: '6f1c2b3a-0000-4000-8000-000000000001',
-      name: null,
-      patternId: '6f1c2b3a-0000-4000-8000-000000000002',
-      patternName: 'A ring',
-      designerName: 'Someone',
-      colorway: { index: 0, name: null },
+    project: projectSummary({
       diameterIn: options.diameterIn,
-      paper: 'letter',
-      licenceId: null,
-      invitationId: null,
       done: withProgress.filter((step) => step.done).length,
       total: withProgress.length,
-      nextStepLabel: null,
-      createdAt: '2026-12-01T09:00:00.000Z',
       updatedAt: '2026-12-03T10:05:00.000Z',
-    },
+    }),
     groups: groups.map((group) => ({ ...group, done: 0, total: 0 })),
     steps: withProgress,
     nextStepId: withProgress.find((step) => !step.done)?.id ?? null,
