@@ -144,8 +144,8 @@ export type PictureOverlay = PictureMark & ({ readonly stepId: string } | { read
 /**
  * The ring to draw, in inches, in the screen's frame: the ring's centre at (0, 0), x to the right
  * and y DOWN (the design's y-up frame already flipped). The shapes every repeat shares are given
- * once, with each repeat's place as an SVG matrix (a turn about the centre, or a mirror image), so
- * the picture of a ring of twelve is no larger than one of four.
+ * once, with each repeat's place as an SVG matrix (a turn about the centre, or a mirror image):
+ * a ring with more repeats adds a matrix and a step id per shape for each, not the shapes again.
  */
 export interface SewingPicture {
   /** [minX, minY, width, height], inches. */
