@@ -141,7 +141,13 @@ function expectedOrder(input: Input): string[] {
     if (angle > 2 * Math.PI - 1e-9) angle = 0
     return { id: l.id, angle, radius: Math.hypot(x, y) }
   })
-  keyed.sort((a, b) => (Math.abs(a.angle - b.angle) > 1e-9 ? a.angle - b.angle : a.radius - b.radius || (a.id < b.id ? -1 : 1)))
+  // Angles within 1e-9 rad of their neighbour, in a chain, are one angle: "within the noise of each
+  // other" pair by pair is no order (0, 0.5e-9 and 1.0000000000000002e-9 would sort differently by
+  // the order they came in; a case fast-check found).
+  const byAngle = [...keyed].sort((a, b) => a.angle - b.angle)
+  const rank = new Map<string, number>()
+  byAngle.forEach((k, i) => rank.set(k.id, i > 0 && k.angle - byAngle[i - 1]!.angle <= 1e-9 ? rank.get(byAngle[i - 1]!.id)! : i))
+  keyed.sort((a, b) => rank.get(a.id)! - rank.get(b.id)! || a.radius - b.radius || (a.id < b.id ? -1 : 1))
   return keyed.map((k) => k.id)
 }
 
@@ -208,6 +214,27 @@ describe('spreadLeafFabrics: properties', () => {
     const orders = [[0, 1, 2], [0, 2, 1], [1, 0, 2], [1, 2, 0], [2, 0, 1], [2, 1, 0]].map((permutation) =>
       spreadLeafFabrics({ ...input, leaves: permutation.map((index) => input.leaves[index]!) }).leaves.map((leaf) => leaf.id))
     for (const order of orders) expect(order).toEqual(orders[0])
+  })
+
+  it('is held to a reference that ranks a chain of angles within the noise as one angle (a case fast-check found)', () => {
+    // 0, 0.5e-9 and 1.0000000000000002e-9 rad: the first and last are just beyond the noise of
+    // each other, each within it of the middle one. One angle, so the leaves go outward, then by id.
+    const input: Input = {
+      ring: { repeatMode: 'rotate' },
+      seams: [
+        { id: 's0', from: [0.5000000000000001, 0], to: [0.5, 0] },
+        { id: 's1', from: [0.5, 5.000000000000001e-10], to: [0.5, 0] },
+        { id: 's3', from: [0.5, 0], to: [0.5, 0] },
+      ],
+      leaves: [
+        { id: 'l0', seam: 's0', at: 0, side: 'left', layers: ['a'] },
+        { id: 'l1', seam: 's1', at: 0, side: 'left', layers: ['a'] },
+        { id: 'l2', seam: 's1', at: 0.5, side: 'left', layers: ['a'] },
+        { id: 'l3', seam: 's3', at: 0, side: 'left', layers: ['a'] },
+      ],
+    }
+    expect(expectedOrder(input)).toEqual(['l1', 'l2', 'l3', 'l0'])
+    expect(spreadLeafFabrics(input).leaves.map((leaf) => leaf.id)).toEqual(expectedOrder(input))
   })
 
   it('is deterministic, does not change its input, and does not depend on the order leaves are listed in', () => {
