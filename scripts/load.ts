@@ -28,8 +28,8 @@
  *   - sign-in       POST /api/auth/sign-in, the right password, through argon2.
  * For each it prints requests/s, p50 and p99 latency and errors (connection errors, time-outs and
  * any answer that is not 2xx, or not the target's own status), beside the bare handler's figures
- * at the same connections, as a ratio. Goals (issue 17): no errors anywhere; for reads at 50 connections a p99 under 100 ms and
- * at least 40 % of the bare handler's requests/s.
+ * at the same connections, as a ratio. Goals (issue 17): no errors anywhere; for reads at 50
+ * connections a p99 under 100 ms and at least 40 % of the bare handler's requests/s.
  *
  * Sign-in's limits (lib/rate-limits.ts) count every attempt from its start and give a successful
  * one back, so many sign-ins in flight for one account or from one address would be refused with

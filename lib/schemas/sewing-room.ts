@@ -117,8 +117,8 @@ export interface StepProgress {
 
 export interface ProjectStep extends ChecklistStep {
   readonly done: boolean
-  readonly note?: string | null
-  readonly updatedAt?: string | null
+  readonly note: string | null
+  readonly updatedAt: string | null
 }
 
 /** An SVG transform matrix [a, b, c, d, e, f]: (x, y) goes to (a x + c y + e, b x + d y + f). */

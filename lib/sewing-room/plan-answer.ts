@@ -29,8 +29,8 @@ export function planAnswer(detail: ProjectDetail): PlanAnswer {
         places.set(instruction, place)
       }
     }
-    const untouched = !done && (note ?? null) === null && (updatedAt ?? null) === null
-    return { ...rest, ...(place !== undefined && { instruction: place }), ...(!untouched && { done, note: note ?? null, updatedAt: updatedAt ?? null }) }
+    const untouched = !done && note === null && updatedAt === null
+    return { ...rest, ...(place !== undefined && { instruction: place }), ...(!untouched && { done, note, updatedAt }) }
   })
   return { ...detail, words, steps }
 }

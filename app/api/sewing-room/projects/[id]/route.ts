@@ -3,11 +3,11 @@ import { keptJsonResponse } from '@/lib/kept-json'
 import { deleteProject, loadProject, projectAnswer } from '@/lib/services/sewing-room'
 
 /**
- * `GET /api/sewing-room/projects/:id` → `{ project, groups: [ { id, label, done, total } ], steps: [ {
- * id, group, label, instruction?, roughCut?, repeat, areas, leaves?, done, note, updatedAt } ],
- * nextStepId, picture: { viewBox, areas, finishing } }`: for the project's owner while they hold its
- * licence or invitation; anyone else: 404. Kept by this process while unchanged (lib/row-changes.ts);
- * with an ETag, and 304 without a body to an If-None-Match naming it (lib/kept-json.ts).
+ * `GET /api/sewing-room/projects/:id` → the project's sewing plan as a PlanAnswer (each distinct
+ * instruction once; lib/sewing-room/plan-answer.ts reads it back whole): for the project's owner
+ * while they hold its licence or invitation; anyone else: 404. Kept by this process while
+ * unchanged (lib/row-changes.ts); with an ETag, and 304 without a body to an If-None-Match naming
+ * it (lib/kept-json.ts).
  */
 export const GET = route(
   { params: ['id'], bodyLimit: BODY_LIMITS.none, session: 'required', permit: ({ user, params }) => projectAnswer(user, params.id) },
